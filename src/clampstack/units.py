@@ -1,0 +1,250 @@
+"""Units: one shared pint registry and the parsers used at the input boundary.
+
+Quantities arrive as strings with units (``"12 mm"``, ``"0.5 in"``,
+``"85 N*m"``, ``"65 ft*lbf"``, ``"20 degC"``, ``"11.5e-6 / K"``) and ranges as
+``"0.10..0.16"`` or ``"0..10 kN"``.  Everything inside the package below this
+layer works in plain SI floats (m, m^2, N, N*m, Pa, K, 1/K, N/m); the parsers
+here return those floats.
+
+Temperatures: an absolute temperature (``degC``, ``degF``, ``K``) converts to
+kelvin; a temperature *difference* must be written in ``K`` or ``delta_degC`` /
+``delta_degF`` - ``"60 degC"`` where a difference is expected is refused rather
+than guessed.
+
+The pint registry is built lazily on first use (importing pint costs about
+0.2 s, which ``clampstack --help`` must not pay) and uses pint's on-disk
+definition cache where the platform allows it.
+"""
+
+from __future__ import annotations
+
+import math
+import re
+from dataclasses import dataclass
+from functools import lru_cache
+from typing import Any
+
+from .errors import InputError
+
+# kind -> (pint dimensionality string, SI unit to convert to, human name)
+KINDS: dict[str, tuple[str, str, str]] = {
+    "length": ("[length]", "m", "a length"),
+    "area": ("[length] ** 2", "m**2", "an area"),
+    "force": ("[force]", "N", "a force"),
+    "torque": ("[force] * [length]", "N*m", "a torque"),
+    "stress": ("[pressure]", "Pa", "a stress or pressure"),
+    "stiffness": ("[force] / [length]", "N/m", "a stiffness (force per length)"),
+    "expansion": ("1 / [temperature]", "1/K", "a thermal expansion coefficient (per K)"),
+    "temperature": ("[temperature]", "K", "a temperature"),
+    "temperature_difference": ("[temperature]", "K", "a temperature difference"),
+    "angle": ("", "rad", "an angle"),
+    "dimensionless": ("", "", "a plain number"),
+    "moment": ("[force] * [length]", "N*m", "a moment"),
+}
+
+_NUMBER = re.compile(r"^\s*([+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?)\s*(.*?)\s*$")
+_OFFSET_UNITS = {"degree_Celsius", "degree_Fahrenheit", "degree_Rankine", "degree_Reaumur"}
+
+
+@lru_cache(maxsize=1)
+def registry():
+    """The one pint ``UnitRegistry`` of the package (built on first call)."""
+    import pint
+
+    try:
+        ureg = pint.UnitRegistry(cache_folder=":auto:")
+    except Exception:  # pragma: no cover - read-only home, odd platforms
+        ureg = pint.UnitRegistry()
+    ureg.formatter.default_format = "~P"
+    return ureg
+
+
+def _show(raw: Any) -> str:
+    return f'"{raw}"' if isinstance(raw, str) else repr(raw)
+
+
+@dataclass(frozen=True)
+class Parsed:
+    """A parsed quantity: SI value plus the text as entered (for echoing back)."""
+
+    value: float
+    text: str
+
+
+@lru_cache(maxsize=4096)
+def _parse_cached(text: str, kind: str) -> float:
+    """Parse one quantity string to an SI float; raises InputError without a key."""
+    dim, si_unit, human = KINDS[kind]
+    m = _NUMBER.match(text)
+    if not m and re.match(r"^\s*[+-]?(nan|inf|infinity)\b", text, re.IGNORECASE):
+        raise InputError(f"expected a finite number, got {_show(text)}")
+    if not m:
+        raise InputError(f"expected {human}, got {_show(text)} (write a number and a unit)")
+    number = float(m.group(1))
+    unit_text = m.group(2)
+    if not math.isfinite(number):
+        raise InputError(f"expected a finite number, got {_show(text)}")
+    if kind in ("dimensionless",) and unit_text in ("", "%"):
+        return number / 100.0 if unit_text == "%" else number
+    if not unit_text:
+        if kind == "angle":
+            raise InputError(f"expected {human} with a unit (deg or rad), got {_show(text)}")
+        raise InputError(f"expected {human} with a unit, got {_show(text)}")
+    ureg = registry()
+    try:
+        ut = unit_text.replace("^", "**")
+        unit = ureg.parse_units("1 " + ut if ut.startswith("/") else ut)
+    except Exception:
+        raise InputError(f"unknown unit {_show(unit_text)} in {_show(text)}") from None
+    try:
+        units_names = {str(u) for u in unit._units.keys()}
+    except Exception:  # pragma: no cover
+        units_names = set()
+    is_offset = bool(units_names & _OFFSET_UNITS)
+    if kind == "temperature_difference" and is_offset:
+        raise InputError(
+            f"expected a temperature difference, got {_show(text)} (an absolute temperature); "
+            'write it in K or delta_degC, e.g. "60 K"'
+        )
+    q = ureg.Quantity(number, unit)
+    if kind == "expansion" and q.dimensionality == ureg.parse_units("1/K").dimensionality:
+        return float(q.to("1/K").magnitude)
+    if q.dimensionality != ureg.get_dimensionality(dim) if dim else not q.dimensionless:
+        raise InputError(f"expected {human}, got {_show(text)}")
+    if kind == "dimensionless":
+        return float(q.to("").magnitude)
+    return float(q.to(si_unit).magnitude)
+
+
+def parse_quantity(raw: Any, kind: str, key: str | None = None) -> float:
+    """Parse ``raw`` (a string with a unit) as ``kind`` and return its SI value.
+
+    Parameters
+    ----------
+    raw : str or float
+        ``"12 mm"``, ``"65 ft*lbf"``, ``"20 degC"``; a bare number only for
+        ``kind="dimensionless"``.
+    kind : str
+        One of :data:`KINDS` (``"length"``, ``"force"``, ``"temperature"``, ...).
+    key : str, optional
+        Key path used in the error message (``part[2].length``).
+
+    Returns
+    -------
+    float
+        The value in SI units (m, m^2, N, N*m, Pa, K, 1/K, N/m, rad).
+
+    Raises
+    ------
+    InputError
+        Wrong dimension, missing unit, not a number, NaN or infinity.
+    """
+    if kind not in KINDS:  # programming error, not input
+        raise KeyError(kind)
+    try:
+        if isinstance(raw, bool):
+            raise InputError(f"expected {KINDS[kind][2]}, got {raw!r}")
+        if isinstance(raw, int | float):
+            if not math.isfinite(raw):
+                raise InputError(f"expected a finite number, got {raw!r}")
+            if kind == "dimensionless":
+                return float(raw)
+            raise InputError(
+                f"expected {KINDS[kind][2]} with a unit, got {raw!r} (write it as a string, "
+                f'e.g. "{raw} {_example_unit(kind)}")'
+            )
+        if not isinstance(raw, str):
+            raise InputError(f"expected {KINDS[kind][2]}, got {_show(raw)}")
+        if ".." in raw:
+            raise InputError(f"expected a single value, got the range {_show(raw)}")
+        return _parse_cached(raw.strip(), kind)
+    except InputError as err:
+        raise InputError(err.detail, key=key) from None
+
+
+def _example_unit(kind: str) -> str:
+    return {
+        "length": "mm",
+        "area": "mm^2",
+        "force": "kN",
+        "torque": "N*m",
+        "stress": "MPa",
+        "stiffness": "kN/mm",
+        "expansion": "1/K",
+        "temperature": "degC",
+        "temperature_difference": "K",
+        "angle": "deg",
+        "moment": "N*m",
+    }.get(kind, "")
+
+
+def parse_range(raw: Any, kind: str, key: str | None = None) -> tuple[float, float]:
+    """Parse a value or a range ``"lo..hi [unit]"`` to ``(lo, hi)`` in SI units.
+
+    A single value gives ``(v, v)``.  In ``"0..10 kN"`` the unit written after
+    the upper end applies to a bare lower end; ``"-40 degC..150 degC"`` works too.
+    ``lo > hi`` is an error.
+    """
+    if isinstance(raw, str) and ".." in raw:
+        left, sep, right = raw.partition("..")
+        if ".." in right or not left.strip() or not right.strip():
+            raise InputError(f'expected a range "low..high", got {_show(raw)}', key=key)
+        left, right = left.strip(), right.strip()
+        ml, mr = _NUMBER.match(left), _NUMBER.match(right)
+        if ml and mr and not ml.group(2) and mr.group(2):
+            left = f"{left} {mr.group(2)}"
+        lo = parse_quantity(left, kind, key)
+        hi = parse_quantity(right, kind, key)
+        if lo > hi:
+            raise InputError(f"range {_show(raw)} has its low end above its high end", key=key)
+        return lo, hi
+    v = parse_quantity(raw, kind, key)
+    return v, v
+
+
+def to_unit(value_si: float, unit: str) -> float:
+    """Convert an SI float (m, N, Pa, ...) to ``unit`` (``"mm"``, ``"kN"``, ``"MPa"``)."""
+    fast = _FAST_FACTORS.get(unit)
+    if fast is not None:
+        return value_si / fast
+    ureg = registry()
+    q = ureg.Quantity(1.0, unit)
+    return value_si / float(q.to_base_units().magnitude)
+
+
+# Factors from common display units to SI, so that output formatting never needs pint.
+_FAST_FACTORS: dict[str, float] = {
+    "m": 1.0,
+    "mm": 1e-3,
+    "um": 1e-6,
+    "mm2": 1e-6,
+    "mm^2": 1e-6,
+    "N": 1.0,
+    "kN": 1e3,
+    "MPa": 1e6,
+    "N/mm": 1e3,
+    "kN/mm": 1e6,
+    "N*m": 1.0,
+    "Nm": 1.0,
+    "1/K": 1.0,
+    "in": 0.0254,
+    "in2": 0.0254**2,
+    "lbf": 4.4482216152605,
+    "kip": 4448.2216152605,
+    "ksi": 6894757.293168361,
+    "psi": 6894.757293168361,
+    "ft*lbf": 1.3558179483314004,
+    "lbf/in": 4.4482216152605 / 0.0254,
+}
+
+KELVIN_OFFSET = 273.15
+
+
+def kelvin_to_degc(t: float) -> float:
+    """Absolute temperature in K to degC."""
+    return t - KELVIN_OFFSET
+
+
+def degc_to_kelvin(t: float) -> float:
+    """Absolute temperature in degC to K."""
+    return t + KELVIN_OFFSET
