@@ -1,0 +1,165 @@
+"""Tabular listings of the catalog for display (``clampstack catalog KIND``).
+
+Each listing is a header (units in brackets) and rows of display strings, the last column
+being the published source of the row.
+"""
+
+from __future__ import annotations
+
+from clampstack.catalog._common import fmt
+from clampstack.catalog.grades import grades
+from clampstack.catalog.materials import ZERO_C, materials
+from clampstack.catalog.threads import threads
+from clampstack.errors import InputError
+
+KINDS = ("threads", "grades", "materials")
+
+_MM = 1e-3
+_MPA = 1e6
+_GPA = 1e9
+
+
+def _mm(value: float | None, digits: int = 3) -> str:
+    return fmt(None if value is None else value / _MM, digits)
+
+
+def _mpa(value: float | None) -> str:
+    return fmt(None if value is None else value / _MPA, 1)
+
+
+def _thread_listing() -> tuple[list[str], list[list[str]]]:
+    header = [
+        "designation",
+        "series",
+        "d [mm]",
+        "P [mm]",
+        "d2 [mm]",
+        "d3 [mm]",
+        "D1 [mm]",
+        "As [mm^2]",
+        "s hex [mm]",
+        "dk socket [mm]",
+        "m nut [mm]",
+        "hole f/m/c [mm]",
+        "source",
+    ]
+    rows = []
+    for t in threads():
+        holes = "/".join(_mm(h, 2) for h in (t.hole_fine, t.hole_medium, t.hole_coarse))
+        rows.append(
+            [
+                t.designation,
+                t.series,
+                _mm(t.d),
+                _mm(t.P, 4),
+                _mm(t.d2),
+                _mm(t.d3),
+                _mm(t.d1),
+                fmt(t.As / _MM**2, 2),
+                _mm(t.head_across_flats, 2),
+                _mm(t.socket_head_diameter, 2),
+                _mm(t.nut_height, 2),
+                holes,
+                t.source,
+            ]
+        )
+    return header, rows
+
+
+def _grade_listing() -> tuple[list[str], list[list[str]]]:
+    header = [
+        "grade",
+        "d range [mm]",
+        "Rm [MPa]",
+        "yield [MPa]",
+        "yield basis",
+        "proof [MPa]",
+        "E [GPa]",
+        "alpha [1e-6/K]",
+        "material",
+        "source",
+    ]
+    rows = []
+    for g in grades():
+        lo, hi = g.d_range
+        rows.append(
+            [
+                g.name,
+                f"{_mm(lo, 2)}..{_mm(hi, 2)}",
+                _mpa(g.Rm),
+                _mpa(g.Rp02),
+                g.yield_basis,
+                _mpa(g.proof),
+                fmt(g.E / _GPA, 1),
+                fmt(g.alpha * 1e6, 2),
+                g.material_key,
+                g.source,
+            ]
+        )
+    return header, rows
+
+
+def _material_listing() -> tuple[list[str], list[list[str]]]:
+    header = [
+        "key",
+        "name",
+        "E20 [GPa]",
+        "nu",
+        "alpha20 [1e-6/K]",
+        "Rp0.2 [MPa]",
+        "Rm [MPa]",
+        "pG [MPa]",
+        "tauB/Rm",
+        "T range [degC]",
+        "source",
+    ]
+    rows = []
+    for m in materials():
+        lo, hi = m.valid_range()
+        rows.append(
+            [
+                m.key,
+                m.name,
+                fmt(m.E20 / _GPA, 1),
+                fmt(m.nu, 3),
+                fmt(m.alpha20 * 1e6, 2),
+                _mpa(m.Rp02),
+                _mpa(m.Rm),
+                _mpa(m.pG),
+                fmt(m.shear_ratio, 2),
+                f"{fmt(lo - ZERO_C, 1)}..{fmt(hi - ZERO_C, 1)}",
+                f"{m.source}; temperature table: {m.table_source}",
+            ]
+        )
+    return header, rows
+
+
+def listing(kind: str) -> tuple[list[str], list[list[str]]]:
+    """Return a display table of one part of the catalog.
+
+    Parameters
+    ----------
+    kind : str
+        ``"threads"``, ``"grades"`` or ``"materials"`` (case-insensitive).
+
+    Returns
+    -------
+    header : list of str
+        Column titles with units in brackets; the last one is ``"source"``.
+    rows : list of list of str
+        One row of display strings per catalog entry (``-`` for a missing value).
+
+    Raises
+    ------
+    InputError
+        An unknown kind; the message lists the known ones.
+    """
+    builders = {
+        "threads": _thread_listing,
+        "grades": _grade_listing,
+        "materials": _material_listing,
+    }
+    builder = builders.get(str(kind).strip().lower())
+    if builder is None:
+        raise InputError(f"unknown catalog listing {kind!r}; known: {', '.join(KINDS)}", key="kind")
+    return builder()
