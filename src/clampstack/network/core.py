@@ -1,0 +1,498 @@
+"""Axial spring network: parts between nodes on one axis, solved exactly.
+
+This module knows nothing of units or of what the parts stand for.  Values are
+plain floats in one consistent unit system (the package uses SI: N, m).
+
+Model
+-----
+Nodes carry one displacement ``u`` along the axis.  A part joins node ``i`` (its
+first end) to node ``j`` (its second end, further along +axis).  Its elongation
+is ``D = u_j - u_i``; its *free* elongation ``d0 = misfit + strain * length`` is
+the elongation at which it carries no force (a length error or a thermal
+strain).  The part force ``N`` (tension positive) is a function of the
+mechanical elongation ``e = D - d0``:
+
+* linear: ``N = k e`` (``k = E A / L`` or given);
+* compression-only with gap ``g``: ``N = k min(e + g, 0)`` (a contact that
+  first closes a clearance ``g``);
+* tension-only with gap ``g``: ``N = k max(e - g, 0)`` (a slack link);
+* piecewise-linear curve: ``N = f(e)`` through given points, extended with the
+  end slopes; the curve must not fall (a stable material).
+
+Every part pulls its first node with ``+N`` and its second with ``-N``; the
+equilibrium at the free nodes is ``B^T N(u) = F`` and the reaction at a fixed
+node is ``R = (B^T N)_n - F_n`` (the force the support exerts, +axis).
+
+The linear system is the usual direct-stiffness assembly (any text on the
+matrix stiffness method, e.g. Przemieniecki, *Theory of Matrix Structural
+Analysis*, 1968, ch. 3).  Unilateral parts and curves make the equations
+piecewise linear; they are solved by a semi-smooth Newton (active-set)
+iteration with a backtracking line search on the total potential energy, which
+is convex because every part's force rises with its elongation.  The
+iteration stops with :class:`SolveError` if a state repeats or the iteration
+limit is reached.  A stiffness matrix with a small band (a chain, a bolt beside
+a clamped stack) is factorised as a banded Cholesky (LAPACK ``pbsv``), any
+other with SuperLU.
+"""
+
+from __future__ import annotations
+
+from collections.abc import Sequence
+from dataclasses import dataclass, field
+
+import numpy as np
+
+from ..errors import InputError, SolveError
+
+LINEAR, COMPRESSION, TENSION, CURVE = 0, 1, 2, 3
+BEHAVIOURS = {"linear": LINEAR, "compression": COMPRESSION, "tension": TENSION, "curve": CURVE}
+
+_EPS_SLOPE = 1e-10  # relative stiffness given to a slack part in the Newton matrix only
+_BAND_BUDGET = 6e7  # use the banded Cholesky when n * (band + 1)**2 stays below this
+_MAX_ITER = 500
+_POLISH = 1e-9  # one step of iterative refinement when the residual is above this (relative)
+
+
+@dataclass(frozen=True)
+class Curve:
+    """A piecewise-linear force-elongation law ``N = f(e)``.
+
+    ``x`` are elongations (ascending), ``f`` the forces there (not falling);
+    below ``x[0]`` and above ``x[-1]`` the law continues with ``slope_below`` and
+    ``slope_above``.
+    """
+
+    x: np.ndarray
+    f: np.ndarray
+    slope_below: float
+    slope_above: float
+
+    @staticmethod
+    def make(
+        x: Sequence[float],
+        f: Sequence[float],
+        slope_below: float | None = None,
+        slope_above: float | None = None,
+    ) -> Curve:
+        """Build and validate a curve; end slopes default to the end segments' slopes."""
+        xa = np.asarray(x, dtype=float)
+        fa = np.asarray(f, dtype=float)
+        if xa.ndim != 1 or xa.size < 2 or xa.shape != fa.shape:
+            raise InputError("a curve needs at least two points of (elongation, force)")
+        if not (np.all(np.isfinite(xa)) and np.all(np.isfinite(fa))):
+            raise InputError("a curve point is not a finite number")
+        if np.any(np.diff(xa) <= 0):
+            raise InputError("curve points must be in rising order of elongation")
+        seg = np.diff(fa) / np.diff(xa)
+        if np.any(seg < 0):
+            raise InputError("the curve falls somewhere (force must not drop as elongation grows)")
+        sb = float(seg[0]) if slope_below is None else float(slope_below)
+        sa = float(seg[-1]) if slope_above is None else float(slope_above)
+        if sb < 0 or sa < 0 or not (np.isfinite(sb) and np.isfinite(sa)):
+            raise InputError("curve end slopes must be finite and not negative")
+        return Curve(xa, fa, sb, sa)
+
+    def _segments(self) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
+        x, f = self.x, self.f
+        slopes = np.concatenate(([self.slope_below], np.diff(f) / np.diff(x), [self.slope_above]))
+        # energy at each breakpoint, measured from x[0]
+        w = np.concatenate(([0.0], np.cumsum(0.5 * (f[1:] + f[:-1]) * np.diff(x))))
+        return slopes, w, x
+
+    def evaluate(self, e: np.ndarray) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
+        """Force, tangent slope and stored energy at elongations ``e``."""
+        e = np.asarray(e, dtype=float)
+        slopes, w, x = self._segments()
+        f = self.f
+        # segment index: 0 below x[0], m for x[m-1] <= e < x[m], len(x) above
+        idx = np.searchsorted(x, e, side="right")
+        base = np.clip(idx - 1, 0, len(x) - 1)
+        s = slopes[idx]
+        de = e - x[base]
+        force = f[base] + s * de
+        energy = w[base] + f[base] * de + 0.5 * s * de * de
+        return force, s, energy
+
+
+@dataclass
+class Network:
+    """An axial spring network held as arrays (nodes are integers ``0..n-1``).
+
+    Use :meth:`add_part` for a few parts or :meth:`from_arrays` for many.
+    """
+
+    n_nodes: int
+    i: np.ndarray
+    j: np.ndarray
+    k: np.ndarray
+    free_elongation: np.ndarray
+    behaviour: np.ndarray
+    gap: np.ndarray
+    curves: dict[int, Curve] = field(default_factory=dict)
+    fixed: np.ndarray | None = None  # bool per node
+    prescribed: np.ndarray | None = None  # displacement of fixed nodes
+
+    # ------------------------------------------------------------------ build
+    @staticmethod
+    def from_arrays(
+        n_nodes: int,
+        i: Sequence[int] | np.ndarray,
+        j: Sequence[int] | np.ndarray,
+        k: Sequence[float] | np.ndarray,
+        free_elongation: Sequence[float] | np.ndarray | None = None,
+        behaviour: Sequence[int] | np.ndarray | None = None,
+        gap: Sequence[float] | np.ndarray | None = None,
+        curves: dict[int, Curve] | None = None,
+        fixed: Sequence[int] | np.ndarray = (),
+        prescribed: Sequence[float] | np.ndarray | None = None,
+    ) -> Network:
+        """Build a network from arrays, one entry per part (validated)."""
+        ia = np.asarray(i, dtype=np.int64)
+        ja = np.asarray(j, dtype=np.int64)
+        ka = np.asarray(k, dtype=float)
+        m = ia.size
+        d0 = np.zeros(m) if free_elongation is None else np.asarray(free_elongation, dtype=float)
+        beh = np.zeros(m, dtype=np.int8) if behaviour is None else np.asarray(behaviour, np.int8)
+        ga = np.zeros(m) if gap is None else np.asarray(gap, dtype=float)
+        fx = np.zeros(n_nodes, dtype=bool)
+        fixed_idx = np.asarray(fixed, dtype=np.int64)
+        if fixed_idx.size and (fixed_idx.min() < 0 or fixed_idx.max() >= n_nodes):
+            raise InputError("a fixed node is not in the network")
+        fx[fixed_idx] = True
+        pre = np.zeros(n_nodes)
+        if prescribed is not None:
+            pre[fixed_idx] = np.asarray(prescribed, dtype=float)
+        net = Network(n_nodes, ia, ja, ka, d0, beh, ga, dict(curves or {}), fx, pre)
+        net.validate()
+        return net
+
+    def validate(self) -> None:
+        """Check shapes, finiteness and that every node is held (raises InputError)."""
+        m = self.i.size
+        for name, arr in (
+            ("j", self.j),
+            ("k", self.k),
+            ("free_elongation", self.free_elongation),
+            ("behaviour", self.behaviour),
+            ("gap", self.gap),
+        ):
+            if arr.shape != (m,):
+                raise InputError(f"network array {name} has {arr.size} entries for {m} parts")
+        if m and (
+            min(self.i.min(), self.j.min()) < 0 or max(self.i.max(), self.j.max()) >= self.n_nodes
+        ):
+            raise InputError("a part refers to a node that is not in the network")
+        same = np.flatnonzero(self.i == self.j)
+        if same.size:
+            raise InputError(f"part {same[0]} joins node {self.i[same[0]]} to itself")
+        is_curve = self.behaviour == CURVE
+        bad = np.flatnonzero(~is_curve & ~(np.isfinite(self.k) & (self.k > 0)))
+        if bad.size:
+            p = bad[0]
+            raise InputError(
+                f"part {p} between nodes {self.i[p]} and {self.j[p]} has stiffness {self.k[p]!r}"
+                " (must be positive and finite)"
+            )
+        if not np.all(np.isfinite(self.free_elongation)) or not np.all(np.isfinite(self.gap)):
+            raise InputError("a part's free elongation or gap is not finite")
+        if np.any(self.gap < 0):
+            raise InputError("a gap is negative")
+        missing = [int(p) for p in np.flatnonzero(is_curve) if int(p) not in self.curves]
+        if missing:
+            raise InputError(f"part {missing[0]} is a curve part without a curve")
+        if self.fixed is None or not self.fixed.any():
+            raise InputError("no node is fixed: the assembly can move as a rigid body")
+
+    def components(self) -> tuple[int, np.ndarray]:
+        """Connected groups of nodes (through any part), as ``(count, label per node)``."""
+        from scipy.sparse import coo_array
+        from scipy.sparse.csgraph import connected_components
+
+        g = coo_array((np.ones(self.i.size), (self.i, self.j)), shape=(self.n_nodes, self.n_nodes))
+        return connected_components(g, directed=False)
+
+    def unheld_groups(self) -> list[np.ndarray]:
+        """Groups of nodes joined to no fixed node at all (each an array of node ids)."""
+        count, label = self.components()
+        held = np.zeros(count, dtype=bool)
+        held[label[self.fixed]] = True
+        return [np.flatnonzero(label == c) for c in range(count) if not held[c]]
+
+    # ------------------------------------------------------------------ laws
+    def part_law(self, e: np.ndarray) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
+        """Force, tangent slope and energy of every part at mechanical elongation ``e``."""
+        beh, k, g = self.behaviour, self.k, self.gap
+        force = k * e
+        slope = k.copy()
+        if np.any(beh != LINEAR):
+            comp = beh == COMPRESSION
+            if comp.any():
+                ec = e[comp] + g[comp]
+                act = ec < 0
+                force[comp] = np.where(act, k[comp] * ec, 0.0)
+                slope[comp] = np.where(act, k[comp], 0.0)
+            tens = beh == TENSION
+            if tens.any():
+                et = e[tens] - g[tens]
+                act = et > 0
+                force[tens] = np.where(act, k[tens] * et, 0.0)
+                slope[tens] = np.where(act, k[tens], 0.0)
+            energy = 0.5 * force * force / np.where(slope > 0, slope, 1.0)
+            for p, curve in self.curves.items():
+                f_, s_, w_ = curve.evaluate(np.array([e[p]]))
+                force[p], slope[p], energy[p] = f_[0], s_[0], w_[0]
+        else:
+            energy = 0.5 * k * e * e
+        return force, slope, energy
+
+    # ------------------------------------------------------------------ solve
+    def solve(
+        self,
+        loads: np.ndarray | None = None,
+        extra_elongation: np.ndarray | None = None,
+        start: np.ndarray | None = None,
+    ) -> Solution:
+        """Solve for the displacements under nodal ``loads`` (one per node).
+
+        ``extra_elongation`` adds to every part's free elongation (a load case's
+        temperature change); ``start`` is a displacement vector to begin the
+        iteration from (the previous state).
+        """
+        n = self.n_nodes
+        f_ext = np.zeros(n) if loads is None else np.asarray(loads, dtype=float)
+        if f_ext.shape != (n,) or not np.all(np.isfinite(f_ext)):
+            raise InputError("loads must be one finite value per node")
+        d0 = self.free_elongation
+        if extra_elongation is not None:
+            d0 = d0 + np.asarray(extra_elongation, dtype=float)
+        free = ~self.fixed
+        free_idx = np.full(n, -1, dtype=np.int64)
+        nf = int(free.sum())
+        free_idx[free] = np.arange(nf)
+        u = np.zeros(n) if start is None else np.array(start, dtype=float)
+        u[self.fixed] = self.prescribed[self.fixed]
+
+        fi, fj = free_idx[self.i], free_idx[self.j]
+        solver = _LinearSolver(nf, fi, fj, self._explain_singular)
+        kscale = float(np.max(self.k[self.behaviour != CURVE], initial=0.0))
+        for c in self.curves.values():
+            kscale = max(kscale, float(np.max(np.abs(np.diff(c.f) / np.diff(c.x)))))
+        kscale = kscale if kscale > 0 else 1.0
+        nonlinear = bool(np.any(self.behaviour != LINEAR))
+
+        def state(uu: np.ndarray):
+            e = uu[self.j] - uu[self.i] - d0
+            if nonlinear:
+                force, slope, energy = self.part_law(e)
+                pot = float(energy.sum() - f_ext[free] @ uu[free])
+            else:
+                force, slope, pot = self.k * e, self.k, 0.0
+            internal = np.bincount(self.j, force, n)
+            internal -= np.bincount(self.i, force, n)
+            resid = f_ext - internal
+            resid[self.fixed] = 0.0
+            return e, force, slope, resid, pot
+
+        e, force, slope, resid, pot = state(u)
+        visits: dict[bytes, int] = {}
+        iterations = 0
+        while True:
+            if iterations >= _MAX_ITER:
+                raise SolveError(
+                    f"the contact iteration did not settle in {_MAX_ITER} steps "
+                    f"(residual {np.max(np.abs(resid)):.3g})"
+                )
+            # the state of a piecewise-linear system is the slope of every part
+            active = slope.tobytes() if nonlinear else b""
+            if nonlinear:
+                visits[active] = visits.get(active, 0) + 1
+                if visits[active] > 12:
+                    raise SolveError(
+                        "the contact iteration cycles between the same states of the "
+                        "compression-only / tension-only parts; check gaps and loads"
+                    )
+            s_mat = np.where(slope > 0, slope, _EPS_SLOPE * kscale)
+            du = np.zeros(n)
+            du[free] = solver.solve(s_mat, resid[free])
+            # backtracking line search on the (convex) total potential energy
+            step = 1.0
+            for _ in range(60):
+                trial = u + step * du
+                t_state = state(trial)
+                if not nonlinear or t_state[4] <= pot + 1e-12 * abs(pot) + 1e-300:
+                    break
+                step *= 0.5
+            u = trial
+            e, force, slope, resid, pot = t_state
+            iterations += 1
+            same_set = not nonlinear or slope.tobytes() == active
+            if step == 1.0 and same_set:
+                # exact for this set of carrying parts; polish round-off once
+                scale = max(
+                    float(np.max(np.abs(f_ext), initial=0.0)),
+                    float(np.max(np.abs(force), initial=0.0)),
+                    1e-300,
+                )
+                # slack parts stiffened by _EPS_SLOPE bias the step slightly: polish harder
+                polish = _POLISH if not nonlinear else 1e-13
+                if np.max(np.abs(resid), initial=0.0) > polish * scale:
+                    du[free] = solver.solve(s_mat, resid[free])
+                    t_state = state(u + du)
+                    if np.max(np.abs(t_state[3])) < np.max(np.abs(resid)) and (
+                        not nonlinear or t_state[2].tobytes() == active
+                    ):
+                        u = u + du
+                        e, force, slope, resid, pot = t_state
+                break
+
+        # a group that is held only through slack parts and carries a net load
+        # would fly off: report it instead of returning a huge displacement
+        if nonlinear:
+            self._check_mechanism(slope, f_ext)
+        internal = np.bincount(self.j, force, n) - np.bincount(self.i, force, n)
+        reactions = np.where(self.fixed, internal - f_ext, 0.0)
+        resid = f_ext + reactions - internal
+        return Solution(
+            displacement=u,
+            force=force,
+            elongation=u[self.j] - u[self.i],
+            carrying=(force != 0.0) | (self.behaviour == LINEAR),
+            reaction=reactions,
+            residual=float(np.max(np.abs(resid), initial=0.0)),
+            iterations=iterations,
+        )
+
+    def _explain_singular(self) -> None:
+        """Called when a factorisation fails or looks singular: name a floating group."""
+        unheld = self.unheld_groups()
+        if unheld:
+            nodes = ", ".join(str(n) for n in unheld[0][:6])
+            raise InputError(f"nodes {nodes} are not joined to any fixed node (a floating group)")
+
+    def _check_mechanism(self, slope: np.ndarray, f_ext: np.ndarray) -> None:
+        from scipy.sparse import coo_array
+        from scipy.sparse.csgraph import connected_components
+
+        act = slope > 0
+        g = coo_array(
+            (np.ones(int(act.sum())), (self.i[act], self.j[act])),
+            shape=(self.n_nodes, self.n_nodes),
+        )
+        count, label = connected_components(g, directed=False)
+        held = np.zeros(count, dtype=bool)
+        held[label[self.fixed]] = True
+        net_load = np.bincount(label, f_ext, count)
+        scale = max(float(np.max(np.abs(f_ext), initial=0.0)), 1e-300)
+        bad = np.flatnonzero(~held & (np.abs(net_load) > 1e-9 * scale))
+        if bad.size:
+            nodes = np.flatnonzero(label == bad[0])
+            names = ", ".join(str(x) for x in nodes[:6])
+            raise SolveError(
+                f"nodes {names} carry a load of {net_load[bad[0]]:.6g} but every part that could "
+                "hold them has gone slack (a mechanism); add a support or a part that carries it"
+            )
+
+
+@dataclass(frozen=True)
+class Solution:
+    """Result of :meth:`Network.solve` (arrays per node and per part)."""
+
+    displacement: np.ndarray
+    force: np.ndarray
+    elongation: np.ndarray
+    carrying: np.ndarray
+    reaction: np.ndarray
+    residual: float
+    iterations: int
+
+
+class _LinearSolver:
+    """Factorises ``B^T diag(s) B`` on the free nodes: banded Cholesky or SuperLU."""
+
+    def __init__(self, nf: int, fi: np.ndarray, fj: np.ndarray, explain):
+        self.nf = nf
+        self.explain = explain  # raises InputError if the network has a floating group
+        both = (fi >= 0) & (fj >= 0)
+        self.fi, self.fj = fi, fj
+        self.bi, self.bj = fi[both], fj[both]
+        self.both = both
+        self.perm: np.ndarray | None = None
+        band = int(np.max(np.abs(self.bi - self.bj), initial=0))
+        if nf * (band + 1) ** 2 > _BAND_BUDGET and nf > 0:
+            from scipy.sparse import coo_array
+            from scipy.sparse.csgraph import reverse_cuthill_mckee
+
+            g = coo_array((np.ones(self.bi.size), (self.bi, self.bj)), shape=(nf, nf)).tocsr()
+            perm = reverse_cuthill_mckee(g, symmetric_mode=False)
+            inv = np.empty(nf, dtype=np.int64)
+            inv[perm] = np.arange(nf)
+            band_rcm = int(np.max(np.abs(inv[self.bi] - inv[self.bj]), initial=0))
+            if nf * (band_rcm + 1) ** 2 <= _BAND_BUDGET:
+                self.perm, self.inv, band = perm, inv, band_rcm
+            else:
+                band = -1  # general sparse
+        self.band = band
+
+    def solve(self, s: np.ndarray, rhs: np.ndarray) -> np.ndarray:
+        nf = self.nf
+        if nf == 0:
+            return np.zeros(0)
+        fi, fj = self.fi, self.fj
+        diag = np.bincount(fi[fi >= 0], s[fi >= 0], nf) + np.bincount(fj[fj >= 0], s[fj >= 0], nf)
+        sb = s[self.both]
+        bi, bj = self.bi, self.bj
+        if self.band >= 0:
+            if self.perm is not None:
+                diag, bi, bj, rhs = diag[self.perm], self.inv[bi], self.inv[bj], rhs[self.perm]
+            x = self._banded(diag, bi, bj, sb, rhs)
+            if self.perm is not None:
+                out = np.empty(nf)
+                out[self.perm] = x
+                return out
+            return x
+        return self._sparse(diag, bi, bj, sb, rhs)
+
+    def _banded(self, diag, bi, bj, sb, rhs) -> np.ndarray:
+        from scipy.linalg.lapack import dpbtrf, dpbtrs
+
+        b, nf = self.band, self.nf
+        ab = np.zeros((b + 1, nf))
+        ab[b] = diag
+        if b > 0 and bi.size:
+            hi = np.maximum(bi, bj)
+            d = np.abs(bi - bj)
+            flat = (b - d) * nf + hi
+            # every coupling has d > 0, so row b (the diagonal) is left as it is
+            ab += np.bincount(flat, -sb, (b + 1) * nf).reshape(b + 1, nf)
+        c, info = dpbtrf(ab, lower=0, overwrite_ab=1)
+        if info != 0:
+            self.explain()
+            return self._sparse(diag, bi, bj, sb, rhs)
+        pivots = c[b] ** 2
+        if pivots.min() <= 1e-14 * max(float(diag.max()), 1e-300):
+            self.explain()  # a tiny pivot: either a floating group or merely ill-conditioned
+        x, info = dpbtrs(c, rhs, lower=0)
+        return x
+
+    def _sparse(self, diag, bi, bj, sb, rhs) -> np.ndarray:
+        import warnings
+
+        from scipy.sparse import coo_array
+        from scipy.sparse.linalg import MatrixRankWarning, spsolve
+
+        nf = self.nf
+        rows = np.concatenate((np.arange(nf), bi, bj))
+        cols = np.concatenate((np.arange(nf), bj, bi))
+        vals = np.concatenate((diag, -sb, -sb))
+        mat = coo_array((vals, (rows, cols)), shape=(nf, nf)).tocsc()
+        with warnings.catch_warnings():
+            warnings.simplefilter("error", MatrixRankWarning)
+            try:
+                x = spsolve(mat, rhs, permc_spec="MMD_AT_PLUS_A")
+            except (MatrixRankWarning, RuntimeError) as err:
+                self.explain()
+                raise SolveError(f"the stiffness matrix is singular ({err})") from None
+        if not np.all(np.isfinite(x)):
+            self.explain()
+            raise SolveError("the stiffness matrix is singular (a mechanism)")
+        return np.atleast_1d(x)
