@@ -1,0 +1,1 @@
+"""Input (TOML -> validated model objects) and output (JSON, CSV, text, files)."""

@@ -1,0 +1,278 @@
+"""The ``solve`` input file: schema and reader (TOML -> :class:`~clampstack.assembly.Assembly`)."""
+
+from __future__ import annotations
+
+import math
+from typing import Any
+
+from ..assembly import Assembly, LoadCase, PartSpec
+from ..errors import InputError
+from ..network import Curve
+from ..units import parse_quantity
+from .files import InputDocument, load_toml
+from .schema import Key, Schema, read_table
+
+LOAD = Schema(
+    "load",
+    "A point force on a node, along +axis (from a part's first end to its second).",
+    (
+        Key("node", "text", "node the force acts on", required=True),
+        Key("force", "force", "force along +axis (negative: towards -axis)", required=True),
+    ),
+)
+
+PART = Schema(
+    "part",
+    "A part between two nodes; the axis runs from its first end to its second.",
+    (
+        Key("name", "text", "unique name of the part", required=True),
+        Key("ends", "names", "the two node names [first, second]", required=True),
+        Key(
+            "length",
+            "length",
+            "length between the nodes (needed unless stiffness is given)",
+            positive=True,
+        ),
+        Key("area", "area", "cross-section area", positive=True),
+        Key(
+            "outer_diameter",
+            "length",
+            "outer diameter of a round or tubular section (instead of area)",
+            positive=True,
+        ),
+        Key("inner_diameter", "length", "bore of a tubular section", default="0 mm", minimum=0.0),
+        Key("material", "text", "catalog material key (modulus and expansion at 20 degC)"),
+        Key("modulus", "stress", "Young's modulus (overrides the material's)", positive=True),
+        Key("expansion", "expansion", "thermal expansion coefficient (overrides the material's)"),
+        Key(
+            "stiffness",
+            "stiffness",
+            "axial stiffness given directly (instead of area and modulus)",
+            positive=True,
+        ),
+        Key(
+            "contact", "text", "carries only this sign of force", choices=("compression", "tension")
+        ),
+        Key(
+            "gap",
+            "length",
+            "clearance closed before a contact part carries load",
+            default="0 mm",
+            minimum=0.0,
+        ),
+        Key(
+            "misfit",
+            "length",
+            "free length minus fitted length (positive: too long)",
+            default="0 mm",
+        ),
+        Key(
+            "temperature_change",
+            "temperature_difference",
+            "temperature change of the part in the assembled state",
+            default="0 K",
+        ),
+        Key(
+            "curve",
+            "pairs",
+            'force-elongation points [["-0.2 mm", "-40 kN"], ["0 mm", "0 kN"], ...] '
+            "(non-linear part; elongation from the free length)",
+        ),
+    ),
+)
+
+CASE = Schema(
+    "case",
+    "A load case solved from the assembled state: its loads add to the assembly loads.",
+    (
+        Key("name", "text", "name of the load case", required=True),
+        Key(
+            "temperature_change",
+            "temperature_difference",
+            "uniform temperature change of every part, added to its own",
+            default="0 K",
+        ),
+        Key("load", "tables", "loads of this case", schema=LOAD),
+    ),
+)
+
+SUPPORTS = Schema(
+    "supports",
+    "Boundary conditions.",
+    (Key("fixed", "names", "nodes held at zero displacement", required=True),),
+)
+
+ASSEMBLY = Schema(
+    "assembly file",
+    "A generic axial assembly for `clampstack solve`.",
+    (
+        Key("title", "text", "title printed on the result", default='"untitled assembly"'),
+        Key("part", "tables", "the parts", required=True, schema=PART),
+        Key("supports", "table", "supports", required=True, schema=SUPPORTS),
+        Key("load", "tables", "loads in the assembled state", schema=LOAD),
+        Key("case", "tables", "further load cases", schema=CASE),
+    ),
+)
+
+
+def read_assembly_file(path: str) -> tuple[InputDocument, Assembly]:
+    """Load and validate a ``solve`` input file (InputError names the file and key)."""
+    doc = load_toml(path)
+    try:
+        return doc, assembly_from_data(doc.data)
+    except InputError as err:
+        raise err.with_source(doc.path) from None
+
+
+def _part(raw: dict[str, Any], key: str) -> PartSpec:
+    from ..catalog import material as catalog_material
+
+    ends = raw["ends"]
+    if len(ends) != 2:
+        raise InputError(f"expected two node names, got {len(ends)}", key=f"{key}.ends")
+    if ends[0] == ends[1]:
+        raise InputError(f"a part cannot join node {ends[0]!r} to itself", key=f"{key}.ends")
+    mat = None
+    if raw["material"] is not None:
+        try:
+            mat = catalog_material(raw["material"])
+        except InputError as err:
+            raise InputError(err.detail, key=f"{key}.material") from None
+    modulus = raw["modulus"] if raw["modulus"] is not None else (mat.E20 if mat else None)
+    expansion = raw["expansion"] if raw["expansion"] is not None else (mat.alpha20 if mat else None)
+    area = raw["area"]
+    if raw["outer_diameter"] is not None:
+        if area is not None:
+            raise InputError("give area or outer_diameter, not both", key=f"{key}.outer_diameter")
+        inner = raw["inner_diameter"] or 0.0
+        if inner >= raw["outer_diameter"]:
+            raise InputError(
+                "inner diameter must be below the outer diameter", key=f"{key}.inner_diameter"
+            )
+        area = math.pi / 4 * (raw["outer_diameter"] ** 2 - inner**2)
+    elif raw["inner_diameter"] is not None:
+        raise InputError("inner_diameter needs outer_diameter", key=f"{key}.inner_diameter")
+    length = raw["length"]
+    behaviour = raw["contact"] or "linear"
+    curve = None
+    if raw["curve"] is not None:
+        if raw["contact"] is not None:
+            raise InputError(
+                "a curve part takes no contact key (shape the curve instead)", key=f"{key}.contact"
+            )
+        xs = [parse_quantity(p[0], "length", f"{key}.curve") for p in raw["curve"]]
+        fs = [parse_quantity(p[1], "force", f"{key}.curve") for p in raw["curve"]]
+        try:
+            curve = Curve.make(xs, fs)
+        except InputError as err:
+            raise InputError(err.detail, key=f"{key}.curve") from None
+        behaviour = "curve"
+        stiffness = float(
+            max((fs[n + 1] - fs[n]) / (xs[n + 1] - xs[n]) for n in range(len(xs) - 1))
+        )
+        for k in ("stiffness", "area", "outer_diameter", "modulus"):
+            if raw[k] is not None:
+                raise InputError(f"a curve part takes no {k}", key=f"{key}.{k}")
+    elif raw["stiffness"] is not None:
+        stiffness = raw["stiffness"]
+        if raw["modulus"] is not None:
+            raise InputError("give stiffness or modulus, not both", key=f"{key}.modulus")
+    else:
+        if length is None:
+            raise InputError("required key is missing (or give stiffness)", key=f"{key}.length")
+        if area is None:
+            raise InputError(
+                "required key is missing (or give outer_diameter, or stiffness)", key=f"{key}.area"
+            )
+        if modulus is None:
+            raise InputError(
+                "required key is missing (give material or modulus, or stiffness)",
+                key=f"{key}.material",
+            )
+        stiffness = modulus * area / length
+    if not (math.isfinite(stiffness) and stiffness > 0):
+        raise InputError(f"stiffness comes out as {stiffness!r}", key=key)
+    if raw["gap"] and behaviour not in ("compression", "tension"):
+        raise InputError('a gap needs contact = "compression" or "tension"', key=f"{key}.gap")
+    return PartSpec(
+        name=raw["name"],
+        ends=(ends[0], ends[1]),
+        stiffness=stiffness,
+        length=length,
+        area=area,
+        modulus=modulus,
+        expansion=expansion,
+        material=mat.key if mat else None,
+        behaviour=behaviour,
+        gap=raw["gap"] or 0.0,
+        misfit=raw["misfit"] or 0.0,
+        temperature_change=raw["temperature_change"] or 0.0,
+        curve=curve,
+        key=key,
+    )
+
+
+def _loads(items: list[dict[str, Any]] | None) -> tuple[tuple[str, float], ...]:
+    return tuple((it["node"], it["force"]) for it in items or [])
+
+
+def assembly_from_data(data: dict[str, Any]) -> Assembly:
+    """Validate the TOML data of a ``solve`` file and build the :class:`Assembly`."""
+    raw = read_table(ASSEMBLY, data)
+    parts = []
+    names: set[str] = set()
+    for n, praw in enumerate(raw["part"]):
+        key = f"part[{n + 1}]"
+        part = _part(praw, key)
+        if part.name in names:
+            raise InputError(f"duplicate part name {part.name!r}", key=f"{key}.name")
+        names.add(part.name)
+        parts.append(part)
+    if not parts:
+        raise InputError("no parts", key="part")
+    nodes = {e for p in parts for e in p.ends}
+    if not raw["supports"]["fixed"]:
+        raise InputError("at least one node must be fixed", key="supports.fixed")
+    for n, node in enumerate(raw["supports"]["fixed"]):
+        if node not in nodes:
+            raise InputError(
+                f"unknown node {node!r} (nodes: {', '.join(sorted(nodes))})",
+                key=f"supports.fixed[{n + 1}]",
+            )
+    for n, it in enumerate(raw["load"] or []):
+        if it["node"] not in nodes:
+            raise InputError(
+                f"unknown node {it['node']!r} (nodes: {', '.join(sorted(nodes))})",
+                key=f"load[{n + 1}].node",
+            )
+    cases = []
+    case_names = set()
+    for c, craw in enumerate(raw["case"] or []):
+        for n, it in enumerate(craw["load"] or []):
+            if it["node"] not in nodes:
+                raise InputError(
+                    f"unknown node {it['node']!r} (nodes: {', '.join(sorted(nodes))})",
+                    key=f"case[{c + 1}].load[{n + 1}].node",
+                )
+        if craw["name"] in case_names or craw["name"] == "assembly":
+            raise InputError(f"duplicate case name {craw['name']!r}", key=f"case[{c + 1}].name")
+        case_names.add(craw["name"])
+        dT = craw["temperature_change"] or 0.0
+        if dT:
+            for p in parts:
+                if p.expansion is None:
+                    raise InputError(
+                        f"part {p.name!r} has no expansion coefficient for the temperature change "
+                        "(give material or expansion)",
+                        key=f"case[{c + 1}].temperature_change",
+                    )
+        cases.append(LoadCase(craw["name"], _loads(craw["load"]), dT))
+    for p in parts:
+        p.thermal_elongation(p.temperature_change)  # raises if expansion is missing
+    return Assembly(
+        title=raw["title"] or "untitled assembly",
+        parts=tuple(parts),
+        fixed=tuple(raw["supports"]["fixed"]),
+        loads=_loads(raw["load"]),
+        cases=tuple(cases),
+    )

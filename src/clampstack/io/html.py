@@ -1,0 +1,88 @@
+"""A small self-contained HTML page of a ``solve`` result (no external fetches)."""
+
+from __future__ import annotations
+
+import html
+from datetime import UTC, datetime
+
+from .. import __version__
+from ..assembly import AssemblyResult
+from .text import CAUTION, SI
+
+_CSS = """
+body{font-family:system-ui,-apple-system,"Segoe UI",sans-serif;margin:2rem auto;max-width:60rem;
+color:#1d2327;line-height:1.4}
+h1{font-size:1.4rem;border-bottom:3px solid #2f6f5e;padding-bottom:.3rem}
+h2{font-size:1.1rem;margin-top:1.6rem;color:#2f6f5e}
+table{border-collapse:collapse;margin:.5rem 0;font-variant-numeric:tabular-nums}
+th,td{border-bottom:1px solid #d5dbdf;padding:.25rem .7rem;text-align:right}
+th{background:#eef3f1;font-weight:600}td.l,th.l{text-align:left}
+.caution{border-left:4px solid #b5651d;background:#fbf3ea;padding:.6rem 1rem;margin-top:2rem}
+.meta{color:#5b6770;font-size:.85rem}
+@media print{body{margin:0;max-width:none}h2{break-after:avoid}table{break-inside:avoid}}
+"""
+
+
+def _e(x: object) -> str:
+    return html.escape(str(x))
+
+
+def assembly_html(result: AssemblyResult, source_name: str = "", sha256: str = "") -> str:
+    """Render the solved assembly as one HTML page (inline CSS, tables per case)."""
+    u = SI
+    asm = result.assembly
+    parts = []
+    parts.append(f"<h1>{_e(asm.title)}</h1>")
+    parts.append(
+        f'<p class="meta">clampstack {__version__} &middot; '
+        f"{datetime.now(UTC).strftime('%Y-%m-%d %H:%M UTC')}"
+        + (
+            f" &middot; input {_e(source_name)} (SHA-256 {_e(sha256[:16])}&hellip;)"
+            if sha256
+            else ""
+        )
+        + "</p>"
+    )
+    rows = "".join(
+        f'<tr><td class="l">{_e(p.name)}</td><td class="l">{_e(p.ends[0])} &rarr; {_e(p.ends[1])}</td>'
+        f"<td>{u.fmt('length', p.length)}</td><td>{u.fmt('area', p.area)}</td>"
+        f'<td>{u.fmt("stiffness", p.stiffness)}</td><td class="l">{_e(p.material or "")}</td>'
+        f'<td class="l">{_e(p.behaviour)}</td></tr>'
+        for p in asm.parts
+    )
+    parts.append(
+        "<h2>Parts</h2><table><tr><th class=l>part</th><th class=l>ends</th><th>length [mm]</th>"
+        "<th>area [mm&sup2;]</th><th>stiffness [kN/mm]</th><th class=l>material</th>"
+        f"<th class=l>behaviour</th></tr>{rows}</table>"
+        f"<p>Fixed nodes: {_e(', '.join(asm.fixed))}.</p>"
+    )
+    for case in result.cases:
+        prow = "".join(
+            f'<tr><td class="l">{_e(p.name)}</td><td>{u.fmt("force", case.force[p.name])}</td>'
+            f"<td>{u.fmt('stress', case.stress[p.name])}</td>"
+            f"<td>{u.fmt('length', case.elongation[p.name])}</td>"
+            f'<td class="l">{"yes" if case.carrying[p.name] else "no (slack)"}</td></tr>'
+            for p in asm.parts
+        )
+        nrow = "".join(
+            f'<tr><td class="l">{_e(n)}</td><td>{u.fmt("length", d)}</td>'
+            f"<td>{u.fmt('force', case.reactions[n]) if n in case.reactions else ''}</td></tr>"
+            for n, d in case.displacement.items()
+        )
+        parts.append(
+            f"<h2>Case: {_e(case.name)}</h2><table><tr><th class=l>part</th><th>force [kN]</th>"
+            "<th>stress [MPa]</th><th>elongation [mm]</th><th class=l>carrying</th></tr>"
+            f"{prow}</table><table><tr><th class=l>node</th><th>displacement [mm]</th>"
+            f"<th>reaction [kN]</th></tr>{nrow}</table>"
+            f'<p class="meta">Equilibrium residual {case.residual:.3g} N</p>'
+        )
+    parts.append(
+        "<p class=meta>Signs: part force tension positive; displacements, loads and reactions "
+        "along +axis (from a part's first end to its second).</p>"
+    )
+    parts.append(f'<div class="caution">{_e(CAUTION)}</div>')
+    body = "\n".join(parts)
+    return (
+        '<!DOCTYPE html>\n<html lang="en"><head><meta charset="utf-8">'
+        f"<title>{_e(asm.title)}</title><style>{_CSS}</style></head><body>\n{body}\n</body></html>\n"
+    )

@@ -1,0 +1,97 @@
+"""Readable terminal output: aligned tables, display units and the safety caution."""
+
+from __future__ import annotations
+
+from collections.abc import Sequence
+from dataclasses import dataclass
+
+CAUTION = (
+    "Caution: these results support, and do not replace, the judgement of a qualified "
+    "engineer. Check the inputs and assumptions; applicable codes, standards and local "
+    "regulations govern (pressure equipment, structures, lifting, vehicles)."
+)
+
+
+@dataclass(frozen=True)
+class DisplayUnits:
+    """Units used for readable output: name and factor from SI per quantity."""
+
+    name: str
+    force: tuple[str, float]
+    length: tuple[str, float]
+    small_length: tuple[str, float]
+    stress: tuple[str, float]
+    torque: tuple[str, float]
+    stiffness: tuple[str, float]
+    area: tuple[str, float]
+
+    def fmt(self, kind: str, value: float | None, digits: int = 4) -> str:
+        """Format an SI value in this system's unit for ``kind`` (no unit label)."""
+        if value is None:
+            return "-"
+        _, factor = getattr(self, kind)
+        return fmt_number(value / factor, digits)
+
+    def label(self, kind: str) -> str:
+        """Unit label for ``kind``."""
+        return getattr(self, kind)[0]
+
+
+SI = DisplayUnits(
+    "si",
+    force=("kN", 1e3),
+    length=("mm", 1e-3),
+    small_length=("um", 1e-6),
+    stress=("MPa", 1e6),
+    torque=("N*m", 1.0),
+    stiffness=("kN/mm", 1e6),
+    area=("mm^2", 1e-6),
+)
+US = DisplayUnits(
+    "us",
+    force=("lbf", 4.4482216152605),
+    length=("in", 0.0254),
+    small_length=("mil", 0.0254e-3),
+    stress=("ksi", 6894757.293168361),
+    torque=("ft*lbf", 1.3558179483314004),
+    stiffness=("lbf/in", 4.4482216152605 / 0.0254),
+    area=("in^2", 0.0254**2),
+)
+UNIT_SYSTEMS = {"si": SI, "us": US}
+
+
+def fmt_number(x: float, digits: int = 4) -> str:
+    """Compact number: ``digits`` significant figures, no exponent for ordinary magnitudes."""
+    if x != x:  # NaN
+        return "nan"
+    if x == 0:
+        return "0"
+    ax = abs(x)
+    if ax >= 1e7 or ax < 1e-4:
+        return f"{x:.{digits - 1}e}"
+    import math
+
+    decimals = max(0, digits - 1 - int(math.floor(math.log10(ax))))
+    return f"{x:,.{decimals}f}".replace(",", " ") if ax >= 1e4 else f"{x:.{decimals}f}"
+
+
+def table(
+    headers: Sequence[str], rows: Sequence[Sequence[str]], right: Sequence[bool] | None = None
+) -> str:
+    """An aligned plain-text table with a rule under the header."""
+    cols = len(headers)
+    right = list(right) if right is not None else [False] * cols
+    width = [len(h) for h in headers]
+    for r in rows:
+        for c in range(cols):
+            width[c] = max(width[c], len(str(r[c])))
+
+    def line(cells: Sequence[str]) -> str:
+        out = []
+        for c in range(cols):
+            s = str(cells[c])
+            out.append(s.rjust(width[c]) if right[c] else s.ljust(width[c]))
+        return "  ".join(out).rstrip()
+
+    rule = "  ".join("-" * w for w in width)
+    return "\n".join([line(headers), rule, *(line(r) for r in rows)])

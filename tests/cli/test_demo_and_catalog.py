@@ -1,0 +1,46 @@
+"""``clampstack demo`` and ``clampstack catalog``."""
+
+from __future__ import annotations
+
+import json
+
+from click.testing import CliRunner
+
+from clampstack.cli import main
+
+
+def test_demo_writes_json_and_html(tmp_path):
+    out = tmp_path / "demo"
+    res = CliRunner().invoke(main, ["demo", "-o", str(out)])
+    assert res.exit_code == 0, res.output
+    data = json.loads((out / "result.json").read_text())
+    assert data["cases"][0]["name"] == "assembly"
+    page = (out / "result.html").read_text()
+    assert page.startswith("<!DOCTYPE html>")
+    assert "qualified engineer" in page
+    assert "http://" not in page and "https://" not in page  # self-contained
+    # the numbers of the JSON appear on the page (force in kN, 4 significant digits)
+    rod = data["cases"][0]["parts"]["tie-rod"]["force_N"] / 1e3
+    assert f"{rod:.3f}" in page
+    assert str(out / "result.json") in res.output
+
+
+def test_catalog_listings():
+    for what, needle in [
+        ("threads", "M10"),
+        ("grades", "10.9"),
+        ("materials", "aluminium-6082-T6"),
+    ]:
+        res = CliRunner().invoke(main, ["catalog", what])
+        assert res.exit_code == 0
+        assert needle in res.output and "source" in res.output
+    res = CliRunner().invoke(main, ["catalog", "grades", "--json"])
+    rows = json.loads(res.stdout)
+    assert any(r["grade"] == "8.8" for r in rows)
+
+
+def test_help_lists_commands():
+    res = CliRunner().invoke(main, ["--help"])
+    assert res.exit_code == 0
+    for cmd in ("solve", "catalog", "demo"):
+        assert cmd in res.output

@@ -1,0 +1,93 @@
+"""``clampstack solve`` through the command line (CliRunner), per DESIGN.md."""
+
+from __future__ import annotations
+
+import json
+
+import pytest
+from click.testing import CliRunner
+
+from clampstack.cli import main
+
+ROD_TUBE = """
+title = "rod and tube"
+[[part]]
+name = "rod"
+ends = ["A", "B"]
+length = "300 mm"
+area = "100 mm^2"
+modulus = "200 GPa"
+misfit = "-0.1 mm"
+[[part]]
+name = "tube"
+ends = ["A", "B"]
+length = "300 mm"
+area = "300 mm^2"
+modulus = "100 GPa"
+contact = "compression"
+[supports]
+fixed = ["A"]
+[[case]]
+name = "pull"
+[[case.load]]
+node = "B"
+force = "20 kN"
+"""
+
+
+def run(*args: str):
+    return CliRunner().invoke(main, list(args))
+
+
+def test_solve_json_keys_signs_and_values(write_toml):
+    path = write_toml(ROD_TUBE)
+    res = run("solve", str(path), "--json")
+    assert res.exit_code == 0, res.output
+    out = json.loads(res.stdout)
+    assert out["title"] == "rod and tube"
+    assert [c["name"] for c in out["cases"]] == ["assembly", "pull"]
+    # hand calculation (compatibility of a rod 0.1 mm short inside a tube):
+    # k_rod = 200e3*100/300 = 66 666.7 N/mm, k_tube = 100e3*300/300 = 100 000 N/mm
+    # N_rod = 0.1 * k_r k_t/(k_r+k_t) = 4000 N tension, tube -4000 N
+    first = out["cases"][0]
+    assert first["parts"]["rod"]["force_N"] == pytest.approx(4000.0, rel=1e-9)
+    assert first["parts"]["tube"]["force_N"] == pytest.approx(-4000.0, rel=1e-9)
+    assert first["parts"]["rod"]["stress_MPa"] == pytest.approx(40.0, rel=1e-9)
+    assert first["parts"]["tube"]["carrying"] is True
+    assert first["nodes"]["A"]["displacement_mm"] == 0.0
+    assert first["reactions"]["A"]["force_N"] == pytest.approx(0.0, abs=1e-6)
+    assert first["equilibrium_residual_N"] <= 1e-6
+    # pull of 20 kN > separation load 4000*(1+k_r/k_t) = 6667 N: tube slack
+    pull = out["cases"][1]
+    assert pull["parts"]["tube"]["carrying"] is False
+    assert pull["parts"]["tube"]["force_N"] == 0.0
+    assert pull["parts"]["rod"]["force_N"] == pytest.approx(20e3, rel=1e-9)
+    assert pull["reactions"]["A"]["force_N"] == pytest.approx(-20e3, rel=1e-9)
+    # rod elongation = N/k - misfit... fitted elongation: 20000/66666.7 - 0.1 mm = 0.2 mm
+    assert pull["parts"]["rod"]["elongation_mm"] == pytest.approx(0.2, rel=1e-9)
+    assert pull["nodes"]["B"]["displacement_mm"] == pytest.approx(0.2, rel=1e-9)
+
+
+def test_solve_readable_output_has_tables_and_caution(write_toml):
+    res = run("solve", str(write_toml(ROD_TUBE)))
+    assert res.exit_code == 0
+    assert "Case: pull" in res.output and "no (slack)" in res.output
+    assert "qualified engineer" in res.output
+
+
+def test_solve_us_units(write_toml):
+    res = run("solve", str(write_toml(ROD_TUBE)), "--units", "us")
+    assert res.exit_code == 0
+    assert "lbf" in res.output and "ksi" in res.output
+
+
+@pytest.mark.parametrize(
+    "example", ["tie-rod-in-spacer-tube.toml", "stepped-spindle-with-stop.toml"]
+)
+def test_examples_solve(examples_dir, example):
+    res = run("solve", str(examples_dir / example), "--json")
+    assert res.exit_code == 0, res.output
+    out = json.loads(res.stdout)
+    for case in out["cases"]:
+        scale = max(abs(p["force_N"]) for p in case["parts"].values())
+        assert case["equilibrium_residual_N"] <= 1e-9 * scale

@@ -1,0 +1,24 @@
+"""Docs generated from the schema stay in sync; the bundled demo equals its example."""
+
+from __future__ import annotations
+
+from clampstack.demo import DEMO_EXAMPLE, demo_input_path
+from clampstack.io.docgen import input_reference
+from conftest import ROOT
+
+
+def test_input_reference_is_generated_from_schema():
+    on_disk = (ROOT / "docs" / "input-reference.md").read_text(encoding="utf-8")
+    assert on_disk == input_reference(), "run: .venv/bin/python -m clampstack.io.docgen"
+
+
+def test_bundled_demo_matches_example_file():
+    bundled = demo_input_path().read_text(encoding="utf-8")
+    assert bundled == (ROOT / "examples" / DEMO_EXAMPLE).read_text(encoding="utf-8")
+
+
+def test_readme_quick_start_is_two_commands():
+    text = (ROOT / "README.md").read_text(encoding="utf-8")
+    block = text.split("## Quick start", 1)[1].split("```sh", 1)[1].split("```", 1)[0]
+    commands = [line.split("#")[0].strip() for line in block.strip().splitlines()]
+    assert commands == ["make demo", "make test"]
