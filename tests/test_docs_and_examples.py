@@ -2,7 +2,7 @@
 
 from __future__ import annotations
 
-from clampstack.demo import DEMO_EXAMPLE, demo_input_path
+from clampstack.demo import DEMO_ASSEMBLY, DEMO_JOINT, demo_input_path
 from clampstack.io.docgen import input_reference
 from conftest import ROOT
 
@@ -13,8 +13,9 @@ def test_input_reference_is_generated_from_schema():
 
 
 def test_bundled_demo_matches_example_file():
-    bundled = demo_input_path().read_text(encoding="utf-8")
-    assert bundled == (ROOT / "examples" / DEMO_EXAMPLE).read_text(encoding="utf-8")
+    for name in (DEMO_JOINT, DEMO_ASSEMBLY):
+        bundled = demo_input_path(name).read_text(encoding="utf-8")
+        assert bundled == (ROOT / "examples" / name).read_text(encoding="utf-8")
 
 
 def test_readme_quick_start_is_two_commands():

@@ -89,6 +89,32 @@ def solve(file: str, as_json: bool, units: str) -> None:
 
 
 @main.command()
+@click.argument("file", type=str)
+@click.option("--json", "as_json", is_flag=True, help="Machine-readable result on stdout.")
+@click.option(
+    "--units",
+    type=click.Choice(["si", "us"]),
+    default="si",
+    show_default=True,
+    help="Units of the readable output.",
+)
+@handle_errors
+def check(file: str, as_json: bool, units: str) -> None:
+    """Analyse and check a single-bolt joint in FILE (exit 1 if a check fails)."""
+    from .io.joint_input import read_joint_file
+    from .io.joint_text import joint_text
+    from .joint import analyse
+
+    _, spec = read_joint_file(file)
+    result = analyse(spec)
+    if as_json:
+        _print_json(result.to_dict())
+    else:
+        click.echo(joint_text(result, units))
+    sys.exit(EXIT_OK if result.ok else EXIT_FAIL)
+
+
+@main.command()
 @click.argument("what", type=click.Choice(["threads", "grades", "materials"]))
 @click.option("--json", "as_json", is_flag=True, help="Machine-readable listing on stdout.")
 @handle_errors

@@ -1,4 +1,4 @@
-"""``clampstack demo``: run the bundled example end to end into a folder."""
+"""``clampstack demo``: run the bundled examples end to end into a folder."""
 
 from __future__ import annotations
 
@@ -6,16 +6,18 @@ import json
 from importlib import resources
 from pathlib import Path
 
-DEMO_EXAMPLE = "tie-rod-in-spacer-tube.toml"
+DEMO_JOINT = "m10-cover-screw-aluminium.toml"
+DEMO_ASSEMBLY = "tie-rod-in-spacer-tube.toml"
+DEMO_EXAMPLE = DEMO_JOINT  # the main example
 
 
-def demo_input_path() -> Path:
-    """Path of the bundled demo input file (inside the installed package)."""
-    return Path(str(resources.files("clampstack") / "examples" / DEMO_EXAMPLE))
+def demo_input_path(name: str = DEMO_JOINT) -> Path:
+    """Path of a bundled example input file (inside the installed package)."""
+    return Path(str(resources.files("clampstack") / "examples" / name))
 
 
 def run_demo(out_dir: str) -> list[str]:
-    """Solve the bundled example; write input, JSON and an HTML page into ``out_dir``.
+    """Check the bundled joint and solve the bundled assembly; write results into ``out_dir``.
 
     Returns the lines to print.  Everything is rendered before anything is
     written, and each file is replaced atomically.
@@ -23,17 +25,24 @@ def run_demo(out_dir: str) -> list[str]:
     from .assembly import solve_assembly
     from .io.assembly_input import read_assembly_file
     from .io.files import write_files
-    from .io.html import assembly_html
-    from .io.report_text import assembly_text
+    from .io.html import assembly_html, joint_html
+    from .io.joint_input import read_joint_file
+    from .io.joint_text import joint_text
+    from .joint import analyse
 
-    src = demo_input_path()
-    doc, asm = read_assembly_file(str(src))
-    result = solve_assembly(asm)
+    jdoc, spec = read_joint_file(str(demo_input_path(DEMO_JOINT)))
+    joint = analyse(spec)
+    adoc, asm = read_assembly_file(str(demo_input_path(DEMO_ASSEMBLY)))
+    assembly = solve_assembly(asm)
+    text = joint_text(joint)
     files = {
-        DEMO_EXAMPLE: doc.text,
-        "result.json": json.dumps(result.to_dict(), indent=2, allow_nan=False) + "\n",
-        "result.html": assembly_html(result, DEMO_EXAMPLE, doc.sha256),
+        DEMO_JOINT: jdoc.text,
+        "check.txt": text + "\n",
+        "check.json": json.dumps(joint.to_dict(), indent=2, allow_nan=False) + "\n",
+        "check.html": joint_html(joint, DEMO_JOINT, jdoc.sha256),
+        DEMO_ASSEMBLY: adoc.text,
+        "solve.json": json.dumps(assembly.to_dict(), indent=2, allow_nan=False) + "\n",
+        "solve.html": assembly_html(assembly, DEMO_ASSEMBLY, adoc.sha256),
     }
     written = write_files(out_dir, files)
-    text = assembly_text(result)
     return [text, "", "Wrote:", *(f"  {p}" for p in written)]

@@ -13,16 +13,21 @@ def test_demo_writes_json_and_html(tmp_path):
     out = tmp_path / "demo"
     res = CliRunner().invoke(main, ["demo", "-o", str(out)])
     assert res.exit_code == 0, res.output
-    data = json.loads((out / "result.json").read_text())
+    joint = json.loads((out / "check.json").read_text())
+    assert joint["ok"] is True
+    jpage = (out / "check.html").read_text()
+    assert "qualified engineer" in jpage and "PASS" in jpage
+    assert "RESULT: PASS" in res.output
+    data = json.loads((out / "solve.json").read_text())
     assert data["cases"][0]["name"] == "assembly"
-    page = (out / "result.html").read_text()
+    page = (out / "solve.html").read_text()
     assert page.startswith("<!DOCTYPE html>")
     assert "qualified engineer" in page
     assert "http://" not in page and "https://" not in page  # self-contained
     # the numbers of the JSON appear on the page (force in kN, 4 significant digits)
     rod = data["cases"][0]["parts"]["tie-rod"]["force_N"] / 1e3
     assert f"{rod:.3f}" in page
-    assert str(out / "result.json") in res.output
+    assert str(out / "check.json") in res.output
 
 
 def test_catalog_listings():

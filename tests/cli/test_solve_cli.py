@@ -82,7 +82,12 @@ def test_solve_us_units(write_toml):
 
 
 @pytest.mark.parametrize(
-    "example", ["tie-rod-in-spacer-tube.toml", "stepped-spindle-with-stop.toml"]
+    "example",
+    [
+        "tie-rod-in-spacer-tube.toml",
+        "stepped-spindle-with-stop.toml",
+        "load-cell-rig-bolts-and-sleeves.toml",
+    ],
 )
 def test_examples_solve(examples_dir, example):
     res = run("solve", str(examples_dir / example), "--json")
@@ -91,3 +96,22 @@ def test_examples_solve(examples_dir, example):
     for case in out["cases"]:
         scale = max(abs(p["force_N"]) for p in case["parts"].values())
         assert case["equilibrium_residual_N"] <= 1e-9 * scale
+
+
+def test_load_cell_rig_load_share(examples_dir):
+    # Parallel bolts and sleeves: while everything carries, a push P on the bottom plate
+    # is shared by stiffness (compatibility of parallel members, any mechanics text):
+    # the bolts lose P k_b / (k_b + k_s + k_c,series), the sleeves and the cell gain the rest.
+    out = json.loads(
+        run("solve", str(examples_dir / "load-cell-rig-bolts-and-sleeves.toml"), "--json").stdout
+    )
+    cases = {c["name"]: c for c in out["cases"]}
+    base, push = cases["assembly"]["parts"], cases["test push 150 kN"]["parts"]
+    d_bolt = push["bolts (4 x M16)"]["force_N"] - base["bolts (4 x M16)"]["force_N"]
+    d_sleeve = push["spacer sleeves (4)"]["force_N"] - base["spacer sleeves (4)"]["force_N"]
+    d_centre = push["centre sleeve"]["force_N"] - base["centre sleeve"]["force_N"]
+    assert d_bolt + d_sleeve + d_centre == pytest.approx(-150e3, rel=1e-9)
+    # preloaded assembly: bolt tension equals the sum of the sleeve compressions
+    assert base["bolts (4 x M16)"]["force_N"] == pytest.approx(
+        -base["spacer sleeves (4)"]["force_N"] - base["centre sleeve"]["force_N"], rel=1e-9
+    )

@@ -40,6 +40,7 @@ def schema_markdown(schema: Schema, heading: str, level: int = 3) -> str:
 def input_reference() -> str:
     """The whole input reference page (docs/input-reference.md)."""
     from .assembly_input import ASSEMBLY
+    from .joint_input import JOINT
 
     parts = [
         "# Input reference",
@@ -56,6 +57,14 @@ def input_reference() -> str:
         "## Generic assembly (`clampstack solve`)",
         "",
         schema_markdown(ASSEMBLY, "top level"),
+        "",
+        "## Single-bolt joint (`clampstack check`)",
+        "",
+        "Give either `[nut]` (an empty `[nut]` table means a standard ISO 4032 nut matched to "
+        "the bolt) or `[tapped_hole]`. Clamped parts and washers are listed head side first. "
+        "Every default that is applied is printed with the results.",
+        "",
+        schema_markdown(JOINT, "top level"),
     ]
     return "\n".join(parts).rstrip() + "\n"
 

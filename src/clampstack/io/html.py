@@ -27,6 +27,36 @@ def _e(x: object) -> str:
     return html.escape(str(x))
 
 
+def _page(title: str, body: str) -> str:
+    return (
+        '<!DOCTYPE html>\n<html lang="en"><head><meta charset="utf-8">'
+        f"<title>{_e(title)}</title><style>{_CSS}</style></head><body>\n{body}\n</body></html>\n"
+    )
+
+
+def _meta(source_name: str, sha256: str) -> str:
+    return (
+        f'<p class="meta">clampstack {__version__} &middot; '
+        f"{datetime.now(UTC).strftime('%Y-%m-%d %H:%M UTC')}"
+        + (
+            f" &middot; input {_e(source_name)} (SHA-256 {_e(sha256[:16])}&hellip;)"
+            if sha256
+            else ""
+        )
+        + "</p>"
+    )
+
+
+def joint_html(result, source_name: str = "", sha256: str = "") -> str:
+    """A single page with the joint's verdict, states and checks (inline CSS)."""
+    from .joint_text import joint_html_tables
+
+    body = f"<h1>{_e(result.spec.title)}</h1>{_meta(source_name, sha256)}"
+    body += joint_html_tables(result)
+    body += f'<div class="caution">{_e(CAUTION)}</div>'
+    return _page(result.spec.title, body)
+
+
 def assembly_html(result: AssemblyResult, source_name: str = "", sha256: str = "") -> str:
     """Render the solved assembly as one HTML page (inline CSS, tables per case)."""
     u = SI
@@ -81,8 +111,4 @@ def assembly_html(result: AssemblyResult, source_name: str = "", sha256: str = "
         "along +axis (from a part's first end to its second).</p>"
     )
     parts.append(f'<div class="caution">{_e(CAUTION)}</div>')
-    body = "\n".join(parts)
-    return (
-        '<!DOCTYPE html>\n<html lang="en"><head><meta charset="utf-8">'
-        f"<title>{_e(asm.title)}</title><style>{_CSS}</style></head><body>\n{body}\n</body></html>\n"
-    )
+    return _page(asm.title, "\n".join(parts))

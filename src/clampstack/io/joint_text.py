@@ -1,0 +1,193 @@
+"""Readable renderings of a joint result: terminal text and HTML tables."""
+
+from __future__ import annotations
+
+import html
+import math
+
+from ..joint.analysis import JointResult
+from .text import CAUTION, UNIT_SYSTEMS, DisplayUnits, fmt_number, table
+
+
+def _joint_line(r: JointResult) -> str:
+    s = r.spec
+    b = s.bolt
+    head = {"hex": "hex head", "socket": "socket head", "stud": "stud"}[b.head]
+    end = f"into a tapped hole in {s.tapped_hole.material.name}" if s.tapped_hole else "with nut"
+    return (
+        f"{b.thread.designation} grade {b.grade.name}, {head}, length "
+        f"{b.length * 1e3:g} mm, {end}; clamp length {s.clamp_length * 1e3:.4g} mm "
+        f"({len(s.layers)} layer{'s' if len(s.layers) != 1 else ''})"
+    )
+
+
+def _check_value(c, u: DisplayUnits) -> tuple[str, str]:
+    """Value and limit of a check in the chosen display units."""
+    conv = {"kN": ("force", 1e3), "MPa": ("stress", 1e6), "mm": ("length", 1e-3)}
+    if c.unit in conv:
+        kind, si = conv[c.unit]
+        lab = u.label(kind)
+        return (f"{u.fmt(kind, c.value * si)} {lab}", f"{u.fmt(kind, c.limit * si)} {lab}")
+    return fmt_number(c.value), fmt_number(c.limit)
+
+
+def _margin(c) -> str:
+    m = c.margin
+    return "inf" if math.isinf(m) else f"{m * 100:+.1f} %"
+
+
+def _mu(rng: tuple[float, float]) -> str:
+    return f"{rng[0]:.2f}" if rng[0] == rng[1] else f"{rng[0]:.2f}..{rng[1]:.2f}"
+
+
+def governing(r: JointResult):
+    """The active check with the smallest margin, or None.
+
+    When the torque was derived from the permissible preload, the assembly-preload
+    check sits at its limit by construction and is not reported as governing.
+    """
+    active = [c for c in r.checks if c.skipped is None]
+    if r.preload_at_limit_by_design:
+        active = [c for c in active if c.name != "assembly_preload"] or active
+    return min(active, key=lambda c: c.margin) if active else None
+
+
+def joint_text(r: JointResult, units: str = "si") -> str:
+    """The ``check`` result as compact tables: verdict, tightening, states, checks, caution."""
+    u = UNIT_SYSTEMS[units]
+    s = r.spec
+    F = u.label("force")
+    out = [s.title, _joint_line(r), ""]
+    failed = [c.name for c in r.checks if not c.passed]
+    gov = governing(r)
+    active = [c for c in r.checks if c.skipped is None]
+    if r.ok:
+        out.append(
+            f"RESULT: PASS - all {len(active)} checks pass"
+            + (f"; governing: {gov.name} ({_margin(gov)})" if gov else "")
+        )
+    else:
+        out.append(f"RESULT: FAIL - {', '.join(failed)}")
+    out.append("")
+
+    tr = s.tightening
+    out.append("Tightening specification")
+    mu = f"thread friction {_mu(tr.thread_friction)}, head friction {_mu(tr.head_friction)}"
+    out.append(f"  method {tr.method}; {mu}")
+    if r.torque is not None:
+        T = u.label("torque")
+        out.append(
+            f"  tightening torque {u.fmt('torque', r.torque[0])} {T} "
+            f"(min {u.fmt('torque', r.torque[1])}, max {u.fmt('torque', r.torque[2])} {T})"
+        )
+        if r.torque_required is not None:
+            out.append(
+                f"  smallest nominal torque that meets the required clamp load: "
+                f"{u.fmt('torque', r.torque_required)} {T}"
+            )
+    out.append(
+        f"  assembly preload {u.fmt('force', r.assembly_min)} .. "
+        f"{u.fmt('force', r.assembly_max)} {F}; permissible "
+        f"{u.fmt('force', r.permissible_preload)} {F}; required at least "
+        f"{u.fmt('force', r.required_assembly_min)} {F}"
+    )
+    out.append(f"  tightening factor alpha_A = {r.alpha_A:.3g} ({r.alpha_A_basis})")
+    out.append("")
+    out.append("Stiffness and load factor")
+    out.append(
+        f"  bolt {u.fmt('stiffness', 1 / r.springs.delta_S)} {u.label('stiffness')}, "
+        f"clamped parts {u.fmt('stiffness', 1 / r.springs.delta_P)} {u.label('stiffness')}, "
+        f"Phi_K = {r.springs.load_factor_K:.4g}, Phi_n = {r.load_factor:.4g} "
+        f"(n = {s.service.load_height:g})"
+    )
+    out.append(
+        f"  embedding {r.embedding_amount * 1e6:.3g} um -> preload loss "
+        f"{u.fmt('force', r.embedding_loss)} {F}; thermal change "
+        f"{u.fmt('force', r.thermal_change)} {F} "
+        f"({s.service.assembly_temperature - 273.15:g} -> "
+        f"{s.service.temperature - 273.15:g} degC)"
+    )
+    out.append(f"  separation load {u.fmt('force', r.separation_load)} {F}")
+    out.append("")
+    rows = [
+        [
+            st.label,
+            u.fmt("force", st.axial_load),
+            u.fmt("force", st.bolt_min),
+            u.fmt("force", st.bolt_max),
+            u.fmt("force", st.clamp_min),
+            u.fmt("force", st.clamp_max),
+        ]
+        for st in r.states
+    ]
+    out.append(
+        table(
+            [
+                "state",
+                f"F_A [{F}]",
+                f"bolt min [{F}]",
+                f"bolt max [{F}]",
+                f"clamp min [{F}]",
+                f"clamp max [{F}]",
+            ],
+            rows,
+            right=[False, True, True, True, True, True],
+        )
+    )
+    out.append(
+        "  min: minimum assembly preload with embedding; max: maximum assembly preload, "
+        "embedding not counted (conservative for the bolt)."
+    )
+    out.append("")
+    crow = []
+    for c in r.checks:
+        v, lim = _check_value(c, u)
+        verdict = "off" if c.skipped else ("pass" if c.passed else "FAIL")
+        crow.append([c.name, v, c.relation, lim, _margin(c), verdict, c.source])
+    out.append(
+        table(
+            ["check", "value", "", "limit", "margin", "result", "source"],
+            crow,
+            right=[False, True, False, True, True, False, False],
+        )
+    )
+    for c in r.checks:
+        if c.skipped:
+            out.append(f"  {c.name} switched off: {c.skipped}")
+    if r.notes:
+        out.append("")
+        out.append("Notes")
+        out.extend(f"  - {n}" for n in r.notes)
+    if r.defaults:
+        out.append("")
+        out.append("Defaults applied")
+        out.extend(f"  {k} = {v}" for k, v in r.defaults)
+    out.append("")
+    out.append(CAUTION)
+    return "\n".join(out)
+
+
+def joint_html_tables(r: JointResult) -> str:
+    """States and checks as HTML tables (Jupyter ``_repr_html_``)."""
+    e = html.escape
+    rows = "".join(
+        f"<tr><td style='text-align:left'>{e(st.label)}</td><td>{st.axial_load / 1e3:.4g}</td>"
+        f"<td>{st.bolt_min / 1e3:.4g}</td><td>{st.bolt_max / 1e3:.4g}</td>"
+        f"<td>{st.clamp_min / 1e3:.4g}</td><td>{st.clamp_max / 1e3:.4g}</td></tr>"
+        for st in r.states
+    )
+    checks = "".join(
+        f"<tr><td style='text-align:left'>{e(c.name)}</td><td>{c.value:.4g} {e(c.unit)}</td>"
+        f"<td>{e(c.relation)} {c.limit:.4g} {e(c.unit)}</td><td>{_margin(c)}</td>"
+        f"<td>{'off' if c.skipped else ('pass' if c.passed else '<b>FAIL</b>')}</td>"
+        f"<td style='text-align:left'>{e(c.source)}</td></tr>"
+        for c in r.checks
+    )
+    verdict = "PASS" if r.ok else "FAIL"
+    return (
+        f"<div><b>{e(r.spec.title)}</b>: {verdict}<table><tr><th>state</th><th>F_A [kN]</th>"
+        "<th>bolt min [kN]</th><th>bolt max [kN]</th><th>clamp min [kN]</th>"
+        f"<th>clamp max [kN]</th></tr>{rows}</table><table><tr><th>check</th><th>value</th>"
+        f"<th>limit</th><th>margin</th><th>result</th><th>source</th></tr>{checks}</table>"
+        f"<p><small>{e(CAUTION)}</small></p></div>"
+    )

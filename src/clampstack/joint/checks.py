@@ -1,0 +1,79 @@
+"""Design checks of a joint: one result object per published rule.
+
+Each :class:`Check` carries the value, the limit, the unit, the margin, whether
+it passes and its published source.  The margin is the relative reserve: for a
+check of the form ``value <= limit`` it is ``limit / value - 1``; for
+``value >= limit`` it is ``value / limit - 1``.  A check passes when its margin
+is not negative (to a relative round-off of 1e-9).
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+from typing import Any
+
+#: Names of the checks (stable: used in files to switch a check off, and in JSON).
+CHECK_NAMES: tuple[str, ...] = (
+    "assembly_preload",
+    "working_stress",
+    "fatigue",
+    "residual_clamp_load",
+    "separation",
+    "slip",
+    "surface_pressure_head",
+    "surface_pressure_nut",
+    "thread_stripping",
+)
+
+_TOL = 1e-9
+
+
+@dataclass(frozen=True)
+class Check:
+    """One design check.  ``value`` and ``limit`` are in ``unit``."""
+
+    name: str
+    title: str
+    value: float
+    limit: float
+    unit: str
+    relation: str  # "<=" or ">="
+    source: str
+    detail: str = ""
+    skipped: str | None = None  # reason, when switched off in the input
+
+    @property
+    def margin(self) -> float:
+        """Relative reserve (>= 0 passes); ``inf`` where the value is zero in a ``<=`` check."""
+        if self.relation == "<=":
+            if self.value <= 0:
+                return math.inf
+            return self.limit / self.value - 1.0
+        if self.limit <= 0:
+            return math.inf
+        return self.value / self.limit - 1.0
+
+    @property
+    def passed(self) -> bool:
+        """True if the rule is met (always true for a check switched off)."""
+        if self.skipped is not None:
+            return True
+        return self.margin >= -_TOL
+
+    def to_dict(self) -> dict[str, Any]:
+        """JSON form: ``{name, value, limit, unit, margin, pass, source, ...}``."""
+        m = self.margin
+        return {
+            "name": self.name,
+            "title": self.title,
+            "value": self.value,
+            "limit": self.limit,
+            "unit": self.unit,
+            "relation": self.relation,
+            "margin": None if math.isinf(m) else m,
+            "pass": self.passed,
+            "source": self.source,
+            "detail": self.detail,
+            "skipped": self.skipped,
+        }

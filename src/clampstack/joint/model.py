@@ -1,0 +1,152 @@
+"""A single-bolt joint after validation: everything in SI floats, every default resolved.
+
+The input layer (:mod:`clampstack.io.joint_input`) builds these objects from a
+TOML file; :func:`clampstack.joint.analysis.analyse` turns them into results.
+Each default that was applied is recorded in :attr:`JointSpec.defaults` so that
+the readable output and the report can print it.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass, field
+
+from ..catalog import Grade, Material, Thread
+
+ROOM = 293.15  # K, 20 degC: the reference temperature of the catalog
+
+
+@dataclass(frozen=True)
+class PartMaterial:
+    """Modulus and expansion of a part, from the catalog or given (then constant)."""
+
+    name: str
+    material: Material | None
+    modulus: float | None = None  # Pa, overrides the catalog
+    expansion: float | None = None  # 1/K mean, overrides the catalog
+
+    def E(self, T: float) -> float:
+        """Young's modulus at temperature ``T`` [K] (catalog table, linear interpolation)."""
+        if self.modulus is not None:
+            return self.modulus
+        assert self.material is not None
+        return float(self.material.modulus(T))
+
+    def strain(self, T: float) -> float:
+        """Free thermal strain from 20 degC to ``T`` [K] (mean coefficient times dT)."""
+        if self.expansion is not None:
+            return self.expansion * (T - ROOM)
+        assert self.material is not None
+        return float(self.material.thermal_strain(T))
+
+    def alpha(self, T: float) -> float:
+        """Mean expansion coefficient from 20 degC to ``T`` [1/K]."""
+        if self.expansion is not None:
+            return self.expansion
+        assert self.material is not None
+        return float(self.material.expansion(T))
+
+
+@dataclass(frozen=True)
+class BoltSpec:
+    thread: Thread
+    grade: Grade
+    length: float
+    shank_length: float  # plain shank inside the clamp length (0: fully threaded)
+    shank_diameter: float | None  # reduced (waisted) shank
+    head: str  # hex | socket | stud
+    bearing_diameter: float  # d_W under the head
+    material: PartMaterial
+    temperature: float  # service temperature [K]
+    rolled: str  # "before" | "after" heat treatment
+
+
+@dataclass(frozen=True)
+class NutSpec:
+    height: float
+    bearing_diameter: float
+    material: PartMaterial
+    Rm: float  # tensile strength of the nut material [Pa] (matched nut: the bolt's)
+    shear_ratio: float
+    limiting_pressure: float | None = None
+
+
+@dataclass(frozen=True)
+class TappedHoleSpec:
+    material: PartMaterial
+    engagement: float
+    Rm: float
+    shear_ratio: float
+    temperature: float
+
+
+@dataclass(frozen=True)
+class LayerSpec:
+    """A clamped plate, sleeve or washer in the stack (head side first)."""
+
+    name: str
+    kind: str  # plate | sleeve | washer
+    thickness: float
+    hole: float
+    outer_diameter: float | None
+    material: PartMaterial
+    temperature: float
+    limiting_pressure: float | None
+    family: str  # material family for the Wileman fit
+
+
+@dataclass(frozen=True)
+class TighteningSpec:
+    method: str  # torque | angle | yield | tension
+    torque: float | None
+    preload: float | None
+    thread_friction: tuple[float, float]
+    head_friction: tuple[float, float]
+    scatter: float | None
+    utilization: float
+    torque_tolerance: float
+
+
+@dataclass(frozen=True)
+class ServiceSpec:
+    axial_load: tuple[float, float]  # (min, max) N
+    shear_load: float
+    load_height: float
+    temperature: float  # K
+    assembly_temperature: float  # K
+
+
+@dataclass(frozen=True)
+class RequirementSpec:
+    residual_clamp_load: float
+    slip_friction: float
+    slip_safety: float
+    fatigue_safety: float
+
+
+@dataclass(frozen=True)
+class JointSpec:
+    """A validated single-bolt joint."""
+
+    title: str
+    bolt: BoltSpec
+    nut: NutSpec | None
+    tapped_hole: TappedHoleSpec | None
+    layers: tuple[LayerSpec, ...]
+    embedding_amount: float | None  # given f_Z [m]
+    roughness: float  # R_z [m]
+    tightening: TighteningSpec
+    service: ServiceSpec
+    requirements: RequirementSpec
+    clamp_model: str
+    skips: tuple[tuple[str, str], ...] = ()
+    defaults: tuple[tuple[str, str], ...] = field(default=())
+
+    @property
+    def clamp_length(self) -> float:
+        """Clamp length l_K: all plates, sleeves and washers [m]."""
+        return sum(layer.thickness for layer in self.layers)
+
+    @property
+    def tapped(self) -> bool:
+        """True for a tapped thread joint (no nut)."""
+        return self.tapped_hole is not None
