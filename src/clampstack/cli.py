@@ -43,6 +43,16 @@ def handle_errors(fn: Callable[..., Any]) -> Callable[..., Any]:
     return wrapper
 
 
+def _in_file(path: str, fn: Callable[..., Any], *args: Any) -> Any:
+    """Call ``fn``; an InputError it raises is reported against the input file ``path``."""
+    from .errors import InputError
+
+    try:
+        return fn(*args)
+    except InputError as err:
+        raise err.with_source(path) from None
+
+
 def _print_json(obj: Any) -> None:
     click.echo(json.dumps(obj, indent=2, allow_nan=False))
 
@@ -105,13 +115,78 @@ def check(file: str, as_json: bool, units: str) -> None:
     from .io.joint_text import joint_text
     from .joint import analyse
 
-    _, spec = read_joint_file(file)
-    result = analyse(spec)
+    doc, spec = read_joint_file(file)
+    result = _in_file(doc.path, analyse, spec)
     if as_json:
         _print_json(result.to_dict())
     else:
         click.echo(joint_text(result, units))
     sys.exit(EXIT_OK if result.ok else EXIT_FAIL)
+
+
+def _parse_temperature_range(text: str) -> tuple[float, float]:
+    """``"-40..150"`` (degC) or ``"-40..150 degC"`` / ``"233..423 K"`` to kelvin."""
+    from .errors import InputError
+    from .units import parse_range
+
+    t = text.strip()
+    if ".." not in t:
+        raise InputError(f'expected a range "low..high", got "{text}"', key="--temperature")
+    if t[-1].isdigit() or t[-1] == ".":
+        t = f"{t} degC"
+    return parse_range(t, "temperature", "--temperature")
+
+
+@main.command()
+@click.argument("file", type=str)
+@click.option(
+    "--temperature",
+    "trange",
+    required=True,
+    metavar="A..B",
+    help="Service temperature range, e.g. -40..150 (degC) or '250..420 K'.",
+)
+@click.option(
+    "--step", type=float, default=None, metavar="S", help="Step in K (default: 100 intervals)."
+)
+@click.option(
+    "--cycle",
+    is_flag=True,
+    help="Also follow a cycle to each end of the range and back (permanent loss).",
+)
+@click.option("--json", "as_json", is_flag=True, help="Machine-readable result on stdout.")
+@click.option("--csv", "as_csv", is_flag=True, help="One CSV row per temperature on stdout.")
+@click.option(
+    "--units",
+    type=click.Choice(["si", "us"]),
+    default="si",
+    show_default=True,
+    help="Units of the readable output.",
+)
+@handle_errors
+def sweep(
+    file: str, trange: str, step: float | None, cycle: bool, as_json: bool, as_csv: bool, units: str
+) -> None:
+    """Preload, clamp load and every check over a temperature range (exit 1 if one fails)."""
+    import numpy as np
+
+    from .errors import InputError
+    from .io.joint_input import read_joint_file
+    from .io.sweep_text import sweep_text
+    from .studies.sweep import sweep as run_sweep
+
+    if as_json and as_csv:
+        raise InputError("choose --json or --csv, not both", key="--csv")
+    doc, spec = read_joint_file(file)
+    lo, hi = _parse_temperature_range(trange)
+    result = _in_file(doc.path, run_sweep, spec, lo, hi, step, cycle)
+    if as_json:
+        _print_json(result.to_dict())
+    elif as_csv:
+        click.echo(result.to_csv(), nl=False)
+    else:
+        click.echo(sweep_text(result, units))
+    sys.exit(EXIT_OK if bool(np.all(result.ok)) else EXIT_FAIL)
 
 
 @main.command()

@@ -24,7 +24,7 @@ thickness = "20 mm"
 material = "steel"
 thickness = "20 mm"
 [tightening]
-torque = "70 N*m"
+torque = "65 N*m"
 thread_friction = "0.10..0.16"
 [service]
 axial_load = "0..8 kN"
@@ -57,7 +57,7 @@ def test_check_json_has_the_design_keys(write_toml):
         assert isinstance(out["preload"][key], float)
     for key in ("nominal_Nm", "min_Nm", "max_Nm"):
         assert isinstance(out["torque"][key], float)
-    assert out["torque"]["nominal_Nm"] == pytest.approx(70.0)
+    assert out["torque"]["nominal_Nm"] == pytest.approx(65.0)
     for key in ("bolt_load_max_N", "residual_clamp_load_min_N", "separation_load_N"):
         assert isinstance(out["service"][key], float)
     assert out["ok"] is True
@@ -124,8 +124,8 @@ def test_examples_check(examples_dir, example):
         ('grade = "8.8"', 'grade = "8.9"', ["bolt.grade", "8.8"]),
         ('length = "60 mm"', 'length = "45 mm"', ["bolt.length", "shorter than clamp length"]),
         (
-            'torque = "70 N*m"',
-            'torque = "70 N*m"\nhead_friction = "-0.1"',
+            'torque = "65 N*m"',
+            'torque = "65 N*m"\nhead_friction = "-0.1"',
             ["tightening.head_friction"],
         ),
         (
@@ -133,7 +133,7 @@ def test_examples_check(examples_dir, example):
             'thread_friction = "-0.10..0.16"',
             ["tightening.thread_friction"],
         ),
-        ('torque = "70 N*m"', 'preload = "200 kN"', ["tightening.preload", "tensile strength"]),
+        ('torque = "65 N*m"', 'preload = "200 kN"', ["tightening.preload", "tensile strength"]),
         ("[nut]", '[nut]\nheigth = "10 mm"', ["nut.heigth", "unknown key"]),
         (
             'material = "steel"\nthickness = "20 mm"\n[tightening]',

@@ -177,3 +177,47 @@ def grade(name: str, diameter: float | None = None) -> Grade:
         f"grade {canonical} has no strength data for a {_fmt_mm(d)} mm bolt; "
         f"its valid size range is {span} ({mine[0].source.split(':')[0]})"
     )
+
+
+@cache
+def _yield_tables() -> dict[str, tuple[tuple[float, ...], tuple[float, ...], str]]:
+    """Grade -> (T [K], Rp0.2 ratio to 20 degC, source) from ``grades_temperature.csv``."""
+    rows: dict[str, list[tuple[float, float, str]]] = {}
+    for row in read_csv("grades_temperature.csv"):
+        rows.setdefault(row["grade"], []).append(
+            (float(row["T_degC"]) + 273.15, float(row["Rp02_ratio"]), row["source"])
+        )
+    out = {}
+    for name, pts in rows.items():
+        pts.sort()
+        out[name] = (tuple(p[0] for p in pts), tuple(p[1] for p in pts), pts[0][2])
+    return out
+
+
+def yield_at_temperature(g: Grade, T_K: float | object) -> tuple[object, str]:
+    """Minimum yield value of grade ``g`` at temperature(s) ``T_K`` [Pa], and its basis.
+
+    Uses the elevated-temperature ratios of ``grades_temperature.csv`` (ISO 898-1
+    Annex A; ASME BPVC II-D Table Y-1 for B7; values from memory) with linear
+    interpolation.  Below 20 degC the room-temperature value is used (strength
+    rises in the cold; conservative).  Above the table an :class:`InputError` names
+    the grade and its range.  A grade without such data keeps its room-temperature
+    value, and the basis says so.  Accepts a float or a numpy array.
+    """
+    import numpy as np
+
+    table = _yield_tables().get(g.name)
+    arr = np.asarray(T_K, dtype=float)
+    if table is None:
+        val = np.full(arr.shape, g.Rp02)
+        basis = f"no elevated-temperature data for grade {g.name}: room-temperature value used"
+    else:
+        T, ratio, source = table
+        if np.any(arr > T[-1] + 1e-9):
+            raise InputError(
+                f"{float(arr.max()) - 273.15:g} degC is above the elevated-temperature data of "
+                f"grade {g.name} (up to {T[-1] - 273.15:g} degC)"
+            )
+        val = g.Rp02 * np.interp(arr, T, ratio)
+        basis = source.split(": ")[0].split(" yield strength")[0] + " (from memory)"
+    return (float(val) if val.ndim == 0 else val), basis

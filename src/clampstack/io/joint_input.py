@@ -109,6 +109,12 @@ NUT = Schema(
             positive=True,
         ),
         Key("limiting_pressure", "stress", "limiting surface pressure of the part under the nut"),
+        Key(
+            "temperature",
+            "temperature",
+            "service temperature of the nut",
+            default="the bolt's temperature",
+        ),
     ),
 )
 
@@ -361,6 +367,38 @@ JOINT = Schema(
 )
 
 
+#: Bearing face diameter d_w,min of hexagon heads and nuts by width across flats s [mm]:
+#: ISO 4014 / ISO 4032 product grade A (from memory).  Other sizes: 0.93 s (an
+#: approximation of the same tables, common practice, no source).
+_DW_MIN_MM = {
+    5.5: 4.57,
+    7.0: 5.88,
+    8.0: 6.88,
+    10.0: 8.88,
+    13.0: 11.63,
+    16.0: 14.63,
+    18.0: 16.63,
+    21.0: 19.37,
+    24.0: 22.49,
+    27.0: 25.34,
+    30.0: 28.19,
+    34.0: 31.71,
+    36.0: 33.61,
+    41.0: 38.0,
+    46.0: 42.75,
+    50.0: 46.55,
+    55.0: 51.11,
+}
+
+
+def bearing_face_diameter(s: float) -> float:
+    """Default outer bearing diameter d_w of a hexagon head or nut of width ``s`` [m]."""
+    key = round(s * 1e3, 2)
+    if key in _DW_MIN_MM:
+        return _DW_MIN_MM[key] * 1e-3
+    return 0.93 * s
+
+
 def read_joint_file(path: str) -> tuple[InputDocument, JointSpec]:
     """Load and validate a joint file (InputError names the file and the key)."""
     doc = load_toml(path)
@@ -473,8 +511,8 @@ def joint_from_data(data: dict[str, Any]) -> JointSpec:
         dW = thr.socket_head_diameter
         dflt("bolt.bearing_diameter", f"{dW * 1e3:g} mm (socket head d_k, ISO 4762)")
     else:
-        dW = thr.head_across_flats
-        dflt("bolt.bearing_diameter", f"{dW * 1e3:g} mm (width across flats s)")
+        dW = bearing_face_diameter(thr.head_across_flats)
+        dflt("bolt.bearing_diameter", f"{dW * 1e3:.4g} mm (bearing face d_w,min of the hex head)")
 
     # --- nut or tapped hole
     if raw["nut"] is not None and raw["tapped_hole"] is not None:
@@ -500,6 +538,11 @@ def joint_from_data(data: dict[str, Any]) -> JointSpec:
         T = T_srv if T is None else T
         if kind == "washer":
             hole = r["inner_diameter"] or first_hole
+            if hole < thr.d * 0.999:
+                raise InputError(
+                    f"inner diameter {hole * 1e3:g} mm is smaller than the bolt ({thr.d * 1e3:g} mm)",
+                    key=f"{key}.inner_diameter",
+                )
             od = r["outer_diameter"]
             if od <= hole:
                 raise InputError(
@@ -590,6 +633,7 @@ def joint_from_data(data: dict[str, Any]) -> JointSpec:
             mat, engagement, Rm, mat.material.shear_ratio if mat.material else 0.6, T
         )
         _check_temperature(mat, T, "tapped_hole.temperature")
+        _check_temperature(mat, T_asm, "service.assembly_temperature")
     else:
         nraw = raw["nut"] or {k.name: None for k in NUT.keys}
         if raw["nut"] is None:
@@ -601,7 +645,7 @@ def joint_from_data(data: dict[str, Any]) -> JointSpec:
         height = nraw["height"] or thr.nut_height
         if nraw["height"] is None:
             dflt("nut.height", f"{height * 1e3:g} mm (ISO 4032)")
-        dWn = nraw["bearing_diameter"] or thr.head_across_flats
+        dWn = nraw["bearing_diameter"] or bearing_face_diameter(thr.head_across_flats)
         Rm = nraw["strength"] or grd.Rm
         if head != "stud" and b["length"] < lK + height * (1 - 1e-9):
             raise InputError(
@@ -609,6 +653,9 @@ def joint_from_data(data: dict[str, Any]) -> JointSpec:
                 f"({(lK + height) * 1e3:g} mm)",
                 key="bolt.length",
             )
+        T_nut = nraw["temperature"] if nraw["temperature"] is not None else T_bolt
+        _check_temperature(mat, T_nut, "nut.temperature")
+        _check_temperature(mat, T_asm, "service.assembly_temperature")
         nut = NutSpec(
             height,
             dWn,
@@ -616,6 +663,7 @@ def joint_from_data(data: dict[str, Any]) -> JointSpec:
             Rm,
             mat.material.shear_ratio if mat.material else 0.6,
             nraw["limiting_pressure"],
+            T_nut,
         )
 
     # --- plain shank
@@ -645,6 +693,20 @@ def joint_from_data(data: dict[str, Any]) -> JointSpec:
         )
     if b["shank_diameter"] is not None and shank <= 0:
         raise InputError("a reduced shank needs shank_length", key="bolt.shank_length")
+
+    # bearing faces must be wider than the holes they sit on
+    if dW <= layers[0].hole:
+        raise InputError(
+            f"bearing diameter {dW * 1e3:.4g} mm is not larger than the hole "
+            f"{layers[0].hole * 1e3:.4g} mm under the head",
+            key="bolt.bearing_diameter",
+        )
+    if nut is not None and nut.bearing_diameter <= layers[-1].hole:
+        raise InputError(
+            f"bearing diameter {nut.bearing_diameter * 1e3:.4g} mm is not larger than the hole "
+            f"{layers[-1].hole * 1e3:.4g} mm under the nut",
+            key="nut.bearing_diameter",
+        )
 
     bolt = BoltSpec(
         thr,

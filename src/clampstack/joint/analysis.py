@@ -5,7 +5,7 @@ diagram of section 5.3.1, reproduced with the network instead of the closed
 form):
 
 * the bolt (resilience ``delta_S``, VDI 2230-1 section 5.1.1) between the head
-  bearing ``H`` and the nut bearing (or tapped thread) ``N``;
+  bearing ``H`` and the nut bearing (or tapped thread) ``N``, tension only;
 * the clamped parts (``delta_P``, section 5.1.2) between the same planes, split
   at the load introduction planes ``A`` and ``B`` into ``(1 - n)/2 delta_P``,
   ``n delta_P``, ``(1 - n)/2 delta_P`` (the load introduction factor ``n`` of
@@ -13,25 +13,29 @@ form):
   compression only, so separation comes out of the solve exactly;
 * the preload is a length misfit of the bolt, embedding a shortening of the
   clamped stack, temperature a free thermal elongation of every part with the
-  moduli at each part's temperature;
+  moduli at each part's temperature (:mod:`clampstack.joint.thermal`);
 * the axial working load ``F_A`` pulls ``A`` and ``B`` apart.
 
 Two branches are followed: the minimum assembly preload with embedding (which
 governs the residual clamp load) and the maximum assembly preload without
 embedding (which governs bolt stress; VDI 2230-1 does the same in step R8).
+
+The check chain (:func:`evaluate_checks`) works on floats or on numpy arrays, so
+the same rules serve ``check`` (one state, from the network) and ``sweep``
+(many temperatures, from the closed form of the same network).
 """
 
 from __future__ import annotations
 
 import math
+from collections.abc import Callable
 from dataclasses import dataclass, field
 from typing import Any
 
 import numpy as np
 
+from ..catalog import yield_at_temperature
 from ..components import (
-    bolt_resilience,
-    clamped_resilience,
     embedding_amount,
     endurance_rolled_after_heat_treatment,
     endurance_rolled_before_heat_treatment,
@@ -39,17 +43,20 @@ from ..components import (
     permissible_preload,
     thread_torque,
     tightening_factor,
-    working_stress,
     yield_controlled_preload_range,
 )
-from ..errors import InputError
 from ..network import COMPRESSION, TENSION, Network
 from .checks import Check
 from .model import JointSpec
+from .thermal import TemperatureModel
 
-TORQUE_FACTOR_SOURCE = (
-    "VDI 2230-1:2015, 5.4.3 / ISO 16047: M_A = F (0.16 P + 0.58 d2 muG + muK D_Km/2)"
-)
+K_TAU = 0.5  # residual torsion factor in service (VDI 2230-1 R8)
+
+_MODEL_NAMES = {
+    "vdi2230": "VDI 2230-1 pressure cone / sleeve model (5.1.2)",
+    "shigley": "Shigley 30-degree frustum model (Mechanical Engineering Design, ch. 8)",
+    "wileman": "Wileman, Choudhury and Green (1991) exponential fit",
+}
 
 
 @dataclass(frozen=True)
@@ -77,6 +84,497 @@ class State:
     clamp_min: float
     clamp_max: float
     axial_load: float
+
+
+# --------------------------------------------------------------------------- preparation
+
+
+@dataclass(frozen=True)
+class Prepared:
+    """Everything about a joint that does not depend on the service state."""
+
+    spec: JointSpec
+    model: TemperatureModel
+    springs: Springs  # at assembly temperature
+    A0: float
+    d0: float
+    permissible_preload: float
+    assembly_min: float
+    assembly_max: float
+    alpha_A: float
+    alpha_A_basis: str
+    torque: tuple[float, float, float] | None
+    k_torque_fn: Callable[[float, float], float]
+    thread_torque_max: float  # M_G at F_M,max and mu_G,min [N*m]
+    k_tau: float
+    embedding_amount: float
+    embedding_loss: float
+    notes: tuple[str, ...]
+    assumptions: tuple[str, ...]
+
+
+def prepare(spec: JointSpec) -> Prepared:
+    """Springs, tightening (VDI 2230-1 R7, R13; ISO 16047) and embedding (5.4.2)."""
+    b, tr, srv = spec.bolt, spec.tightening, spec.service
+    thr, grd = b.thread, b.grade
+    notes: list[str] = []
+    assumptions = [
+        "Concentric axial loading and clamping only (VDI 2230-1 case of a concentric joint); "
+        "bending, prying and eccentric loads are not modelled.",
+        f"Clamped-part stiffness by the {_MODEL_NAMES[spec.clamp_model]}.",
+        "Maximum bolt load from the maximum assembly preload without embedding loss; minimum "
+        "residual clamp load from the minimum assembly preload after embedding (VDI 2230-1 R8, R5).",
+        "Moduli and thermal expansion from the catalog at each part's temperature (mean "
+        "expansion coefficients from 20 degC); bolt yield strength at the bolt's temperature "
+        "where elevated-temperature data exist; limiting surface pressures at room temperature.",
+    ]
+    # cross-section A0 and its diameter d0 (VDI 2230-1: the smallest section)
+    d0, A0 = thr.ds, thr.As
+    if b.shank_diameter is not None and math.pi / 4 * b.shank_diameter**2 < A0:
+        d0, A0 = b.shank_diameter, math.pi / 4 * b.shank_diameter**2
+
+    model = TemperatureModel(spec)
+    dSa, dPa = model.resiliences_at_assembly()
+    sp_a = Springs(dSa, dPa, tuple(model.segment_resiliences()))
+
+    muG_lo, muG_hi = tr.thread_friction
+    muK_lo, muK_hi = tr.head_friction
+    dh = spec.layers[0].hole
+    dW_turn = b.bearing_diameter if spec.nut is None else spec.nut.bearing_diameter
+    DKm = 0.5 * (dW_turn + dh)
+
+    def k_torque(muG: float, muK: float) -> float:
+        # M_A / F_M (VDI 2230-1 R13, ISO 16047)
+        return 0.16 * thr.P + 0.58 * thr.d2 * muG + 0.5 * muK * DKm
+
+    Rp = grd.Rp02
+    if srv.assembly_temperature > 293.15 + 1e-9:
+        Rp = float(yield_at_temperature(grd, srv.assembly_temperature)[0])
+    if tr.method == "tension":
+        FMzul = tr.utilization * Rp * A0  # no thread torsion when a tensioner stretches the bolt
+    else:
+        FMzul = float(permissible_preload(A0, d0, thr.d2, thr.P, Rp, muG_lo, tr.utilization))
+    torque: tuple[float, float, float] | None = None
+    single_friction = muG_lo == muG_hi and muK_lo == muK_hi
+    if tr.method == "torque":
+        if tr.torque is not None:
+            MA = tr.torque
+        elif tr.preload is not None:
+            MA = tr.preload * k_torque(0.5 * (muG_lo + muG_hi), 0.5 * (muK_lo + muK_hi))
+        else:
+            MA = FMzul * k_torque(muG_lo, muK_lo) / (1 + tr.torque_tolerance)
+            notes.append(
+                "No torque or preload given: the torque is set so that the maximum "
+                "preload reaches the permissible preload (VDI 2230-1 R13)."
+            )
+        MA_min, MA_max = MA * (1 - tr.torque_tolerance), MA * (1 + tr.torque_tolerance)
+        torque = (MA, MA_min, MA_max)
+        FM_max = MA_max / k_torque(muG_lo, muK_lo)
+        if tr.scatter is not None:
+            alpha, basis = tr.scatter, "given"
+            FM_min = FM_max / alpha
+        elif single_friction:
+            alpha = tightening_factor("torque", friction_known=False, bound="lower")
+            basis = (
+                f"VDI 2230-1 Table A8 default for torque tightening with one friction value "
+                f"({alpha:g}, from memory)"
+            )
+            FM_min = FM_max / alpha
+        else:
+            FM_min = MA_min / k_torque(muG_hi, muK_hi)
+            alpha = FM_max / FM_min
+            basis = f"from the friction range and the torque tolerance +-{tr.torque_tolerance:.0%}"
+    elif tr.method in ("yield", "angle"):
+        FM_min, FM_max = (
+            float(x)
+            for x in yield_controlled_preload_range(A0, d0, thr.d2, thr.P, Rp, muG_lo, muG_hi)
+        )
+        FMzul = float(permissible_preload(A0, d0, thr.d2, thr.P, 1.2 * Rp, muG_lo, 1.0))
+        alpha = FM_max / FM_min
+        basis = "yield-point scatter of the bolts (R_p0.2max = 1.2 R_p0.2min, from memory)"
+        if tr.scatter is not None:
+            alpha, basis = tr.scatter, "given"
+            FM_min = FM_max / alpha
+        # torque at the yield point: least for the weakest bolt at the lowest friction,
+        # most for the strongest bolt at the highest friction (indicative only)
+        T_lo = float(permissible_preload(A0, d0, thr.d2, thr.P, Rp, muG_lo, 1.0)) * k_torque(
+            muG_lo, muK_lo
+        )
+        T_hi = float(permissible_preload(A0, d0, thr.d2, thr.P, 1.2 * Rp, muG_hi, 1.0)) * k_torque(
+            muG_hi, muK_hi
+        )
+        torque = (0.5 * (T_lo + T_hi), T_lo, T_hi)
+        notes.append(
+            f"Method {tr.method}: the joint is tightened to the yield point; the torque "
+            "range is indicative (the angle or yield signal controls)."
+        )
+        assumptions.append(
+            "Yield-controlled tightening: permissible preload with nu = 1 and "
+            "R_p0.2max = 1.2 R_p0.2min (VDI 2230-1, from memory)."
+        )
+    else:  # tension
+        alpha = tr.scatter if tr.scatter is not None else tightening_factor("tension", bound="mid")
+        basis = (
+            "given"
+            if tr.scatter is not None
+            else (
+                f"VDI 2230-1 Table A8, hydraulic tensioning, middle of 1.2-1.6 ({alpha:g}, from memory)"
+            )
+        )
+        if tr.preload is not None:
+            FM_min = 2 * tr.preload / (1 + alpha)
+            FM_max = alpha * FM_min
+        else:
+            FM_max = FMzul
+            FM_min = FM_max / alpha
+        notes.append("Method tension: no thread torsion at assembly; no torque specification.")
+
+    if spec.embedding_amount is not None:
+        fZ = spec.embedding_amount
+    else:
+        n_interfaces = len(spec.layers) - 1 + (1 if spec.tapped else 0)
+        fZ = float(
+            embedding_amount(
+                spec.roughness,
+                n_interfaces,
+                "transverse" if srv.shear_load > 0 else "axial",
+                thread=True,
+                n_bearing=1 if spec.tapped else 2,
+            )
+        )
+    FZ = fZ / (dSa + dPa)
+    MG = 0.0 if tr.method == "tension" else float(thread_torque(FM_max, thr.P, thr.d2, muG_lo))
+    return Prepared(
+        spec,
+        model,
+        sp_a,
+        A0,
+        d0,
+        FMzul,
+        FM_min,
+        FM_max,
+        alpha,
+        basis,
+        torque,
+        k_torque,
+        MG,
+        0.0 if tr.method == "tension" else K_TAU,
+        fZ,
+        FZ,
+        tuple(notes),
+        tuple(assumptions),
+    )
+
+
+# --------------------------------------------------------------------------- network
+
+
+@dataclass(frozen=True)
+class _Net:
+    net: Network
+    load_node: int
+    bolt: int
+    inner: int
+
+
+def _joint_network(dS: float, dP: float, n: float, bolt_free: float, clamp_free: float) -> _Net:
+    """Network of the joint: bolt H-N in parallel with the clamped stack H-A-B-N.
+
+    Nodes 0 H (head plane), 1 A, 2 B, 3 N (nut plane); with n = 1, A = H and B = N.
+    ``bolt_free`` and ``clamp_free`` are the free elongations (misfit, thermal,
+    embedding) of the bolt and of the whole clamped stack; the stack's share is
+    split in proportion to resilience.  The bolt carries tension only (a nut cannot
+    push), the middle part of the stack compression only (the interface).
+    """
+    if n >= 1.0 - 1e-9:  # outer parts of vanishing length: merge the planes
+        net = Network.from_arrays(
+            2,
+            [0, 0],
+            [1, 1],
+            [1 / dS, 1 / dP],
+            [bolt_free, clamp_free],
+            [TENSION, COMPRESSION],
+            fixed=[0],
+        )
+        return _Net(net, 1, 0, 1)
+    outer = 0.5 * (1 - n)
+    net = Network.from_arrays(
+        4,
+        [0, 0, 1, 2],
+        [3, 1, 2, 3],
+        [1 / dS, 1 / (outer * dP), 1 / (n * dP), 1 / (outer * dP)],
+        [bolt_free, outer * clamp_free, n * clamp_free, outer * clamp_free],
+        [TENSION, 0, COMPRESSION, 0],
+        fixed=[1],
+    )
+    return _Net(net, 2, 0, 2)
+
+
+def _solve(jn: _Net, FA: float) -> tuple[float, float]:
+    loads = np.zeros(jn.net.n_nodes)
+    loads[jn.load_node] = FA
+    sol = jn.net.solve(loads)
+    return float(sol.force[jn.bolt]) + 0.0, float(-sol.force[jn.inner]) + 0.0
+
+
+def service_closed_form(
+    FV: np.ndarray, phi: np.ndarray, FA: float | np.ndarray
+) -> tuple[np.ndarray, np.ndarray]:
+    """Bolt load and clamp load of the joint network in closed form (exact, piecewise).
+
+    While bolt and interface both carry: ``F_S = F_V + Phi_n F_A``,
+    ``F_K = F_V - (1 - Phi_n) F_A`` (VDI 2230-1, 5.3.1).  Interface open: the bolt
+    carries ``F_A``; bolt slack (preload lost, compressive load): the interface
+    carries ``-F_A``.  Vectorised over any of the arguments.
+    """
+    FS_a = FV + phi * FA
+    FK_a = FV - (1 - phi) * FA
+    both = (FS_a >= 0) & (FK_a >= 0)
+    FA_arr = np.asarray(FA, dtype=float)
+    FS = np.where(both, FS_a, np.where(FA_arr > 0, FA_arr, 0.0)) + 0.0  # + 0.0: no -0.0
+    FK = np.where(both, FK_a, np.where(FA_arr < 0, -FA_arr, 0.0)) + 0.0
+    return FS, FK
+
+
+# --------------------------------------------------------------------------- checks
+
+
+@dataclass(frozen=True)
+class CheckRow:
+    """A check before it is bound to floats: value and limit may be arrays."""
+
+    name: str
+    title: str
+    value: Any
+    limit: Any
+    unit: str
+    relation: str
+    source: str
+    detail: str = ""
+
+
+def evaluate_checks(
+    prep: Prepared,
+    T_bolt: Any,
+    bolt_load_max: Any,
+    amplitude: Any | None,
+    bolt_load_mean: Any | None,
+    residual_min: Any,
+    separation_load: Any,
+) -> tuple[list[CheckRow], list[str]]:
+    """The check chain on floats or arrays (VDI 2230-1 R7-R12); returns rows and notes."""
+    s = prep.spec
+    b, tr, srv, rq = s.bolt, s.tightening, s.service, s.requirements
+    thr, grd = b.thread, b.grade
+    notes: list[str] = []
+    rows: list[CheckRow] = []
+    yield_method = tr.method in ("yield", "angle")
+    if yield_method:
+        notes.append(
+            "Assembly preload not checked against F_M,zul: the bolt is tightened to its "
+            "yield point by design."
+        )
+    else:
+        mu_text = (
+            "no torsion" if tr.method == "tension" else f"mu_G,min = {tr.thread_friction[0]:g}"
+        )
+        rows.append(
+            CheckRow(
+                "assembly_preload",
+                "Maximum assembly preload within the permissible preload",
+                prep.assembly_max / 1e3,
+                prep.permissible_preload / 1e3,
+                "kN",
+                "<=",
+                f"VDI 2230-1:2015, 5.5.1, R7 (F_M,zul at nu = {tr.utilization:g}, {mu_text})",
+            )
+        )
+    Rp_T, basis = yield_at_temperature(grd, T_bolt)
+    if yield_method:  # the maximum branch is a bolt of the highest yield point of the lot
+        Rp_T = 1.2 * np.asarray(Rp_T)
+        basis += "; x 1.2 for the strongest bolt of a yield-tightened lot (from memory)"
+    sigma = bolt_load_max / prep.A0
+    tau = prep.k_tau * prep.thread_torque_max / (math.pi * prep.d0**3 / 16)
+    sred = np.sqrt(sigma**2 + 3 * tau**2)
+    rows.append(
+        CheckRow(
+            "working_stress",
+            "Equivalent stress in service below the yield point",
+            sred / 1e6,
+            np.asarray(Rp_T) / 1e6,
+            "MPa",
+            "<=",
+            f"VDI 2230-1:2015, 5.5.2, R8 (sigma_red,B with k_tau = {prep.k_tau:g}); yield: {basis}",
+        )
+    )
+    if amplitude is not None:
+        if grd.name not in ("8.8", "9.8", "10.9", "12.9"):
+            notes.append(
+                f"Fatigue: the VDI 2230-1 endurance formula is given for property classes "
+                f"8.8 to 12.9; for grade {grd.name} it is only a guide."
+            )
+        sASV = float(endurance_rolled_before_heat_treatment(thr.d))
+        endurance, how = sASV, "rolled before heat treatment"
+        if b.rolled == "after":
+            F02 = thr.As * grd.Rp02
+            ratio = np.clip(bolt_load_mean / F02, 0.3 + 1e-12, 1.0)
+            endurance = endurance_rolled_after_heat_treatment(thr.d, ratio * F02, F02)
+            how = "rolled after heat treatment"
+        rows.append(
+            CheckRow(
+                "fatigue",
+                "Stress amplitude below the endurance limit of the thread",
+                amplitude / 1e6,
+                np.asarray(endurance) / rq.fatigue_safety / 1e6,
+                "MPa",
+                "<=",
+                f"VDI 2230-1:2015, 5.5.3, R9 (sigma_ASV, {how}; S_D = {rq.fatigue_safety:g}; "
+                "formulas from memory)",
+            )
+        )
+    else:
+        notes.append("Fatigue not checked: the axial load does not alternate.")
+    FA_lo, FA_hi = srv.axial_load
+    if rq.residual_clamp_load > 0:
+        rows.append(
+            CheckRow(
+                "residual_clamp_load",
+                "Residual clamp load at least the required clamp load",
+                residual_min / 1e3,
+                rq.residual_clamp_load / 1e3,
+                "kN",
+                ">=",
+                "VDI 2230-1:2015, 5.5.4, R2/R11 (F_KR,min >= F_Kerf)",
+            )
+        )
+    if FA_hi > 0:
+        rows.append(
+            CheckRow(
+                "separation",
+                "No separation of the clamped parts under the maximum load",
+                separation_load / 1e3,
+                FA_hi / 1e3,
+                "kN",
+                ">=",
+                "VDI 2230-1:2015, 5.3.2 (F_A,sep = F_V / (1 - Phi_n)); joint diagram",
+            )
+        )
+    FQ = srv.shear_load
+    if FQ > 0:
+        need = FQ * rq.slip_safety / rq.slip_friction
+        rows.append(
+            CheckRow(
+                "slip",
+                "Residual clamp load carries the transverse load by friction",
+                residual_min / 1e3,
+                need / 1e3,
+                "kN",
+                ">=",
+                f"VDI 2230-1:2015, 5.5.6, R12 (F_KQerf = F_Q/(q_F mu_T), S_G = {rq.slip_safety:g}; "
+                "from memory)",
+                f"mu_T = {rq.slip_friction:g}, F_Q = {FQ / 1e3:.4g} kN",
+            )
+        )
+    rows.extend(_surface_rows(s, bolt_load_max, notes))
+    rows.append(_stripping_row(s))
+    return rows, notes
+
+
+def _surface_rows(spec: JointSpec, F: Any, notes: list[str]) -> list[CheckRow]:
+    """Surface pressure under head and nut (VDI 2230-1:2015, 5.5.5, R10)."""
+    b = spec.bolt
+    sides = [("surface_pressure_head", "head", b.bearing_diameter, spec.layers[:2])]
+    if spec.nut is not None:
+        sides.append(
+            (
+                "surface_pressure_nut",
+                "nut",
+                spec.nut.bearing_diameter,
+                tuple(reversed(spec.layers[-2:])),
+            )
+        )
+    rows = []
+    for name, where, dW, stack in sides:
+        # the part under the bearing face, then (behind a washer) the part under the washer:
+        # the face with the least ratio p_G / area governs at every load
+        best: tuple[float, float, str] | None = None
+        missing = []
+        bearing_d = dW
+        for lay in stack:
+            outer = min(bearing_d, lay.outer_diameter) if lay.outer_diameter else bearing_d
+            area = math.pi / 4 * (outer**2 - lay.hole**2)
+            if area <= 0:
+                break
+            if lay.limiting_pressure is None:
+                missing.append(lay.name)
+            elif best is None or lay.limiting_pressure * area < best[0] * best[1]:
+                best = (area, lay.limiting_pressure, lay.name)
+            if lay.kind != "washer" or lay.outer_diameter is None:
+                break
+            bearing_d = lay.outer_diameter
+        if missing:
+            notes.append(
+                f"Surface pressure under the {where} not checked on {', '.join(missing)}: "
+                "no limiting pressure for its material (give limiting_pressure)."
+            )
+        if best is not None:
+            area, pG, part = best
+            rows.append(
+                CheckRow(
+                    name,
+                    f"Surface pressure under the {where} below the limiting pressure",
+                    F / area / 1e6,
+                    pG / 1e6,
+                    "MPa",
+                    "<=",
+                    "VDI 2230-1:2015, 5.5.5, R10 (p_G guide values, table from memory)",
+                    f"on {part}, at the maximum bolt load",
+                )
+            )
+    return rows
+
+
+def _stripping_row(spec: JointSpec) -> CheckRow:
+    """Engagement length against thread stripping (VDI 2230-1 R11 with Alexander's method)."""
+    thr, grd = spec.bolt.thread, spec.bolt.grade
+    if spec.tapped_hole is not None:
+        th = spec.tapped_hole
+        Le, Rm, ratio, where = th.engagement, th.Rm, th.shear_ratio, "tapped hole"
+    else:
+        assert spec.nut is not None
+        nut = spec.nut
+        Le, Rm, ratio, where = nut.height, nut.Rm, nut.shear_ratio, "nut"
+    need = float(minimum_engagement(thr.d, thr.P, thr.As, grd.Rm, Rm, ratio, shear_ratio_bolt=0.6))
+    return CheckRow(
+        "thread_stripping",
+        f"Thread engagement in the {where} long enough not to strip",
+        Le * 1e3,
+        need * 1e3,
+        "mm",
+        ">=",
+        "VDI 2230-1:2015, 5.5.5, R11 / Alexander (SAE 770420); shear areas FED-STD-H28/2 "
+        "basic profile; shear ratios from memory",
+        f"internal thread R_m = {Rm / 1e6:.4g} MPa, tau_B/R_m = {ratio:g}; "
+        "bolt should break before the thread strips",
+    )
+
+
+def margins(rows: list[CheckRow]) -> dict[str, np.ndarray]:
+    """Margin of every row (same rule as :attr:`Check.margin`), vectorised."""
+    out = {}
+    for r in rows:
+        v = np.asarray(r.value, dtype=float)
+        lim = np.asarray(r.limit, dtype=float)
+        with np.errstate(divide="ignore", invalid="ignore"):
+            if r.relation == "<=":
+                m = np.where(v > 0, lim / np.where(v > 0, v, 1.0) - 1.0, np.inf)
+            else:
+                m = np.where(lim > 0, v / np.where(lim > 0, lim, 1.0) - 1.0, np.inf)
+        out[r.name] = m
+    return out
+
+
+# --------------------------------------------------------------------------- result
 
 
 @dataclass(frozen=True)
@@ -111,6 +609,7 @@ class JointResult:
     notes: tuple[str, ...]
     assumptions: tuple[str, ...]
     defaults: tuple[tuple[str, str], ...] = field(default=())
+    cycle: Any = None  # permanent-loss cycle (clampstack.joint.plastic.CycleResult)
 
     @property
     def preload_at_limit_by_design(self) -> bool:
@@ -139,17 +638,12 @@ class JointResult:
             }
             for st in self.states
         ]
-        torque = None
+        keys = ("nominal_Nm", "min_Nm", "max_Nm")
+        torque: dict[str, float | None] = dict.fromkeys(keys)
         if self.torque is not None:
-            torque = {
-                "nominal_Nm": self.torque[0],
-                "min_Nm": self.torque[1],
-                "max_Nm": self.torque[2],
-                "required_min_Nm": self.torque_required,
-            }
-        else:
-            torque = {"nominal_Nm": None, "min_Nm": None, "max_Nm": None, "required_min_Nm": None}
-        return {
+            torque = dict(zip(keys, self.torque, strict=True))
+        torque["required_min_Nm"] = self.torque_required
+        out = {
             "title": s.title,
             "bolt": {
                 "thread": thr.designation,
@@ -207,286 +701,56 @@ class JointResult:
             "ok": self.ok,
             "notes": list(self.notes),
             "assumptions": list(self.assumptions),
-            "defaults": {k: v for k, v in self.defaults},
+            "defaults": dict(self.defaults),
         }
+        if self.cycle is not None:
+            out["preload"]["after_cycle_min_N"] = self.cycle.preload_after[0]
+            out["preload"]["after_cycle_max_N"] = self.cycle.preload_after[1]
+            out["preload"]["permanent_loss_N"] = self.cycle.permanent_loss
+        return out
 
-    def _repr_html_(self) -> str:  # pragma: no cover - exercised in notebooks
+    def _repr_html_(self) -> str:
         from ..io.joint_text import joint_html_tables
 
         return joint_html_tables(self)
 
 
-# --------------------------------------------------------------------------- springs
-
-
 def springs(spec: JointSpec, service: bool) -> Springs:
     """Bolt and clamped-part resilience at assembly (``service=False``) or service temperatures."""
-    b = spec.bolt
-    thr = b.thread
-    T_asm = spec.service.assembly_temperature
-
-    def T(part_T: float) -> float:
-        return part_T if service else T_asm
-
-    E_bolt = b.material.E(T(b.temperature))
-    lK = spec.clamp_length
-    shank = []
-    if b.shank_length > 0:
-        shank = [(b.shank_length, b.shank_diameter or thr.d)]
-    head = None if b.head == "stud" else b.head
-    E_nut = spec.nut.material.E(T(b.temperature)) if spec.nut else None
-    E_tapped = (
-        spec.tapped_hole.material.E(T(spec.tapped_hole.temperature)) if spec.tapped_hole else None
-    )
-    try:
-        bolt = bolt_resilience(
-            thr.d,
-            thr.P,
-            thr.d3,
-            E_bolt,
-            lK,
-            shank,
-            head,
-            "tapped" if spec.tapped else "nut",
-            E_nut=E_nut,
-            E_tapped=E_tapped,
-        )
-    except ValueError as err:
-        raise InputError(str(err), key="bolt") from None
-    plates = [
-        (lay.thickness, lay.material.E(T(lay.temperature)), lay.family)
-        for lay in spec.layers
-        if lay.kind != "sleeve"
-    ]
-    ods = [lay.outer_diameter for lay in spec.layers if lay.kind != "sleeve" and lay.outer_diameter]
-    DA = min(ods) if ods else None
-    dh = (
-        max(lay.hole for lay in spec.layers if lay.kind != "washer")
-        if any(lay.kind != "washer" for lay in spec.layers)
-        else spec.layers[0].hole
-    )
-    delta_P = 0.0
-    if plates:
-        try:
-            delta_P = float(
-                clamped_resilience(
-                    plates,
-                    b.bearing_diameter,
-                    dh,
-                    DA,
-                    spec.clamp_model,
-                    spec.tapped,
-                    thr.d,
-                    E_tapped,
-                )
-            )
-        except ValueError as err:
-            raise InputError(
-                str(err), key="clamp_model" if "Wileman" in str(err) else "clamped"
-            ) from None
-    for lay in spec.layers:
-        if lay.kind == "sleeve":
-            assert lay.outer_diameter is not None
-            area = math.pi / 4 * (lay.outer_diameter**2 - lay.hole**2)
-            delta_P += lay.thickness / (lay.material.E(T(lay.temperature)) * area)
-    segs = tuple((s.name, s.length, s.resilience) for s in bolt.segments)
-    return Springs(float(bolt.total), delta_P, segs)
-
-
-# --------------------------------------------------------------------------- network
-
-
-@dataclass(frozen=True)
-class _Net:
-    net: Network
-    load_node: int
-    bolt: int
-    inner: int
-
-
-def _joint_network(dS: float, dP: float, n: float, bolt_free: float, clamp_free: float) -> _Net:
-    """Network of the joint: bolt H-N in parallel with the clamped stack H-A-B-N.
-
-    Nodes 0 H (head plane), 1 A, 2 B, 3 N (nut plane); with n = 1, A = H and B = N.
-    ``bolt_free`` and ``clamp_free`` are the free elongations (misfit, thermal,
-    embedding) of the bolt and of the whole clamped stack; the stack's share is
-    split in proportion to resilience.
-    """
-    if n >= 1.0:
-        i, j = [0, 0], [1, 1]
-        k = [1 / dS, 1 / dP]
-        d0 = [bolt_free, clamp_free]
-        beh = [TENSION, COMPRESSION]
-        net = Network.from_arrays(2, i, j, k, d0, beh, fixed=[0])
-        return _Net(net, 1, 0, 1)
-    outer = 0.5 * (1 - n)
-    i = [0, 0, 1, 2]
-    j = [3, 1, 2, 3]
-    k = [1 / dS, 1 / (outer * dP), 1 / (n * dP), 1 / (outer * dP)]
-    d0 = [bolt_free, outer * clamp_free, n * clamp_free, outer * clamp_free]
-    beh = [TENSION, 0, COMPRESSION, 0]  # a nut cannot push: the bolt carries tension only
-    net = Network.from_arrays(4, i, j, k, d0, beh, fixed=[1])
-    return _Net(net, 2, 0, 2)
-
-
-def _solve(jn: _Net, FA: float) -> tuple[float, float]:
-    loads = np.zeros(jn.net.n_nodes)
-    loads[jn.load_node] = FA
-    sol = jn.net.solve(loads)
-    return float(sol.force[jn.bolt]), float(-sol.force[jn.inner])
+    model = TemperatureModel(spec)
+    if not service:
+        dS, dP = model.resiliences_at_assembly()
+        return Springs(dS, dP, tuple(model.segment_resiliences()))
+    dS, dP = model.resiliences(model.T_service)
+    return Springs(float(dS), float(dP), tuple(model.segment_resiliences(model.T_service)))
 
 
 # --------------------------------------------------------------------------- analysis
 
 
-def _thermal_free(spec: JointSpec) -> tuple[float, float]:
-    """Free thermal elongation of bolt (over l_K) and clamped stack from assembly to service [m]."""
-    T_a = spec.service.assembly_temperature
-    b = spec.bolt
-    lK = spec.clamp_length
-    bolt = lK * (b.material.strain(b.temperature) - b.material.strain(T_a))
-    clamp = sum(
-        lay.thickness * (lay.material.strain(lay.temperature) - lay.material.strain(T_a))
-        for lay in spec.layers
-    )
-    return bolt, clamp
-
-
 def analyse(spec: JointSpec) -> JointResult:
     """Analyse and check a single-bolt joint (VDI 2230-1 calculation steps R0-R13)."""
-    b, tr, srv, rq = spec.bolt, spec.tightening, spec.service, spec.requirements
-    thr, grd = b.thread, b.grade
-    notes: list[str] = []
-    assumptions: list[str] = [
-        "Concentric axial loading and clamping only (VDI 2230-1 case of a concentric joint); "
-        "bending, prying and eccentric loads are not modelled.",
-        f"Clamped-part stiffness by the {_MODEL_NAMES[spec.clamp_model]}.",
-        "Maximum bolt load from the maximum assembly preload without embedding loss; minimum "
-        "residual clamp load from the minimum assembly preload after embedding (VDI 2230-1 R8, R5).",
-        "Moduli and thermal expansion from the catalog at each part's temperature (mean "
-        "expansion coefficients from 20 degC); bolt strengths at room temperature.",
-    ]
-
-    # cross-section A0 and its diameter d0 (VDI 2230-1: the smallest section)
-    d0, A0 = thr.ds, thr.As
-    if b.shank_diameter is not None and math.pi / 4 * b.shank_diameter**2 < A0:
-        d0, A0 = b.shank_diameter, math.pi / 4 * b.shank_diameter**2
-
-    sp_a = springs(spec, service=False)
-    sp_s = springs(spec, service=True)
+    prep = prepare(spec)
+    srv, rq = spec.service, spec.requirements
+    model = prep.model
+    sp_a = prep.springs
+    dSa, dPa = sp_a.delta_S, sp_a.delta_P
+    T_srv = srv.temperature
+    dSs, dPs = (float(x) for x in model.resiliences(T_srv))
+    sp_s = Springs(dSs, dPs, tuple(model.segment_resiliences(T_srv)))
     n = srv.load_height
     phi_n = n * sp_a.load_factor_K
     phi_n_s = n * sp_s.load_factor_K
-
-    # --- tightening (VDI 2230-1 R7, R13; ISO 16047)
-    muG_lo, muG_hi = tr.thread_friction
-    muK_lo, muK_hi = tr.head_friction
-    dh = spec.layers[0].hole
-    dW_turn = b.bearing_diameter if (spec.tapped or spec.nut is None) else spec.nut.bearing_diameter
-    DKm = 0.5 * (dW_turn + dh)
-
-    def k_torque(muG: float, muK: float) -> float:
-        return 0.16 * thr.P + 0.58 * thr.d2 * muG + 0.5 * muK * DKm
-
-    Rp = grd.Rp02
-    if tr.method == "tension":
-        FMzul = tr.utilization * Rp * A0  # no thread torsion when a tensioner stretches the bolt
-    else:
-        FMzul = float(permissible_preload(A0, d0, thr.d2, thr.P, Rp, muG_lo, tr.utilization))
-    torque: tuple[float, float, float] | None = None
-    single_friction = muG_lo == muG_hi and muK_lo == muK_hi
-    if tr.method == "torque":
-        if tr.torque is not None:
-            MA = tr.torque
-        elif tr.preload is not None:
-            MA = tr.preload * k_torque(0.5 * (muG_lo + muG_hi), 0.5 * (muK_lo + muK_hi))
-        else:
-            MA = FMzul * k_torque(muG_lo, muK_lo) / (1 + tr.torque_tolerance)
-        MA_min, MA_max = MA * (1 - tr.torque_tolerance), MA * (1 + tr.torque_tolerance)
-        torque = (MA, MA_min, MA_max)
-        FM_max = MA_max / k_torque(muG_lo, muK_lo)
-        if tr.scatter is not None:
-            alpha, basis = tr.scatter, "given"
-            FM_min = FM_max / alpha
-        elif single_friction:
-            alpha = tightening_factor("torque", friction_known=False, bound="lower")
-            basis = (
-                f"VDI 2230-1 Table A8 default for torque tightening with one friction value "
-                f"({alpha:g}, from memory)"
-            )
-            FM_min = FM_max / alpha
-        else:
-            FM_min = MA_min / k_torque(muG_hi, muK_hi)
-            alpha = FM_max / FM_min
-            basis = f"from the friction range and the torque tolerance +-{tr.torque_tolerance:.0%}"
-    elif tr.method in ("yield", "angle"):
-        FM_min, FM_max = (
-            float(x)
-            for x in yield_controlled_preload_range(A0, d0, thr.d2, thr.P, Rp, muG_lo, muG_hi)
-        )
-        FMzul = float(permissible_preload(A0, d0, thr.d2, thr.P, 1.2 * Rp, muG_lo, 1.0))
-        alpha = FM_max / FM_min
-        basis = "yield-point scatter of the bolts (R_p0.2max = 1.2 R_p0.2min, from memory)"
-        if tr.scatter is not None:
-            alpha, basis = tr.scatter, "given"
-            FM_min = FM_max / alpha
-        torque = (
-            0.5 * (FM_min * k_torque(muG_lo, muK_lo) + FM_max * k_torque(muG_hi, muK_hi)),
-            FM_min * k_torque(muG_lo, muK_lo),
-            FM_max * k_torque(muG_hi, muK_hi),
-        )
-        notes.append(
-            f"Method {tr.method}: the joint is tightened to the yield point; the torque "
-            "range is indicative (the angle or yield signal controls)."
-        )
-        assumptions.append(
-            "Yield-controlled tightening: permissible preload with nu = 1 and "
-            "R_p0.2max = 1.2 R_p0.2min (VDI 2230-1, from memory)."
-        )
-    else:  # tension
-        alpha = tr.scatter if tr.scatter is not None else tightening_factor("tension", bound="mid")
-        basis = (
-            "given"
-            if tr.scatter is not None
-            else (
-                f"VDI 2230-1 Table A8, hydraulic tensioning, middle of 1.2-1.6 ({alpha:g}, from memory)"
-            )
-        )
-        if tr.preload is not None:
-            FM_min = 2 * tr.preload / (1 + alpha)
-            FM_max = alpha * FM_min
-        else:
-            FM_max = FMzul
-            FM_min = FM_max / alpha
-        notes.append("Method tension: no thread torsion at assembly; no torque specification.")
-
-    # --- embedding (VDI 2230-1, 5.4.2)
-    if spec.embedding_amount is not None:
-        fZ = spec.embedding_amount
-    else:
-        n_interfaces = len(spec.layers) - 1 + (1 if spec.tapped else 0)
-        fZ = float(
-            embedding_amount(
-                spec.roughness,
-                n_interfaces,
-                "transverse" if srv.shear_load > 0 else "axial",
-                thread=True,
-                n_bearing=1 if spec.tapped else 2,
-            )
-        )
-    dSa, dPa = sp_a.delta_S, sp_a.delta_P
-    FZ = fZ / (dSa + dPa)
-
-    # --- states through the network
-    th_bolt, th_clamp = _thermal_free(spec)
+    th_bolt, th_clamp = (float(x) for x in model.thermal(T_srv))
     FA_lo, FA_hi = srv.axial_load
+    fZ = prep.embedding_amount
 
     def branch(FM: float, embed: bool) -> dict[str, tuple[float, float]]:
         misfit = -FM * (dSa + dPa)
         fz = fZ if embed else 0.0
         asm = _joint_network(dSa, dPa, n, misfit, 0.0)
         emb = _joint_network(dSa, dPa, n, misfit, -fz)
-        hot = _joint_network(sp_s.delta_S, sp_s.delta_P, n, misfit + th_bolt, th_clamp - fz)
+        hot = _joint_network(dSs, dPs, n, misfit + th_bolt, th_clamp - fz)
         out = {
             "assembly": _solve(asm, 0.0),
             "embedded": _solve(emb, 0.0),
@@ -497,8 +761,8 @@ def analyse(spec: JointSpec) -> JointResult:
             out["service_min"] = _solve(hot, FA_lo)
         return out
 
-    lo = branch(FM_min, embed=True)
-    hi = branch(FM_max, embed=False)
+    lo = branch(prep.assembly_min, embed=True)
+    hi = branch(prep.assembly_max, embed=False)
     labels = {
         "assembly": ("assembly", 0.0),
         "embedded": ("after embedding", 0.0),
@@ -512,146 +776,72 @@ def analyse(spec: JointSpec) -> JointResult:
     )
     thermal_change = lo["temperature"][0] - lo["embedded"][0]
     thermal_change_max = hi["temperature"][0] - hi["embedded"][0]
-    FV_T = lo["temperature"][0]
-    separation_load = FV_T / (1.0 - phi_n_s) if phi_n_s < 1.0 else math.inf
+    FV_T = lo["temperature"][1]  # clamp load at service temperature, no working load
+    separation_load = max(FV_T, 0.0) / (1.0 - phi_n_s)
     bolt_load_max = max(v[0] for v in hi.values())
     residual_min = min(v[1] for key, v in lo.items() if key.startswith("service"))
 
-    # --- requirements: clamp load (VDI 2230-1 R2) and minimum assembly preload (R5)
+    # requirements: clamp load (VDI 2230-1 R2) and minimum assembly preload (R5)
     FQ = srv.shear_load
     slip_need = FQ * rq.slip_safety / rq.slip_friction if FQ > 0 else 0.0
     FKerf = max(rq.residual_clamp_load, slip_need)
     thermal_loss = max(0.0, -thermal_change)
-    required_FM = FKerf + (1 - phi_n_s) * max(FA_hi, 0.0) + FZ + thermal_loss
+    required_FM = FKerf + (1 - phi_n_s) * max(FA_hi, 0.0) + prep.embedding_loss + thermal_loss
 
-    # --- checks
-    checks: list[Check] = []
-    skip = dict(spec.skips)
-
-    def add(c: Check) -> None:
-        if c.name in skip:
-            c = Check(
-                c.name,
-                c.title,
-                c.value,
-                c.limit,
-                c.unit,
-                c.relation,
-                c.source,
-                c.detail,
-                skip[c.name],
-            )
-        checks.append(c)
-
-    nu_used = 1.0 if tr.method in ("yield", "angle") else tr.utilization
-    add(
-        Check(
-            "assembly_preload",
-            "Maximum assembly preload within the permissible preload",
-            FM_max / 1e3,
-            FMzul / 1e3,
-            "kN",
-            "<=",
-            f"VDI 2230-1:2015, 5.5.1, R7 (F_M,zul at nu = {nu_used:g}, mu_G,min = {muG_lo:g})",
-            f"F_M,max = {FM_max / 1e3:.4g} kN, F_M,zul = {FMzul / 1e3:.4g} kN",
-        )
-    )
-    MG = 0.0 if tr.method == "tension" else float(thread_torque(FM_max, thr.P, thr.d2, muG_lo))
-    ws = working_stress(bolt_load_max, A0, MG, d0, 0.0 if tr.method == "tension" else 0.5)
-    add(
-        Check(
-            "working_stress",
-            "Equivalent stress in service below the yield point",
-            float(ws.sigma_red) / 1e6,
-            Rp / 1e6,
-            "MPa",
-            "<=",
-            "VDI 2230-1:2015, 5.5.2, R8 (sigma_red,B with k_tau = 0.5)",
-            f"sigma_z = {float(ws.sigma) / 1e6:.4g} MPa, tau = {float(ws.tau) / 1e6:.4g} MPa",
-        )
-    )
+    amplitude = mean = None
     if FA_lo != FA_hi:
-        amp = max(
+        amplitude = max(
             abs(lo["service_max"][0] - lo["service_min"][0]),
             abs(hi["service_max"][0] - hi["service_min"][0]),
-        ) / (2 * thr.As)
-        sASV = float(endurance_rolled_before_heat_treatment(thr.d))
-        endurance, how = sASV, "rolled before heat treatment"
-        if b.rolled == "after":
-            FSm = 0.5 * (lo["service_max"][0] + lo["service_min"][0])
-            ratio = FSm / (thr.As * Rp)
-            ratio = min(max(ratio, 0.3 + 1e-12), 1.0)
-            endurance = float(
-                endurance_rolled_after_heat_treatment(thr.d, ratio * thr.As * Rp, thr.As * Rp)
-            )
-            how = "rolled after heat treatment"
-        add(
-            Check(
-                "fatigue",
-                "Stress amplitude below the endurance limit of the thread",
-                amp / 1e6,
-                endurance / rq.fatigue_safety / 1e6,
-                "MPa",
-                "<=",
-                f"VDI 2230-1:2015, 5.5.3, R9 (sigma_ASV, {how}; S_D = {rq.fatigue_safety:g}; "
-                "formulas from memory)",
-                f"endurance {endurance / 1e6:.4g} MPa",
-            )
+        ) / (2 * spec.bolt.thread.As)
+        # the larger mean load gives the lower endurance (rolled after heat treatment)
+        mean = 0.5 * max(
+            lo["service_max"][0] + lo["service_min"][0], hi["service_max"][0] + hi["service_min"][0]
         )
-    else:
-        notes.append("Fatigue not checked: the axial load does not alternate.")
-    if rq.residual_clamp_load > 0:
-        add(
-            Check(
-                "residual_clamp_load",
-                "Residual clamp load at least the required clamp load",
-                residual_min / 1e3,
-                rq.residual_clamp_load / 1e3,
-                "kN",
-                ">=",
-                "VDI 2230-1:2015, 5.5.4, R2/R11 (F_KR,min >= F_Kerf)",
-            )
+    rows, check_notes = evaluate_checks(
+        prep, spec.bolt.temperature, bolt_load_max, amplitude, mean, residual_min, separation_load
+    )
+    skip = dict(spec.skips)
+    checks = tuple(
+        Check(
+            r.name,
+            r.title,
+            float(r.value),
+            float(r.limit),
+            r.unit,
+            r.relation,
+            r.source,
+            r.detail,
+            skip.get(r.name),
         )
-    if FA_hi > 0:
-        add(
-            Check(
-                "separation",
-                "No separation of the clamped parts under the maximum load",
-                separation_load / 1e3 if math.isfinite(separation_load) else 1e12,
-                FA_hi / 1e3,
-                "kN",
-                ">=",
-                "VDI 2230-1:2015, 5.3.2 (F_A,sep = F_V / (1 - Phi_n)); joint diagram",
-                f"residual clamp load {residual_min / 1e3:.4g} kN at F_A,max = {FA_hi / 1e3:.4g} kN",
-            )
-        )
-    if FQ > 0:
-        add(
-            Check(
-                "slip",
-                "Residual clamp load carries the transverse load by friction",
-                residual_min / 1e3,
-                slip_need / 1e3,
-                "kN",
-                ">=",
-                f"VDI 2230-1:2015, 5.5.6, R12 (F_KQerf = F_Q/(q_F mu_T), S_G = {rq.slip_safety:g}; "
-                "from memory)",
-                f"mu_T = {rq.slip_friction:g}, F_Q = {FQ / 1e3:.4g} kN",
-            )
-        )
-    _surface_checks(spec, bolt_load_max, add, notes)
-    _stripping_check(spec, add, notes)
-
-    # F_M,min is proportional to the nominal torque: the smallest torque for the requirement
+        for r in rows
+    )
     torque_required = None
-    if tr.method == "torque" and torque is not None:
-        torque_required = required_FM * torque[0] / FM_min
+    if spec.tightening.method == "torque" and prep.torque is not None:
+        # F_M,min is proportional to the nominal torque: the smallest torque for the requirement
+        torque_required = required_FM * prep.torque[0] / prep.assembly_min
+        limit_torque = (
+            prep.permissible_preload
+            * prep.k_torque_fn(spec.tightening.thread_friction[0], spec.tightening.head_friction[0])
+            / (1 + spec.tightening.torque_tolerance)
+        )
+        if torque_required > limit_torque:
+            check_notes.append(
+                f"The required clamp load needs a nominal torque of at least "
+                f"{torque_required:.4g} N*m, but {limit_torque:.4g} N*m already takes the bolt to "
+                "its permissible preload: a stronger or larger bolt, or a tighter tightening "
+                "method, is needed."
+            )
 
-    defaults = spec.defaults
-    if tr.method == "torque" and tr.torque is None and tr.preload is None:
+    from .plastic import permanent_loss_cycle
+
+    cycle = permanent_loss_cycle(prep)
+    notes = list(prep.notes) + check_notes
+    if cycle.permanent_loss > 0:
         notes.append(
-            "No torque or preload given: the torque is set so that the maximum preload "
-            "reaches the permissible preload (VDI 2230-1 R13)."
+            f"Yielding at service temperature ({', '.join(cycle.yielded)}): the maximum-preload "
+            f"joint keeps {cycle.preload_after[1] / 1e3:.4g} kN after cooling back to the assembly "
+            f"temperature, a permanent loss of {cycle.permanent_loss / 1e3:.4g} kN."
         )
     return JointResult(
         spec=spec,
@@ -659,17 +849,17 @@ def analyse(spec: JointSpec) -> JointResult:
         springs_service=sp_s,
         load_factor=phi_n,
         load_factor_service=phi_n_s,
-        A0=A0,
-        d0=d0,
-        permissible_preload=FMzul,
-        assembly_min=FM_min,
-        assembly_max=FM_max,
-        alpha_A=alpha,
-        alpha_A_basis=basis,
-        torque=torque,
+        A0=prep.A0,
+        d0=prep.d0,
+        permissible_preload=prep.permissible_preload,
+        assembly_min=prep.assembly_min,
+        assembly_max=prep.assembly_max,
+        alpha_A=prep.alpha_A,
+        alpha_A_basis=prep.alpha_A_basis,
+        torque=prep.torque,
         torque_required=torque_required,
         embedding_amount=fZ,
-        embedding_loss=FZ,
+        embedding_loss=prep.embedding_loss,
         thermal_change=thermal_change,
         thermal_change_max=thermal_change_max,
         states=states,
@@ -678,95 +868,9 @@ def analyse(spec: JointSpec) -> JointResult:
         residual_clamp_min=residual_min,
         required_assembly_min=required_FM,
         required_clamp_load=FKerf,
-        checks=tuple(checks),
+        checks=checks,
         notes=tuple(notes),
-        assumptions=tuple(assumptions),
-        defaults=defaults,
-    )
-
-
-_MODEL_NAMES = {
-    "vdi2230": "VDI 2230-1 pressure cone / sleeve model (5.1.2)",
-    "shigley": "Shigley 30-degree frustum model (Mechanical Engineering Design, ch. 8)",
-    "wileman": "Wileman, Choudhury and Green (1991) exponential fit",
-}
-
-
-def _surface_checks(spec: JointSpec, F: float, add, notes: list[str]) -> None:
-    """Surface pressure under head and nut (VDI 2230-1:2015, 5.5.5, R10)."""
-    b = spec.bolt
-    sides = [("surface_pressure_head", "head", b.bearing_diameter, spec.layers[:2])]
-    if spec.nut is not None:
-        sides.append(
-            (
-                "surface_pressure_nut",
-                "nut",
-                spec.nut.bearing_diameter,
-                tuple(reversed(spec.layers[-2:])),
-            )
-        )
-    for name, where, dW, stack in sides:
-        worst: tuple[float, float, str] | None = None
-        missing = []
-        # the part under the bearing face, then (behind a washer) the part under the washer
-        bearing_d = dW
-        for lay in stack:
-            area = math.pi / 4 * (bearing_d**2 - lay.hole**2)
-            if area <= 0:
-                break
-            p = F / area
-            if lay.limiting_pressure is None:
-                missing.append(lay.name)
-            else:
-                margin = lay.limiting_pressure / p
-                if worst is None or margin < worst[1] / worst[0]:
-                    worst = (p, lay.limiting_pressure, lay.name)
-            if lay.kind != "washer" or lay.outer_diameter is None:
-                break
-            bearing_d = lay.outer_diameter
-        if missing:
-            notes.append(
-                f"Surface pressure under the {where} not checked on {', '.join(missing)}: "
-                "no limiting pressure for its material (give limiting_pressure)."
-            )
-        if worst is not None:
-            p, pG, part = worst
-            add(
-                Check(
-                    name,
-                    f"Surface pressure under the {where} below the limiting pressure",
-                    p / 1e6,
-                    pG / 1e6,
-                    "MPa",
-                    "<=",
-                    "VDI 2230-1:2015, 5.5.5, R10 (p_G guide values, table from memory)",
-                    f"on {part}, at the maximum bolt load {F / 1e3:.4g} kN",
-                )
-            )
-
-
-def _stripping_check(spec: JointSpec, add, notes: list[str]) -> None:
-    """Engagement length against thread stripping (VDI 2230-1 R11 with Alexander's method)."""
-    thr, grd = spec.bolt.thread, spec.bolt.grade
-    if spec.tapped_hole is not None:
-        th = spec.tapped_hole
-        Le, Rm, ratio, where = th.engagement, th.Rm, th.shear_ratio, "tapped hole"
-    else:
-        assert spec.nut is not None
-        nut = spec.nut
-        Le, Rm, ratio, where = nut.height, nut.Rm, nut.shear_ratio, "nut"
-    need = float(minimum_engagement(thr.d, thr.P, thr.As, grd.Rm, Rm, ratio, shear_ratio_bolt=0.6))
-    add(
-        Check(
-            "thread_stripping",
-            f"Thread engagement in the {where} long enough not to strip",
-            Le * 1e3,
-            need * 1e3,
-            "mm",
-            ">=",
-            "VDI 2230-1:2015, 5.5.5, R11 / Alexander (SAE 770420); shear areas FED-STD-H28/2 "
-            "basic profile; shear ratios from memory",
-            f"internal thread R_m = {Rm / 1e6:.4g} MPa, tau_B/R_m = {ratio:g}; "
-            "bolt should break before the thread strips",
-        )
+        assumptions=prep.assumptions,
+        defaults=spec.defaults,
+        cycle=cycle,
     )

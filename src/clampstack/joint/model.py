@@ -68,6 +68,7 @@ class NutSpec:
     Rm: float  # tensile strength of the nut material [Pa] (matched nut: the bolt's)
     shear_ratio: float
     limiting_pressure: float | None = None
+    temperature: float = ROOM  # service temperature [K]
 
 
 @dataclass(frozen=True)

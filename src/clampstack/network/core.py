@@ -37,6 +37,7 @@ other with SuperLU.
 
 from __future__ import annotations
 
+import math
 from collections.abc import Sequence
 from dataclasses import dataclass, field
 
@@ -274,9 +275,15 @@ class Network:
 
         fi, fj = free_idx[self.i], free_idx[self.j]
         solver = _LinearSolver(nf, fi, fj, self._explain_singular)
-        kscale = float(np.max(self.k[self.behaviour != CURVE], initial=0.0))
+        # slack parts get _EPS_SLOPE of the softest part's stiffness in the Newton matrix:
+        # small against every real spring, so refinement converges fast
+        positive = self.k[(self.behaviour != CURVE) & (self.k > 0)]
+        kscale = float(np.min(positive)) if positive.size else 0.0
         for c in self.curves.values():
-            kscale = max(kscale, float(np.max(np.abs(np.diff(c.f) / np.diff(c.x)))))
+            slopes = np.abs(np.diff(c.f) / np.diff(c.x))
+            if np.any(slopes > 0):
+                low = float(np.min(slopes[slopes > 0]))
+                kscale = low if kscale == 0.0 else min(kscale, low)
         kscale = kscale if kscale > 0 else 1.0
         nonlinear = bool(np.any(self.behaviour != LINEAR))
 
@@ -335,14 +342,18 @@ class Network:
                 )
                 # slack parts stiffened by _EPS_SLOPE bias the step slightly: polish harder
                 polish = _POLISH if not nonlinear else 1e-13
-                if np.max(np.abs(resid), initial=0.0) > polish * scale:
+                for _ in range(10 if nonlinear else 1):  # iterative refinement
+                    if np.max(np.abs(resid), initial=0.0) <= polish * scale:
+                        break
                     du[free] = solver.solve(s_mat, resid[free])
                     t_state = state(u + du)
-                    if np.max(np.abs(t_state[3])) < np.max(np.abs(resid)) and (
-                        not nonlinear or t_state[2].tobytes() == active
+                    if not (
+                        np.max(np.abs(t_state[3])) < np.max(np.abs(resid))
+                        and (not nonlinear or t_state[2].tobytes() == active)
                     ):
-                        u = u + du
-                        e, force, slope, resid, pot = t_state
+                        break
+                    u = u + du
+                    e, force, slope, resid, pot = t_state
                 break
 
         # a group that is held only through slack parts and carries a net load
@@ -496,3 +507,63 @@ class _LinearSolver:
             self.explain()
             raise SolveError("the stiffness matrix is singular (a mechanism)")
         return np.atleast_1d(x)
+
+
+def elastic_plastic_curve(
+    k: float,
+    plastic: float = 0.0,
+    yield_tension: float = math.inf,
+    yield_compression: float = math.inf,
+    carries_tension: bool = True,
+    carries_compression: bool = True,
+) -> Curve:
+    """Elastic-perfectly-plastic force law as a :class:`Curve` for one load step.
+
+    ``N = k (e - plastic)`` clipped to ``[-yield_compression, yield_tension]``;
+    a part that carries no tension (or no compression) is slack on that side.
+    After the step the plastic elongation moves to ``e - N/k`` wherever the part
+    sits on a yield plateau (:func:`update_plastic`), so unloading follows the
+    elastic slope (the classic elastic-perfectly-plastic bar, e.g. Gere & Goodno,
+    *Mechanics of Materials*, ch. 2, elastoplastic analysis).
+    """
+    if not (k > 0 and math.isfinite(k)):
+        raise InputError("an elastic-plastic part needs a positive, finite stiffness")
+    Yt = yield_tension if carries_tension else 0.0
+    Yc = yield_compression if carries_compression else 0.0
+    xs: list[float] = []
+    fs: list[float] = []
+    if math.isfinite(Yc):
+        xs.append(plastic - Yc / k)
+        fs.append(-Yc)
+    xs.append(plastic)
+    fs.append(0.0)
+    if math.isfinite(Yt):
+        xs.append(plastic + Yt / k)
+        fs.append(Yt)
+    if len(xs) == 1:  # elastic both ways: a line through the plastic offset
+        xs, fs = [plastic - 1.0, plastic], [-k, 0.0]
+        return Curve(np.array(xs), np.array(fs), k, k)
+    below = 0.0 if math.isfinite(Yc) else (k if carries_compression else 0.0)
+    above = 0.0 if math.isfinite(Yt) else (k if carries_tension else 0.0)
+    # zero-width segments (a side that carries nothing) are dropped
+    pts = [(x, f) for n, (x, f) in enumerate(zip(xs, fs, strict=True)) if n == 0 or x > xs[n - 1]]
+    if len(pts) == 1:
+        x0 = pts[0][0]
+        return Curve(np.array([x0 - 1.0, x0]), np.array([-below, 0.0]), below, above)
+    return Curve(np.array([p[0] for p in pts]), np.array([p[1] for p in pts]), below, above)
+
+
+def update_plastic(
+    k: float,
+    plastic: float,
+    elongation: float,
+    force: float,
+    yield_tension: float,
+    yield_compression: float,
+) -> float:
+    """New plastic elongation after a step: ``e - N/k`` where the part has yielded."""
+    if math.isfinite(yield_tension) and force >= yield_tension * (1 - 1e-12):
+        return max(plastic, elongation - yield_tension / k)
+    if math.isfinite(yield_compression) and force <= -yield_compression * (1 - 1e-12):
+        return min(plastic, elongation + yield_compression / k)
+    return plastic

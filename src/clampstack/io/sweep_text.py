@@ -1,0 +1,100 @@
+"""Readable rendering of a temperature sweep."""
+
+from __future__ import annotations
+
+import numpy as np
+
+from ..studies.sweep import C0, SweepResult
+from .text import CAUTION, UNIT_SYSTEMS, table
+
+MAX_ROWS = 25
+
+
+def sweep_text(r: SweepResult, units: str = "si") -> str:
+    """Verdict, limits, thermal changes and a table of the points (thinned to ~25 rows)."""
+    u = UNIT_SYSTEMS[units]
+    F = u.label("force")
+    T = r.temperature
+    out = [
+        r.spec.title,
+        f"Service temperature {T[0] - C0:g} .. {T[-1] - C0:g} degC, {T.size} points; "
+        f"assembly at {r.spec.service.assembly_temperature - C0:g} degC",
+        "",
+    ]
+    if np.all(r.ok):
+        out.append("RESULT: PASS - every check passes over the whole range")
+    else:
+        out.append(f"RESULT: FAIL - checks fail at {int((~r.ok).sum())} of {T.size} points")
+    for lim in r.limits:
+        where = (
+            "over the whole range"
+            if lim.fails == "whole range"
+            else f"{lim.fails} {lim.temperature - C0:.2f} degC"
+        )
+        out.append(f"  {lim.check} fails {where}")
+    out.append("")
+    out.append(
+        f"Thermal preload change (minimum preload, after embedding): "
+        f"{u.fmt('force', r.thermal_change_cold)} {F} at {T[0] - C0:g} degC, "
+        f"{u.fmt('force', r.thermal_change_hot)} {F} at {T[-1] - C0:g} degC"
+    )
+    out.append(
+        f"Assembly preload {u.fmt('force', r.assembly_range[0])} .. "
+        f"{u.fmt('force', r.assembly_range[1])} {F}"
+    )
+    out.append("")
+    idx = np.arange(T.size)
+    if T.size > MAX_ROWS:
+        idx = np.unique(np.round(np.linspace(0, T.size - 1, MAX_ROWS)).astype(int))
+    names = list(r.margins)
+    rows = []
+    for i in idx:
+        worst = min(names, key=lambda n: r.margins[n][i]) if names else ""
+        rows.append(
+            [
+                f"{T[i] - C0:.1f}",
+                u.fmt("force", r.preload_min[i]),
+                u.fmt("force", r.preload_max[i]),
+                u.fmt("force", r.residual_min[i]),
+                u.fmt("stress", r.bolt_stress_max[i]),
+                f"{worst} {r.margins[worst][i] * 100:+.1f} %" if worst else "",
+                "ok" if r.ok[i] else "FAIL",
+            ]
+        )
+    out.append(
+        table(
+            [
+                "T [degC]",
+                f"preload min [{F}]",
+                f"preload max [{F}]",
+                f"residual clamp min [{F}]",
+                f"bolt stress max [{u.label('stress')}]",
+                "smallest margin",
+                "",
+            ],
+            rows,
+            right=[True, True, True, True, True, False, False],
+        )
+    )
+    if T.size > MAX_ROWS:
+        out.append(f"  ({idx.size} of {T.size} points shown; --csv or --json for all)")
+    if r.cycle:
+        out.append("")
+        out.append("Cycle from the assembly temperature to each end of the range and back:")
+        for label, c in r.cycle.items():
+            msg = (
+                "no yielding, preload unchanged"
+                if c["permanent_loss_N"] <= 0
+                else f"yields ({', '.join(c['yielded'])}); permanent loss "
+                f"{u.fmt('force', c['permanent_loss_N'])} {F}"
+            )
+            out.append(
+                f"  {label} ({c['peak_temperature_degC']:g} degC): {msg}; preload after "
+                f"{u.fmt('force', c['preload_after_min_N'])} .. "
+                f"{u.fmt('force', c['preload_after_max_N'])} {F}"
+            )
+    for name, why in r.skipped.items():
+        out.append(f"  {name} switched off: {why}")
+    out.append("")
+    out.append(CAUTION)
+    return "\n".join(out)

@@ -1,0 +1,219 @@
+"""Resilience and free thermal elongation of a joint as functions of temperature.
+
+Every resilience of the joint is a sum of terms ``c_i / E_i(T_i)``: the bolt
+segments of VDI 2230-1 (5.1.1), the plate slices of the cone model or the
+Shigley frusta (5.1.2; the geometry, and so the cone angle, does not change
+with temperature, only the modulus), sleeves ``l/(E A)``.  The coefficients
+``c_i = delta_i E_i`` are computed once; a temperature scan then costs one
+table interpolation per part and a sum, vectorised over the temperature
+points (VDI 2230-1, 5.4.2.3: ``delta_T = delta E_RT / E_T``).
+
+Per-part temperatures: a part whose temperature was given keeps its difference
+from the joint's service temperature when the service temperature is scanned.
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+
+import numpy as np
+
+from ..components import bolt_resilience, plate_resiliences, wileman_1991
+from ..errors import InputError
+from .model import JointSpec, PartMaterial
+
+
+@dataclass(frozen=True)
+class _Term:
+    coef: float  # resilience times modulus [1/m]
+    material: PartMaterial
+    offset: float  # part temperature minus the joint's service temperature [K]
+    name: str
+
+
+class TemperatureModel:
+    """Bolt and clamped-part resilience and thermal elongation at any service temperature."""
+
+    def __init__(self, spec: JointSpec):
+        self.spec = spec
+        b = spec.bolt
+        thr = b.thread
+        T_srv = spec.service.temperature
+        T_ref = spec.service.assembly_temperature
+        self.T_assembly = T_ref
+        self.T_service = T_srv
+        lK = spec.clamp_length
+        shank = [(b.shank_length, b.shank_diameter or thr.d)] if b.shank_length > 0 else []
+        nut_mat = spec.nut.material if spec.nut else None
+        nut_T = spec.nut.temperature if spec.nut else b.temperature
+        tap = spec.tapped_hole
+        # the bolt's segments with a reference modulus of 1 Pa: resilience x E = coefficient
+        try:
+            bolt = bolt_resilience(
+                thr.d,
+                thr.P,
+                thr.d3,
+                1.0,
+                lK,
+                shank,
+                None if b.head == "stud" else b.head,
+                "tapped" if tap else "nut",
+                E_nut=1.0,
+                E_tapped=1.0,
+            )
+        except ValueError as err:
+            raise InputError(str(err), key="bolt") from None
+        bolt_terms = []
+        for seg in bolt.segments:
+            if seg.name in ("nut", "top nut"):
+                mat, T = nut_mat or b.material, nut_T
+            elif seg.name == "tapped hole":
+                assert tap is not None
+                mat, T = tap.material, tap.temperature
+            else:
+                mat, T = b.material, b.temperature
+            bolt_terms.append(_Term(seg.resilience, mat, T - T_srv, seg.name))
+        self.bolt_terms = tuple(bolt_terms)
+        self.bolt_segments = tuple((s.name, s.length) for s in bolt.segments)
+
+        plates = [lay for lay in spec.layers if lay.kind != "sleeve"]
+        clamp_terms = []
+        if plates:
+            dh = max(
+                (lay.hole for lay in spec.layers if lay.kind != "washer"),
+                default=spec.layers[0].hole,
+            )
+            # D'_A of the clamped plates (a washer's own diameter does not limit the cone)
+            ods = [
+                lay.outer_diameter for lay in plates if lay.outer_diameter and lay.kind == "plate"
+            ]
+            DA = min(ods) if ods else None
+            model = spec.clamp_model
+            try:
+                if model == "wileman":
+                    mats = {lay.material.name for lay in plates}
+                    if len(mats) != 1 or tap is not None:
+                        raise ValueError(
+                            "the Wileman (1991) fit covers through-bolted members of one material; "
+                            "use clamp_model vdi2230 or shigley"
+                        )
+                    plt = sum(lay.thickness for lay in plates)
+                    k1 = float(wileman_1991(thr.d, plt, 1.0, plates[0].family))
+                    clamp_terms.append(
+                        _Term(
+                            1.0 / k1,
+                            plates[0].material,
+                            plates[0].temperature - T_srv,
+                            "clamped (Wileman)",
+                        )
+                    )
+                else:
+                    unit = [(lay.thickness, 1.0, lay.family) for lay in plates]
+                    res = plate_resiliences(
+                        unit, b.bearing_diameter, dh, DA, model, tap is not None, thr.d, 1.0
+                    )
+                    for lay, r in zip(plates, res, strict=False):
+                        clamp_terms.append(
+                            _Term(float(r), lay.material, lay.temperature - T_srv, lay.name)
+                        )
+                    if len(res) > len(plates):  # Shigley: the tapped part's slab
+                        assert tap is not None
+                        clamp_terms.append(
+                            _Term(
+                                float(res[-1]), tap.material, tap.temperature - T_srv, "tapped part"
+                            )
+                        )
+            except ValueError as err:
+                raise InputError(
+                    str(err), key="clamp_model" if "Wileman" in str(err) else "clamped"
+                ) from None
+        for lay in spec.layers:
+            if lay.kind == "sleeve":
+                assert lay.outer_diameter is not None
+                area = math.pi / 4 * (lay.outer_diameter**2 - lay.hole**2)
+                clamp_terms.append(
+                    _Term(lay.thickness / area, lay.material, lay.temperature - T_srv, lay.name)
+                )
+        self.clamp_terms = tuple(clamp_terms)
+
+    # ------------------------------------------------------------------ moduli
+    @staticmethod
+    def _sum(terms: tuple[_Term, ...], T: np.ndarray) -> np.ndarray:
+        total = np.zeros_like(T)
+        for t in terms:
+            total = total + t.coef / _modulus(t.material, T + t.offset)
+        return total
+
+    def resiliences(self, T_service: float | np.ndarray) -> tuple[np.ndarray, np.ndarray]:
+        """``(delta_S, delta_P)`` [m/N] with the joint at service temperature(s) [K]."""
+        T = np.asarray(T_service, dtype=float)
+        return self._sum(self.bolt_terms, T), self._sum(self.clamp_terms, T)
+
+    def resiliences_at_assembly(self) -> tuple[float, float]:
+        """``(delta_S, delta_P)`` with every part at the assembly temperature."""
+        T = np.asarray(self.T_assembly)
+        dS = sum(t.coef / _modulus(t.material, T) for t in self.bolt_terms)
+        dP = sum(t.coef / _modulus(t.material, T) for t in self.clamp_terms)
+        return float(dS), float(dP)
+
+    def segment_resiliences(self, T_service: float | None = None) -> list[tuple[str, float, float]]:
+        """Bolt segments ``(name, length, resilience)``; at assembly temperature by default."""
+        out = []
+        for (name, length), t in zip(self.bolt_segments, self.bolt_terms, strict=True):
+            T = self.T_assembly if T_service is None else T_service + t.offset
+            out.append((name, length, float(t.coef / _modulus(t.material, np.asarray(T)))))
+        return out
+
+    # ------------------------------------------------------------------ expansion
+    def part_temperatures(self, T_service: float | np.ndarray) -> dict[str, np.ndarray]:
+        """Temperature of bolt and of every layer for service temperature(s) [K]."""
+        T = np.asarray(T_service, dtype=float)
+        s = self.spec
+        out = {"bolt": T + (s.bolt.temperature - self.T_service)}
+        for lay in s.layers:
+            out[lay.name] = T + (lay.temperature - self.T_service)
+        return out
+
+    def thermal(self, T_service: float | np.ndarray) -> tuple[np.ndarray, np.ndarray]:
+        """Free thermal elongation of bolt (over l_K) and clamped stack from assembly [m].
+
+        ``l_K (eps_S(T_S) - eps_S(T_0))`` and ``sum l_i (eps_i(T_i) - eps_i(T_0))`` with
+        ``eps = alpha_mean (T - 20 degC)`` (mean coefficients, as handbooks tabulate).
+        """
+        s = self.spec
+        T = np.asarray(T_service, dtype=float)
+        T0 = np.asarray(self.T_assembly)
+        b = s.bolt
+        lK = s.clamp_length
+        bolt = lK * (
+            _strain(b.material, T + (b.temperature - self.T_service)) - _strain(b.material, T0)
+        )
+        clamp = np.zeros_like(T)
+        for lay in s.layers:
+            clamp = clamp + lay.thickness * (
+                _strain(lay.material, T + (lay.temperature - self.T_service))
+                - _strain(lay.material, T0)
+            )
+        return bolt, clamp
+
+    def check_range(self, T_service: np.ndarray) -> None:
+        """InputError if any part's temperature leaves its material's data (no extrapolation)."""
+        T = np.asarray(T_service, dtype=float)
+        for t in (*self.bolt_terms, *self.clamp_terms):
+            _modulus(t.material, T + t.offset)
+        self.thermal(T)
+
+
+def _modulus(pm: PartMaterial, T: np.ndarray) -> np.ndarray:
+    if pm.modulus is not None:
+        return np.full(np.shape(T), pm.modulus) if np.ndim(T) else np.asarray(pm.modulus)
+    assert pm.material is not None
+    return np.asarray(pm.material.modulus(T))
+
+
+def _strain(pm: PartMaterial, T: np.ndarray) -> np.ndarray:
+    if pm.expansion is not None:
+        return pm.expansion * (T - 293.15)
+    assert pm.material is not None
+    return np.asarray(pm.material.thermal_strain(T))

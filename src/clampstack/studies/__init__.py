@@ -1,0 +1,1 @@
+"""Studies over many states: temperature sweeps (and, later, scatter and sizing)."""

@@ -1,0 +1,287 @@
+"""Temperature sweep: preload, clamp load, bolt stress and every check margin over a range.
+
+The joint's service temperature is scanned; parts with a temperature of their own
+keep their difference from the file's service temperature (a hot flange stays
+hotter than its bolt).  The states come from the closed form of the joint
+network (:func:`clampstack.joint.analysis.service_closed_form`, exact including
+separation and a slack bolt), vectorised over all temperature points; the
+checks from the same :func:`~clampstack.joint.analysis.evaluate_checks` that
+``clampstack check`` uses.  The temperatures where a check starts to fail are
+found by root finding (Brent's method, scipy.optimize.brentq) on the margin,
+not just the nearest grid point.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+from typing import Any
+
+import numpy as np
+
+from ..errors import InputError
+from ..joint.analysis import Prepared, evaluate_checks, margins, prepare, service_closed_form
+from ..joint.model import JointSpec
+
+C0 = 273.15
+
+
+@dataclass(frozen=True)
+class Limit:
+    """A temperature where a check changes from passing to failing."""
+
+    check: str
+    temperature: float  # K
+    fails: str  # "above", "below" (the side on which it fails) or "whole range"
+
+
+@dataclass(frozen=True)
+class SweepResult:
+    """Arrays over the temperature points (SI) and the limits found."""
+
+    spec: JointSpec
+    temperature: np.ndarray
+    preload_min: np.ndarray
+    preload_max: np.ndarray
+    residual_min: np.ndarray
+    bolt_load_max: np.ndarray
+    bolt_stress_max: np.ndarray
+    margins: dict[str, np.ndarray]
+    ok: np.ndarray
+    limits: tuple[Limit, ...]
+    preload_assembly: tuple[float, float]  # (min after embedding, max) at assembly temperature
+    assembly_range: tuple[float, float]  # assembly preload F_M,min, F_M,max
+    skipped: dict[str, str]
+    cycle: dict[str, Any] | None = None
+
+    @property
+    def thermal_change_cold(self) -> float:
+        """Minimum-branch preload at the cold end minus at assembly temperature [N]."""
+        return float(self.preload_min[0] - self.preload_assembly[0])
+
+    @property
+    def thermal_change_hot(self) -> float:
+        """Minimum-branch preload at the hot end minus at assembly temperature [N]."""
+        return float(self.preload_min[-1] - self.preload_assembly[0])
+
+    def to_dict(self) -> dict[str, Any]:
+        """JSON form per DESIGN.md (``sweep --json``)."""
+        names = list(self.margins)
+        points = []
+        for i, T in enumerate(self.temperature):
+            points.append(
+                {
+                    "temperature_degC": float(T - C0),
+                    "preload_min_N": float(self.preload_min[i]),
+                    "preload_max_N": float(self.preload_max[i]),
+                    "residual_clamp_load_min_N": float(self.residual_min[i]),
+                    "bolt_load_max_N": float(self.bolt_load_max[i]),
+                    "bolt_stress_max_MPa": float(self.bolt_stress_max[i] * 1e-6),
+                    "ok": bool(self.ok[i]),
+                    "margins": {n: _finite(self.margins[n][i]) for n in names},
+                }
+            )
+        out: dict[str, Any] = {
+            "title": self.spec.title,
+            "assembly_temperature_degC": self.spec.service.assembly_temperature - C0,
+            "assembly_preload_min_N": self.assembly_range[0],
+            "assembly_preload_max_N": self.assembly_range[1],
+            "points": points,
+            "limits": [
+                {"check": lim.check, "temperature_degC": lim.temperature - C0, "fails": lim.fails}
+                for lim in self.limits
+            ],
+            "thermal_change_cold_N": self.thermal_change_cold,
+            "thermal_change_hot_N": self.thermal_change_hot,
+            "skipped": self.skipped,
+            "ok": bool(np.all(self.ok)),
+        }
+        if self.cycle is not None:
+            out["cycle"] = self.cycle
+        return out
+
+    def to_csv(self) -> str:
+        """One row per temperature point, margins as columns."""
+        names = list(self.margins)
+        head = [
+            "temperature_degC",
+            "preload_min_N",
+            "preload_max_N",
+            "residual_clamp_load_min_N",
+            "bolt_load_max_N",
+            "bolt_stress_max_MPa",
+            "ok",
+            *(f"margin_{n}" for n in names),
+        ]
+        lines = [",".join(head)]
+        for i, T in enumerate(self.temperature):
+            vals = [
+                T - C0,
+                self.preload_min[i],
+                self.preload_max[i],
+                self.residual_min[i],
+                self.bolt_load_max[i],
+                self.bolt_stress_max[i] * 1e-6,
+            ]
+            row = [f"{v:.6g}" for v in vals] + [str(bool(self.ok[i])).lower()]
+            row += [f"{self.margins[n][i]:.6g}" for n in names]
+            lines.append(",".join(row))
+        return "\n".join(lines) + "\n"
+
+
+def _finite(x: float) -> float | None:
+    return float(x) if np.isfinite(x) else None
+
+
+def _evaluate(prep: Prepared, T: np.ndarray) -> dict[str, Any]:
+    """All states and check margins at service temperatures ``T`` [K] (vectorised)."""
+    s = prep.spec
+    srv = s.service
+    model = prep.model
+    dSa, dPa = prep.springs.delta_S, prep.springs.delta_P
+    dS, dP = model.resiliences(T)
+    phi = srv.load_height * dP / (dS + dP)
+    thb, thc = model.thermal(T)
+    FA_lo, FA_hi = srv.axial_load
+    alternating = FA_lo != FA_hi
+    res = {}
+    for name, FM, fz in (
+        ("min", prep.assembly_min, prep.embedding_amount),
+        ("max", prep.assembly_max, 0.0),
+    ):
+        FV = (FM * (dSa + dPa) - fz - (thb - thc)) / (dS + dP)
+        pre, clamp0 = service_closed_form(FV, phi, 0.0)
+        hi = service_closed_form(FV, phi, FA_hi)
+        lo = service_closed_form(FV, phi, FA_lo) if alternating else hi
+        res[name] = (pre, clamp0, hi, lo)
+    pre_min, clamp0_min, hi_min, lo_min = res["min"]
+    pre_max, _, hi_max, lo_max = res["max"]
+    bolt_max = np.maximum.reduce(
+        [np.full_like(T, prep.assembly_max), pre_max, hi_max[0], lo_max[0]]
+    )
+    residual = np.minimum(hi_min[1], lo_min[1])
+    separation = np.maximum(clamp0_min, 0.0) / (1 - phi)
+    amplitude = mean = None
+    if alternating:
+        amplitude = np.maximum(np.abs(hi_min[0] - lo_min[0]), np.abs(hi_max[0] - lo_max[0])) / (
+            2 * s.bolt.thread.As
+        )
+        mean = 0.5 * np.maximum(hi_min[0] + lo_min[0], hi_max[0] + lo_max[0])
+    T_bolt = T + (s.bolt.temperature - srv.temperature)
+    rows, _ = evaluate_checks(prep, T_bolt, bolt_max, amplitude, mean, residual, separation)
+    m = margins(rows)
+    return {
+        "pre_min": pre_min,
+        "pre_max": pre_max,
+        "residual": residual,
+        "bolt_max": bolt_max,
+        "margins": {k: np.broadcast_to(v, T.shape).astype(float) for k, v in m.items()},
+    }
+
+
+def sweep(
+    spec: JointSpec, T_low: float, T_high: float, step: float | None = None, cycle: bool = False
+) -> SweepResult:
+    """Sweep the service temperature from ``T_low`` to ``T_high`` [K] in steps of ``step`` [K]."""
+    if not T_high > T_low:
+        raise InputError("the temperature range must run from low to high", key="--temperature")
+    if step is None:
+        step = (T_high - T_low) / 100.0
+    if not step > 0:
+        raise InputError("the step must be greater than zero", key="--step")
+    n = int(np.floor((T_high - T_low) / step + 1e-9)) + 1
+    if n > 1_000_001:
+        raise InputError(f"{n} temperature points is too many (at most 1 000 001)", key="--step")
+    T = T_low + step * np.arange(n)
+    if T[-1] < T_high - 1e-9:
+        T = np.append(T, T_high)
+    prep = prepare(spec)
+    _check_range(prep, T)
+    ev = _evaluate(prep, T)
+    skipped = dict(spec.skips)
+    active = [k for k in ev["margins"] if k not in skipped]
+    ok = np.ones(T.shape, dtype=bool)
+    for k in active:
+        ok &= ev["margins"][k] >= -1e-9
+    at_asm = _evaluate(prep, np.array([spec.service.assembly_temperature]))
+    limits = _limits(prep, T, ev["margins"], active)
+    cyc = None
+    if cycle:
+        cyc = _cycles(prep, T_low, T_high)
+    return SweepResult(
+        spec=spec,
+        temperature=T,
+        preload_min=ev["pre_min"],
+        preload_max=ev["pre_max"],
+        residual_min=ev["residual"],
+        bolt_load_max=ev["bolt_max"],
+        bolt_stress_max=ev["bolt_max"] / prep.A0,
+        margins=ev["margins"],
+        ok=ok,
+        limits=limits,
+        preload_assembly=(float(at_asm["pre_min"][0]), float(at_asm["pre_max"][0])),
+        assembly_range=(prep.assembly_min, prep.assembly_max),
+        skipped=skipped,
+        cycle=cyc,
+    )
+
+
+def _check_range(prep: Prepared, T: np.ndarray) -> None:
+    """Every part's temperature must lie inside its material data (no extrapolation)."""
+    try:
+        prep.model.check_range(np.array([T[0], T[-1]]))
+        s = prep.spec
+        from ..catalog import yield_at_temperature
+
+        yield_at_temperature(
+            s.bolt.grade, np.array([T[0], T[-1]]) + (s.bolt.temperature - s.service.temperature)
+        )
+    except InputError as err:
+        raise InputError(err.detail, key="--temperature") from None
+
+
+def _limits(prep: Prepared, T: np.ndarray, m: dict[str, np.ndarray], active: list[str]) -> tuple:
+    """Pass/fail boundaries of every check, refined by Brent's method on the margin."""
+    from scipy.optimize import brentq
+
+    out = []
+    for name in active:
+        mm = m[name]
+        fail = mm < -1e-9
+        if not fail.any():
+            continue
+        if fail.all():
+            out.append(Limit(name, float(T[0]), "whole range"))
+            continue
+        idx = np.flatnonzero(fail[1:] != fail[:-1])
+        for i in idx:
+
+            def f(t: float, name: str = name) -> float:
+                return float(_evaluate(prep, np.array([t]))["margins"][name][0])
+
+            a, b = float(T[i]), float(T[i + 1])
+            fa, fb = f(a), f(b)
+            root = brentq(f, a, b, xtol=1e-9, rtol=1e-12) if fa * fb < 0 else (a if fa < 0 else b)
+            out.append(Limit(name, root, "above" if fail[i + 1] else "below"))
+    return tuple(sorted(out, key=lambda x: x.temperature))
+
+
+def _cycles(prep: Prepared, T_low: float, T_high: float) -> dict[str, Any]:
+    """Preload left after a cycle from assembly temperature to each end of the range and back."""
+    from ..joint.plastic import permanent_loss_cycle
+
+    out = {}
+    T0 = prep.spec.service.assembly_temperature
+    for label, Tp in (("cold", T_low), ("hot", T_high)):
+        if abs(Tp - T0) < 1e-9:
+            continue
+        c = permanent_loss_cycle(prep, T_peak=Tp)
+        out[label] = {
+            "peak_temperature_degC": Tp - C0,
+            "preload_before_min_N": c.preload_before[0],
+            "preload_before_max_N": c.preload_before[1],
+            "preload_after_min_N": c.preload_after[0],
+            "preload_after_max_N": c.preload_after[1],
+            "permanent_loss_N": c.permanent_loss,
+            "yielded": list(c.yielded),
+        }
+    return out

@@ -1,0 +1,67 @@
+"""Permanent preload loss from a heat cycle with an elastic-perfectly-plastic bolt.
+
+Hand calculation for the elastic-perfectly-plastic bar in parallel with an elastic
+member (any mechanics of materials text, e.g. Gere & Goodno, ch. 2, elastoplastic
+analysis of statically indeterminate bars): heating raises the bolt force elastically
+by dF_th; if F0 + dF_th exceeds the yield force Y the bolt stretches plastically by
+(F0 + dF_th - Y)(delta_S + delta_P); on cooling the force falls by dF_th along the
+elastic slope, so the preload left is Y - dF_th, a loss of F0 + dF_th - Y.
+"""
+
+from __future__ import annotations
+
+import pytest
+
+from clampstack.io.joint_input import joint_from_data
+from clampstack.joint import analyse
+from clampstack.joint.analysis import prepare
+from clampstack.joint.plastic import permanent_loss_cycle
+
+
+def joint(T_service: str, preload: str = "22 kN") -> dict:
+    # A2-70 (no elevated-temperature data: constant yield 450 MPa), constant moduli and
+    # expansion, n = 1, no embedding: the closed form above applies exactly.
+    return {
+        "bolt": {
+            "thread": "M10",
+            "grade": "A2-70",
+            "length": "50 mm",
+            "modulus": "200 GPa",
+            "expansion": "11e-6 / K",
+        },
+        "nut": {},
+        "clamped": [{"modulus": "70 GPa", "expansion": "23e-6 / K", "thickness": "35 mm"}],
+        "embedding": {"amount": "0 um"},
+        "tightening": {"method": "tension", "preload": preload, "scatter": 1.0},
+        "service": {"load_height": 1.0, "temperature": T_service},
+    }
+
+
+def test_elastic_cycle_returns_the_preload_exactly():
+    r = analyse(joint_from_data(joint("60 degC")))
+    c = r.cycle
+    assert c.yielded == ()
+    assert c.preload_after[1] == pytest.approx(c.preload_before[1], rel=1e-12)
+    assert c.permanent_loss == pytest.approx(0.0, abs=1e-9 * c.preload_before[1])
+
+
+def test_yielding_bolt_loses_the_hand_calculated_amount():
+    spec = joint_from_data(joint("150 degC"))
+    r = analyse(spec)
+    Y = 450e6 * r.A0  # ISO 3506-1 A2-70 Rp0.2 = 450 MPa (catalog), As of M10
+    F0 = 22e3
+    dF = r.thermal_change_max  # elastic thermal change, constant moduli
+    assert F0 + dF > Y  # the case yields
+    c = r.cycle
+    assert "bolt" in c.yielded
+    assert c.preload_after[1] == pytest.approx(Y - dF, rel=1e-9)
+    assert c.permanent_loss == pytest.approx(F0 + dF - Y, rel=1e-9)
+    # the peak of the path sits on the yield plateau
+    assert max(p[2] for p in c.path) == pytest.approx(Y, rel=1e-9)
+    assert any("permanent loss" in n for n in r.notes)
+
+
+def test_cycle_to_a_lower_peak_is_elastic_again():
+    prep = prepare(joint_from_data(joint("150 degC")))
+    low = permanent_loss_cycle(prep, T_peak=293.15 + 30)
+    assert low.permanent_loss == pytest.approx(0.0, abs=1e-6)
