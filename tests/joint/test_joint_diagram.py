@@ -189,3 +189,35 @@ def test_required_torque_gives_exactly_the_required_preload():
     data = base(tightening={"torque": f"{r.torque_required} N*m", "thread_friction": "0.10..0.14"})
     r2 = analyse(joint_from_data(data))
     assert r2.assembly_min == pytest.approx(r.required_assembly_min, rel=1e-9)
+
+
+def test_vdi_thermal_relation_with_temperature_dependent_moduli():
+    # VDI 2230-1, 5.4.2.3: F_V,T = [F_V (dS + dP) - (l_K a_S dT_S - sum l_i a_i dT_i)]
+    # / (dS,T + dP,T) with catalog moduli at temperature and mean expansion coefficients,
+    # evaluated by hand from the catalog and the springs, against the network result.
+    from clampstack.catalog import material
+
+    data = base(
+        bolt={"thread": "M12", "grade": "10.9", "length": "70 mm", "material": "steel-alloy"},
+        nut={"material": "steel-alloy"},
+        clamped=[
+            {"material": "aluminium-6082-T6", "thickness": "20 mm"},
+            {"material": "stainless", "thickness": "25 mm", "temperature": "140 degC"},
+        ],
+        service={"axial_load": "0 kN", "temperature": "110 degC"},
+    )
+    r = analyse(joint_from_data(data))
+    T0 = 293.15
+    Ts, Tst = 383.15, 413.15
+    bolt = material("steel-alloy")
+    al, ss = material("aluminium-6082-T6"), material("stainless")
+    lK = 0.045
+    free = (
+        lK * bolt.expansion(Ts) * (Ts - T0)
+        - 0.020 * al.expansion(Ts) * (Ts - T0)
+        - 0.025 * ss.expansion(Tst) * (Tst - T0)
+    )
+    a, s = r.springs, r.springs_service
+    FV = r.assembly_min - r.embedding_loss
+    expected = (FV * (a.delta_S + a.delta_P) - free) / (s.delta_S + s.delta_P) - FV
+    assert r.thermal_change == pytest.approx(expected, rel=1e-9)
