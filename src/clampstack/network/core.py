@@ -51,6 +51,7 @@ BEHAVIOURS = {"linear": LINEAR, "compression": COMPRESSION, "tension": TENSION, 
 _EPS_SLOPE = 1e-10  # relative stiffness given to a slack part in the Newton matrix only
 _BAND_BUDGET = 6e7  # use the banded Cholesky when n * (band + 1)**2 stays below this
 _MAX_ITER = 500
+_KINK = 1e-11  # relative residual accepted when a part sits on the kink of its law
 _POLISH = 1e-9  # one step of iterative refinement when the residual is above this (relative)
 
 
@@ -304,6 +305,16 @@ class Network:
         visits: dict[bytes, int] = {}
         iterations = 0
         while True:
+            if nonlinear and iterations > 0:
+                # equilibrium reached (a part may sit exactly on a kink of its law, where
+                # either neighbouring state is the same answer): done
+                scale = max(
+                    float(np.max(np.abs(f_ext), initial=0.0)),
+                    float(np.max(np.abs(force), initial=0.0)),
+                    1e-300,
+                )
+                if np.max(np.abs(resid), initial=0.0) <= _KINK * scale:
+                    break
             if iterations >= _MAX_ITER:
                 raise SolveError(
                     f"the contact iteration did not settle in {_MAX_ITER} steps "
