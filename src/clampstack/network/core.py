@@ -286,6 +286,8 @@ class Network:
                 low = float(np.min(slopes[slopes > 0]))
                 kscale = low if kscale == 0.0 else min(kscale, low)
         kscale = kscale if kscale > 0 else 1.0
+        # forces below what the stiffest part makes from a femtometre are round-off
+        force_floor = 1e-15 * float(np.max(self.k[self.behaviour != CURVE], initial=kscale))
         nonlinear = bool(np.any(self.behaviour != LINEAR))
 
         def state(uu: np.ndarray):
@@ -311,7 +313,7 @@ class Network:
                 scale = max(
                     float(np.max(np.abs(f_ext), initial=0.0)),
                     float(np.max(np.abs(force), initial=0.0)),
-                    1e-300,
+                    force_floor,
                 )
                 if np.max(np.abs(resid), initial=0.0) <= _KINK * scale:
                     break
