@@ -190,11 +190,37 @@ def sweep(
 
 
 @main.command()
-@click.argument("what", type=click.Choice(["threads", "grades", "materials"]))
+@click.argument("file", type=str)
+@click.option("--json", "as_json", is_flag=True, help="Machine-readable result on stdout.")
+@click.option(
+    "--units",
+    type=click.Choice(["si", "us"]),
+    default="si",
+    show_default=True,
+    help="Units of the readable output.",
+)
+@handle_errors
+def flange(file: str, as_json: bool, units: str) -> None:
+    """Analyse a gasketed flange in FILE: bolt loads, gasket window, passes (exit 1 on a fail)."""
+    from .flange import analyse_flange
+    from .io.flange_input import read_flange_file
+    from .io.flange_text import flange_text
+
+    doc, spec = read_flange_file(file)
+    result = _in_file(doc.path, analyse_flange, spec)
+    if as_json:
+        _print_json(result.to_dict())
+    else:
+        click.echo(flange_text(result, units))
+    sys.exit(EXIT_OK if result.ok else EXIT_FAIL)
+
+
+@main.command()
+@click.argument("what", type=click.Choice(["threads", "grades", "materials", "gaskets"]))
 @click.option("--json", "as_json", is_flag=True, help="Machine-readable listing on stdout.")
 @handle_errors
 def catalog(what: str, as_json: bool) -> None:
-    """List what the catalog holds (threads, grades, materials), with sources."""
+    """List what the catalog holds (threads, grades, materials, gaskets), with sources."""
     from .catalog import listing
     from .io.text import table
 
@@ -221,6 +247,51 @@ def demo(out_dir: str) -> None:
 
     for line in run_demo(out_dir):
         click.echo(line)
+
+
+@main.command()
+@click.argument("file", type=str)
+@click.option(
+    "-o",
+    "--output",
+    "out_dir",
+    default=".",
+    show_default=True,
+    metavar="DIR",
+    help="Folder to write the report into (created if missing).",
+)
+@click.option(
+    "--units",
+    type=click.Choice(["si", "us"]),
+    default="si",
+    show_default=True,
+    help="Units of the report.",
+)
+@click.option("--json", "as_json", is_flag=True, help="Print the verdict and the files as JSON.")
+@handle_errors
+def report(file: str, out_dir: str, units: str, as_json: bool) -> None:
+    """HTML calculation report of the joint in FILE, JSON and CSV beside it (exit 1 on a fail)."""
+    from .errors import InputError
+    from .io.files import write_files
+    from .io.joint_input import read_joint_file
+    from .joint import analyse
+    from .report import render_joint_report
+
+    doc, spec = read_joint_file(file)
+    result = _in_file(doc.path, analyse, spec)
+    files = _in_file(doc.path, render_joint_report, doc, result, units)  # all rendered first
+    try:
+        written = write_files(out_dir, files)
+    except OSError as err:
+        raise InputError(f"cannot write the report ({err.strerror})", source=out_dir) from None
+    page = next(p for p in written if p.suffix == ".html")
+    if as_json:
+        _print_json({"ok": result.ok, "report": str(page), "files": [str(p) for p in written]})
+    else:
+        click.echo(f"{'PASS' if result.ok else 'FAIL'}: {spec.title}")
+        click.echo(f"Report: {page}")
+        click.echo("Beside it: " + ", ".join(p.name for p in written if p != page))
+    sys.exit(EXIT_OK if result.ok else EXIT_FAIL)
 
 
 if __name__ == "__main__":  # pragma: no cover

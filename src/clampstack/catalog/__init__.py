@@ -18,12 +18,16 @@ Public API (SI units: m, m^2, Pa, 1/K, K)
 
 from __future__ import annotations
 
+from clampstack.catalog.gaskets import Gasket, gasket, gaskets
 from clampstack.catalog.grades import Grade, grade, grades, yield_at_temperature
 from clampstack.catalog.listing import KINDS, listing
 from clampstack.catalog.materials import Material, material, materials
 from clampstack.catalog.threads import Thread, thread, threads
 
 __all__ = [
+    "Gasket",
+    "gasket",
+    "gaskets",
     "yield_at_temperature",
     "KINDS",
     "Grade",

@@ -12,7 +12,7 @@ from clampstack.catalog.materials import ZERO_C, materials
 from clampstack.catalog.threads import threads
 from clampstack.errors import InputError
 
-KINDS = ("threads", "grades", "materials")
+KINDS = ("threads", "grades", "materials", "gaskets")
 
 _MM = 1e-3
 _MPA = 1e6
@@ -134,6 +134,12 @@ def _material_listing() -> tuple[list[str], list[list[str]]]:
     return header, rows
 
 
+def _gasket_listing() -> tuple[list[str], list[list[str]]]:
+    from clampstack.catalog.gaskets import gasket_listing
+
+    return gasket_listing()
+
+
 def listing(kind: str) -> tuple[list[str], list[list[str]]]:
     """Return a display table of one part of the catalog.
 
@@ -158,6 +164,7 @@ def listing(kind: str) -> tuple[list[str], list[list[str]]]:
         "threads": _thread_listing,
         "grades": _grade_listing,
         "materials": _material_listing,
+        "gaskets": _gasket_listing,
     }
     builder = builders.get(str(kind).strip().lower())
     if builder is None:

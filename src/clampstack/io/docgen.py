@@ -40,6 +40,7 @@ def schema_markdown(schema: Schema, heading: str, level: int = 3) -> str:
 def input_reference() -> str:
     """The whole input reference page (docs/input-reference.md)."""
     from .assembly_input import ASSEMBLY
+    from .flange_input import FLANGE_FILE
     from .joint_input import JOINT
 
     parts = [
@@ -65,6 +66,14 @@ def input_reference() -> str:
         "Every default that is applied is printed with the results.",
         "",
         schema_markdown(JOINT, "top level"),
+        "",
+        "## Gasketed flange (`clampstack flange`)",
+        "",
+        "`passes` is a list of percentages of the final target preload; `pattern` one of "
+        '`"cross"`, `"circular"`, `"custom"` (with `order`, bolt numbers from 1) or a list '
+        "with one pattern per pass.",
+        "",
+        schema_markdown(FLANGE_FILE, "top level"),
     ]
     return "\n".join(parts).rstrip() + "\n"
 

@@ -133,6 +133,7 @@ class Network:
     curves: dict[int, Curve] = field(default_factory=dict)
     fixed: np.ndarray | None = None  # bool per node
     prescribed: np.ndarray | None = None  # displacement of fixed nodes
+    curve_table: _CurveTable | None = None  # many curves as arrays (instead of ``curves``)
 
     # ------------------------------------------------------------------ build
     @staticmethod
@@ -146,6 +147,7 @@ class Network:
         gap: Sequence[float] | np.ndarray | None = None,
         curves: dict[int, Curve] | None = None,
         fixed: Sequence[int] | np.ndarray = (),
+        curve_table: _CurveTable | None = None,
         prescribed: Sequence[float] | np.ndarray | None = None,
     ) -> Network:
         """Build a network from arrays, one entry per part (validated)."""
@@ -164,7 +166,7 @@ class Network:
         pre = np.zeros(n_nodes)
         if prescribed is not None:
             pre[fixed_idx] = np.asarray(prescribed, dtype=float)
-        net = Network(n_nodes, ia, ja, ka, d0, beh, ga, dict(curves or {}), fx, pre)
+        net = Network(n_nodes, ia, ja, ka, d0, beh, ga, dict(curves or {}), fx, pre, curve_table)
         net.validate()
         return net
 
@@ -199,7 +201,10 @@ class Network:
             raise InputError("a part's free elongation or gap is not finite")
         if np.any(self.gap < 0):
             raise InputError("a gap is negative")
-        missing = [int(p) for p in np.flatnonzero(is_curve) if int(p) not in self.curves]
+        covered = set(self.curves)
+        if self.curve_table is not None:
+            covered |= {int(p) for p in self.curve_table.parts}
+        missing = [int(p) for p in np.flatnonzero(is_curve) if int(p) not in covered]
         if missing:
             raise InputError(f"part {missing[0]} is a curve part without a curve")
         if self.fixed is None or not self.fixed.any():
@@ -215,6 +220,15 @@ class Network:
 
     def unheld_groups(self) -> list[np.ndarray]:
         """Groups of nodes joined to no fixed node at all (each an array of node ids)."""
+        key = (self.i, self.j, self.fixed)
+        cached = getattr(self, "_unheld_cache", None)
+        if cached is not None and all(a is b for a, b in zip(cached[0], key, strict=True)):
+            return cached[1]
+        groups = self._unheld_groups()
+        object.__setattr__(self, "_unheld_cache", (key, groups))
+        return groups
+
+    def _unheld_groups(self) -> list[np.ndarray]:
         count, label = self.components()
         held = np.zeros(count, dtype=bool)
         held[label[self.fixed]] = True
@@ -240,12 +254,22 @@ class Network:
                 force[tens] = np.where(act, k[tens] * et, 0.0)
                 slope[tens] = np.where(act, k[tens], 0.0)
             energy = 0.5 * force * force / np.where(slope > 0, slope, 1.0)
-            for p, curve in self.curves.items():
-                f_, s_, w_ = curve.evaluate(np.array([e[p]]))
-                force[p], slope[p], energy[p] = f_[0], s_[0], w_[0]
+            if self.curves or self.curve_table is not None:
+                table = self._curve_table()
+                f_, s_, w_ = table.evaluate(e[table.parts])
+                force[table.parts], slope[table.parts], energy[table.parts] = f_, s_, w_
         else:
             energy = 0.5 * k * e * e
         return force, slope, energy
+
+    def _curve_table(self) -> _CurveTable:
+        if self.curve_table is not None:
+            return self.curve_table
+        cached = getattr(self, "_table_cache", None)
+        if cached is None or cached[0] is not self.curves or cached[1] != len(self.curves):
+            cached = (self.curves, len(self.curves), _CurveTable.build(self.curves))
+            object.__setattr__(self, "_table_cache", cached)
+        return cached[2]
 
     # ------------------------------------------------------------------ solve
     def solve(
@@ -280,6 +304,11 @@ class Network:
         # small against every real spring, so refinement converges fast
         positive = self.k[(self.behaviour != CURVE) & (self.k > 0)]
         kscale = float(np.min(positive)) if positive.size else 0.0
+        if self.curve_table is not None:
+            tab = np.abs(self.curve_table.seg)
+            if np.any(tab > 0):
+                low = float(np.min(tab[tab > 0]))
+                kscale = low if kscale == 0.0 else min(kscale, low)
         for c in self.curves.values():
             slopes = np.abs(np.diff(c.f) / np.diff(c.x))
             if np.any(slopes > 0):
@@ -372,7 +401,18 @@ class Network:
         # a group that is held only through slack parts and carries a net load
         # would fly off: report it instead of returning a huge displacement
         if nonlinear:
-            self._check_mechanism(slope, f_ext)
+            scale = max(
+                float(np.max(np.abs(f_ext), initial=0.0)),
+                float(np.max(np.abs(force), initial=0.0)),
+                force_floor,
+            )
+            if np.max(np.abs(resid), initial=0.0) > 1e-6 * scale:
+                # far from equilibrium: a group held only by slack parts is the usual cause
+                self._check_mechanism(slope, f_ext)
+                raise SolveError(
+                    f"no equilibrium found (residual {np.max(np.abs(resid)):.3g} of a load scale "
+                    f"{scale:.3g}); check the supports, gaps and contact parts"
+                )
         internal = np.bincount(self.j, force, n) - np.bincount(self.i, force, n)
         reactions = np.where(self.fixed, internal - f_ext, 0.0)
         resid = f_ext + reactions - internal
@@ -415,6 +455,89 @@ class Network:
                 f"nodes {names} carry a load of {net_load[bad[0]]:.6g} but every part that could "
                 "hold them has gone slack (a mechanism); add a support or a part that carries it"
             )
+
+
+@dataclass(frozen=True)
+class _CurveTable:
+    """All curve parts of a network as padded arrays, evaluated in one vectorised pass."""
+
+    parts: np.ndarray  # part index per row
+    x: np.ndarray  # (rows, m) breakpoints, padded with +inf
+    f: np.ndarray  # (rows, m) forces, padded with the last force
+    w: np.ndarray  # (rows, m) energy at each breakpoint from x[:, 0]
+    seg: np.ndarray  # (rows, m + 1) slope of each segment (below, between, above)
+    count: np.ndarray  # breakpoints per row
+
+    @staticmethod
+    def build(curves: dict[int, Curve]) -> _CurveTable:
+        parts = np.array(sorted(curves), dtype=np.int64)
+        m = max(curves[p].x.size for p in parts)
+        rows = parts.size
+        x = np.full((rows, m), np.inf)
+        f = np.zeros((rows, m))
+        w = np.zeros((rows, m))
+        seg = np.zeros((rows, m + 1))
+        count = np.zeros(rows, dtype=np.int64)
+        for r, p in enumerate(parts):
+            c = curves[int(p)]
+            n = c.x.size
+            slopes, energy, _ = c._segments()
+            x[r, :n], f[r, :n], f[r, n:] = c.x, c.f, c.f[-1]
+            w[r, :n], w[r, n:] = energy, energy[-1]
+            seg[r, : n + 1], seg[r, n + 1 :] = slopes, slopes[-1]
+            count[r] = n
+        return _CurveTable(parts, x, f, w, seg, count)
+
+    @staticmethod
+    def from_arrays(
+        parts: np.ndarray,
+        x: np.ndarray,
+        f: np.ndarray,
+        slope_below: np.ndarray,
+        slope_above: np.ndarray,
+    ) -> _CurveTable:
+        """Many curves at once: rows of breakpoints ``x`` (ascending, +inf padding allowed)
+        and forces ``f``; end slopes per row.  No Python loop over the rows."""
+        x = np.asarray(x, dtype=float)
+        f = np.asarray(f, dtype=float)
+        rows, m = x.shape
+        finite = np.isfinite(x)
+        count = finite.sum(axis=1)
+        if np.any(count < 1):
+            raise InputError("a curve needs at least one point")
+        last = count - 1
+        r = np.arange(rows)
+        f = np.where(finite, f, f[r, last][:, None])
+        with np.errstate(invalid="ignore"):  # inf - inf in the padding
+            dx = np.diff(x, axis=1)
+        with np.errstate(invalid="ignore", divide="ignore"):
+            inner = np.where(
+                np.isfinite(dx) & (dx > 0),
+                np.diff(f, axis=1) / np.where(np.isfinite(dx) & (dx > 0), dx, 1.0),
+                0.0,
+            )
+        seg = np.zeros((rows, m + 1))
+        seg[:, 0] = slope_below
+        seg[:, 1:m] = inner
+        # segments from the last real point on carry the slope above
+        cols = np.arange(m + 1)[None, :]
+        seg = np.where(cols >= count[:, None], np.asarray(slope_above, float)[:, None], seg)
+        area = np.where(
+            np.isfinite(dx), 0.5 * (f[:, 1:] + f[:, :-1]) * np.where(np.isfinite(dx), dx, 0.0), 0.0
+        )
+        w = np.concatenate((np.zeros((rows, 1)), np.cumsum(area, axis=1)), axis=1)
+        return _CurveTable(np.asarray(parts, dtype=np.int64), x, f, w, seg, count)
+
+    def evaluate(self, e: np.ndarray) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
+        """Force, slope and energy of each row at elongation ``e`` (one value per row)."""
+        idx = np.sum(self.x <= e[:, None], axis=1)  # 0 below x[0], n above x[n-1]
+        rows = np.arange(idx.size)
+        base = np.clip(idx - 1, 0, self.count - 1)
+        s = self.seg[rows, idx]
+        de = e - self.x[rows, base]
+        force = self.f[rows, base] + s * de
+        energy = self.w[rows, base] + self.f[rows, base] * de + 0.5 * s * de * de
+        return force, s, energy
 
 
 @dataclass(frozen=True)

@@ -1,0 +1,819 @@
+"""Gasketed flange: ASME VIII-1 Appendix 2 bolt loads, gasket stress window, tightening passes.
+
+Model (our own, stated in docs/theory.md):
+
+* **Ring network.**  N bolt sectors; node ``U_i`` is the flange ring at bolt i,
+  node ``F_i`` the flange face over the gasket in sector i, node ``P`` the plane
+  of symmetry of an identical flange pair (or the rigid mating face), fixed.
+  Per sector: the bolt ``P-U_i`` (tension only; for a pair the half bolt,
+  stiffness ``2/delta_S``), the flange plate under the bolt ``U_i-F_i``
+  (VDI 2230-1 cone over the flange thickness), the gasket sector ``P-F_i``
+  (compression only, non-linear, history dependent).  Neighbouring bolts are
+  coupled through the ring, ``U_i-U_i+1``, with the stiffness of a fixed-guided
+  beam of the ring's cross-section over one bolt pitch, ``12 E I / s^3``
+  (Roark's Formulas for Stress and Strain, beam table, fixed-guided end; from
+  memory).  This is what makes tightening one bolt unload its neighbours.
+* **Gasket.**  Stress against compression strain from the gasket's loading
+  curve; on unloading it springs back along the stiffer unloading modulus from
+  the largest compression reached; reloading follows the same line back up.
+* **Loads.**  Hydrostatic end force ``H = pi/4 G^2 P`` and external axial force
+  shared equally, bending moment as ``4 M cos(theta_i) / (N D_bc)`` per bolt,
+  all applied to the flange face ``F_i``.
+
+Bolt loads follow ASME BPVC VIII-1 Appendix 2 (2-5): ``b0 = N/2`` for a flat
+ring gasket on a raised face, ``b = b0`` for ``b0 <= 1/4 in``, else
+``b = 0.5 sqrt(b0)`` (inches); ``G`` the mean contact diameter, or the contact
+OD minus ``2b``; ``H = 0.785 G^2 P``, ``H_p = 2 b pi G m P``,
+``W_m1 = H + H_p``, ``W_m2 = pi b G y``, ``A_m = max(W_m1/S_b, W_m2/S_a)``.
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass, field
+from typing import Any
+
+import numpy as np
+
+from ..catalog import yield_at_temperature
+from ..components import (
+    bolt_resilience,
+    clamped_resilience,
+    permissible_preload,
+    tightening_factor,
+)
+from ..errors import InputError
+from ..joint.checks import Check
+from ..network import CURVE, LINEAR, TENSION, Network
+from ..network.core import _CurveTable
+from .model import FlangeSpec
+
+INCH = 0.0254
+PCC1_RANGE = (0.40, 0.70)  # ASME PCC-1 practice: assembly bolt stress / yield (from memory)
+
+
+# --------------------------------------------------------------------------- ASME App. 2
+
+
+@dataclass(frozen=True)
+class App2:
+    """ASME BPVC VIII-1 Appendix 2 quantities (SI)."""
+
+    b0: float
+    b: float
+    G: float
+    H: float
+    Hp: float
+    Wm1: float
+    Wm2: float
+    Am: float
+    Ab: float
+
+
+def asme_app2(spec: FlangeSpec) -> App2:
+    """Operating and seating bolt loads and bolt areas, ASME BPVC VIII-1 Appendix 2, 2-5."""
+    g = spec.gasket
+    width = 0.5 * (g.outer_diameter - g.inner_diameter)
+    b0 = 0.5 * width  # Table 2-5.2, sketch (1a): flat ring on a raised face
+    if b0 <= 0.25 * INCH:
+        b = b0
+        G = 0.5 * (g.outer_diameter + g.inner_diameter)
+    else:
+        b = 0.5 * math.sqrt(b0 / INCH) * INCH
+        G = g.outer_diameter - 2 * b
+    P = spec.pressure
+    H = 0.785 * G**2 * P
+    Hp = 2 * b * 3.14 * G * g.m * P
+    Wm1 = H + Hp
+    Wm2 = 3.14 * b * G * g.y
+    Am = max(Wm1 / spec.allowable_stress, Wm2 / spec.allowable_stress_ambient)
+    Ab = spec.bolt_count * math.pi / 4 * spec.thread.d3**2  # root area of the thread
+    return App2(b0, b, G, H, Hp, Wm1, Wm2, Am, Ab)
+
+
+# --------------------------------------------------------------------------- cross pattern
+
+
+def cross_order(n: int) -> list[int]:
+    """Star (cross) tightening order for n bolts, 0-based.
+
+    Greedy: the next bolt is the one farthest (angularly) from every bolt already
+    tightened; ties go to the bolt most nearly opposite the last one, then to the
+    lower number.  For 8 bolts this gives 1-5-3-7-2-6-4-8, the usual star pattern
+    (ASME PCC-1 legacy pattern; common practice).
+    """
+    done = [0]
+    left = set(range(1, n))
+    while left:
+
+        def dist(a: int, b: int) -> int:
+            d = abs(a - b) % n
+            return min(d, n - d)
+
+        last = done[-1]
+        best = max(left, key=lambda c: (min(dist(c, d) for d in done), dist(c, last), -c))
+        done.append(best)
+        left.remove(best)
+    return done
+
+
+# --------------------------------------------------------------------------- the ring model
+
+
+@dataclass
+class Ring:
+    """The flange ring network and its state (gasket history, bolt misfits)."""
+
+    spec: FlangeSpec
+    n: int
+    k_bolt: float  # per bolt in the model (half bolt for a pair)
+    k_flange: float
+    k_ring: float
+    gasket_thickness: float  # in the model (half for a pair)
+    sector_area: float
+    node_U: np.ndarray
+    node_F: np.ndarray
+    n_nodes: int
+    bolt_free: np.ndarray  # free elongation (misfit) of each bolt part [m]
+    c_max: np.ndarray  # largest gasket compression reached per sector [m]
+    thermal_bolt: float = 0.0
+    thermal_flange: float = 0.0
+    scale_k: tuple[float, float] = (1.0, 1.0)  # modulus ratio (bolt, flange) at temperature
+    solves: int = 0
+    last_u: np.ndarray | None = None  # previous displacements: the next solve starts there
+
+    # ---- structure
+    def _parts(self, skip_bolt: int | None = None):
+        n = self.n
+        bolts = [i for i in range(n) if i != skip_bolt]
+        i_nodes = [0] * len(bolts) + list(self.node_U) + [0] * n + list(self.node_U)
+        j_nodes = (
+            list(self.node_U[bolts])
+            + list(self.node_F)
+            + list(self.node_F)
+            + list(np.roll(self.node_U, -1))
+        )
+        kb = self.k_bolt * self.scale_k[0]
+        kf = self.k_flange * self.scale_k[1]
+        kr = self.k_ring * self.scale_k[1]
+        k = [kb] * len(bolts) + [kf] * n + [1.0] * n + [kr] * n
+        d0 = (
+            list(self.bolt_free[bolts] + self.thermal_bolt)
+            + [self.thermal_flange] * n
+            + [0.0] * n
+            + [0.0] * n
+        )
+        beh = [TENSION] * len(bolts) + [LINEAR] * n + [CURVE] * n + [LINEAR] * n
+        gasket_parts = np.arange(len(bolts) + n, len(bolts) + 2 * n)
+        return bolts, i_nodes, j_nodes, k, d0, beh, gasket_parts
+
+    def gasket_table(
+        self, parts: np.ndarray, controlled: tuple[int, float] | None = None
+    ) -> _CurveTable:
+        """Sector laws with their unloading history, as one vectorised curve table.
+
+        ``controlled = (part, force)`` adds one row of constant force (a bolt held at its
+        target while it is tightened)."""
+        g = self.spec.gasket
+        t = self.gasket_thickness
+        A = self.sector_area
+        cs = np.asarray(g.curve_strain) * t  # compressions on the loading curve
+        Fs = np.asarray(g.curve_stress) * A
+        k_un = g.unload_modulus * A / t
+        n = self.n
+        c_max = self.c_max
+        # force on the loading curve at the largest compression reached (extrapolated)
+        last_slope = (Fs[-1] - Fs[-2]) / (cs[-1] - cs[-2])
+        F_at = np.where(
+            c_max <= cs[-1], np.interp(c_max, cs, Fs), Fs[-1] + last_slope * (c_max - cs[-1])
+        )
+        # unloading line: from (c_max, F_at) down to zero at c_max - F_at/k_un
+        c0 = np.maximum(c_max - F_at / k_un, 0.0)
+        m = cs.size + 2
+        X = np.full((n, m), np.inf)
+        Fv = np.zeros((n, m))
+        # loading points beyond c_max, as elongations (x = -c), ascending
+        keep = cs[None, ::-1] > c_max[:, None]  # (n, len) in descending compression
+        X[:, : cs.size] = np.where(keep, -cs[None, ::-1], np.inf)
+        Fv[:, : cs.size] = np.where(keep, -Fs[None, ::-1], 0.0)
+        has_hist = c_max > 0
+        X[:, cs.size] = np.where(has_hist, -c_max, np.inf)
+        Fv[:, cs.size] = np.where(has_hist, -F_at, 0.0)
+        X[:, cs.size + 1] = np.where(has_hist, -c0, 0.0)
+        Fv[:, cs.size + 1] = 0.0
+        order = np.argsort(X, axis=1, kind="stable")
+        X = np.take_along_axis(X, order, axis=1)
+        Fv = np.take_along_axis(Fv, order, axis=1)
+        below = np.full(n, last_slope)
+        above = np.zeros(n)
+        if controlled is not None:
+            row_x = np.full((1, m), np.inf)
+            row_x[0, 0] = 0.0
+            X = np.vstack((X, row_x))
+            Fv = np.vstack((Fv, np.full((1, m), controlled[1])))
+            parts = np.append(parts, controlled[0])
+            below, above = np.append(below, 0.0), np.append(above, 0.0)
+        return _CurveTable.from_arrays(parts, X, Fv, below, above)
+
+    def _network(self) -> Network:
+        """The ring network with every part in place (built once, updated in place)."""
+        net = getattr(self, "_net", None)
+        if net is None:
+            _, i_n, j_n, k, d0, beh, gparts = self._parts(None)
+            net = Network.from_arrays(
+                self.n_nodes, i_n, j_n, k, d0, beh, fixed=[0], curve_table=self.gasket_table(gparts)
+            )
+            self._net = net
+        return net
+
+    def solve(self, loads_F: np.ndarray, controlled: tuple[int, float] | None = None):
+        """Solve the ring; ``controlled = (bolt, force)`` holds that bolt at a given force."""
+        n = self.n
+        net = self._network()
+        base = getattr(self, "_base", None)
+        if base is None or base[0] != self.scale_k:
+            kb = self.k_bolt * self.scale_k[0]
+            kf = self.k_flange * self.scale_k[1]
+            kr = self.k_ring * self.scale_k[1]
+            k = np.concatenate((np.full(n, kb), np.full(n, kf), np.ones(n), np.full(n, kr)))
+            b0 = np.concatenate(
+                (np.full(n, TENSION), np.full(n, LINEAR), np.full(n, CURVE), np.full(n, LINEAR))
+            ).astype(np.int8)
+            base = self._base = (self.scale_k, k, b0)
+        net.k = base[1]
+        free = np.zeros(4 * n)
+        free[:n] = self.bolt_free + self.thermal_bolt
+        free[n : 2 * n] = self.thermal_flange
+        net.free_elongation = free
+        beh = base[2].copy()
+        gparts = np.arange(2 * n, 3 * n)
+        if controlled is not None:
+            # the bolt being tightened carries exactly the target: a constant-force law
+            beh[controlled[0]] = CURVE
+        net.behaviour = beh
+        net.curve_table = self.gasket_table(gparts, controlled)
+        loads = np.zeros(self.n_nodes)
+        loads[self.node_F] += loads_F
+        sol = net.solve(loads, start=self.last_u)
+        self.solves += 1
+        u = sol.displacement
+        self.last_u = u
+        comp = np.maximum(-u[self.node_F], 0.0)
+        self.c_max = np.maximum(self.c_max, comp)
+        bolt_force = sol.force[:n].copy()
+        gasket_force = -sol.force[gparts]
+        return u, bolt_force, gasket_force, sol
+
+    def tighten(self, bolt: int, target: float, loads_F: np.ndarray) -> np.ndarray:
+        """Turn one nut until its bolt carries ``target`` (never loosen); bolt forces after."""
+        u, forces, _, _ = self.solve(loads_F, (bolt, target))
+        new_free = (
+            u[self.node_U[bolt]] - target / (self.k_bolt * self.scale_k[0]) - (self.thermal_bolt)
+        )
+        if new_free < self.bolt_free[bolt]:
+            self.bolt_free[bolt] = new_free
+            return forces
+        # already tighter than the target: the nut does not turn
+        return self.solve(loads_F)[1]
+
+
+def build_ring(spec: FlangeSpec) -> Ring:
+    """Stiffnesses of the ring model (SI) and an untightened state."""
+    n = spec.bolt_count
+    thr = spec.thread
+    g = spec.gasket
+    pair = spec.mating == "flange"
+    t = spec.thickness
+    E_b = spec.bolt_material.E(spec.T_assembly)
+    E_f = spec.material.E(spec.T_assembly)
+    lK = (2 * t if pair else t) + g.thickness
+    try:
+        dS = bolt_resilience(
+            thr.d,
+            thr.P,
+            thr.d3,
+            E_b,
+            lK,
+            (),
+            None if pair else "hex",
+            "nut" if pair else "tapped",
+            E_nut=E_b,
+            E_tapped=E_f,
+        ).total
+        ring_width = 0.5 * (spec.ring_outer_diameter - spec.ring_inner_diameter)
+        DA = max(ring_width, spec.bearing_diameter * 1.0001)
+        dF = float(clamped_resilience([(t, E_f, "steel")], spec.bearing_diameter, spec.hole, DA))
+    except ValueError as err:
+        raise InputError(str(err), key="flange") from None
+    k_bolt = (2.0 if pair else 1.0) / dS  # half bolt in the half model of a pair
+    pitch = math.pi * spec.bolt_circle / n
+    I_ring = ring_width * t**3 / 12
+    k_ring = 12 * E_f * I_ring / pitch**3
+    # node numbering: zig-zag round the ring keeps the stiffness matrix narrow
+    zig = []
+    lo, hi = 0, n - 1
+    while lo <= hi:
+        zig.append(lo)
+        if hi != lo:
+            zig.append(hi)
+        lo, hi = lo + 1, hi - 1
+    pos = np.empty(n, dtype=np.int64)
+    pos[zig] = np.arange(n)
+    node_U = 1 + 2 * pos
+    node_F = 2 + 2 * pos
+    return Ring(
+        spec=spec,
+        n=n,
+        k_bolt=k_bolt,
+        k_flange=1.0 / dF,
+        k_ring=k_ring,
+        gasket_thickness=g.thickness / 2 if pair else g.thickness,
+        sector_area=g.area / n,
+        node_U=node_U,
+        node_F=node_F,
+        n_nodes=2 * n + 1,
+        bolt_free=np.zeros(n),
+        c_max=np.zeros(n),
+    )
+
+
+def working_loads(spec: FlangeSpec, G: float) -> np.ndarray:
+    """Axial working load per bolt [N]: (H + F)/N + 4 M cos(theta_i)/(N D_bc)."""
+    n = spec.bolt_count
+    theta = 2 * math.pi * np.arange(n) / n
+    H = math.pi / 4 * G**2 * spec.pressure
+    return (H + spec.axial_force) / n + 4 * spec.bending_moment * np.cos(theta) / (
+        n * spec.bolt_circle
+    )
+
+
+# --------------------------------------------------------------------------- sequences
+
+
+def pass_orders(spec: FlangeSpec) -> list[list[int]]:
+    """The bolt order of every pass (0-based)."""
+    out = []
+    for pattern in spec.patterns:
+        if pattern == "cross":
+            out.append(cross_order(spec.bolt_count))
+        elif pattern == "circular":
+            out.append(list(range(spec.bolt_count)))
+        else:
+            assert spec.order is not None
+            out.append(list(spec.order))
+    return out
+
+
+def simulate_passes(
+    ring: Ring, targets: np.ndarray, fractions: tuple[float, ...], orders: list[list[int]]
+) -> list[np.ndarray]:
+    """Tighten pass after pass (each bolt to its fraction of its target); forces after each."""
+    zero = np.zeros(ring.n)
+    out = []
+    forces = np.zeros(ring.n)
+    for frac, order in zip(fractions, orders, strict=True):
+        for b in order:
+            forces = ring.tighten(b, frac * targets[b], zero)
+        out.append(forces.copy())
+    return out
+
+
+def compensated_targets(
+    spec: FlangeSpec, F_final: float, order: list[int]
+) -> tuple[np.ndarray, np.ndarray]:
+    """Per-bolt targets of one pass in ``order`` that end with every bolt at ``F_final``.
+
+    Linear inverse problem: with the bolt-force sensitivity ``C = dF/dd0`` of the
+    ring (tangent at the uniform final state), tightening bolt j sets its misfit
+    so that its force is t_j given the bolts before it; the final forces are
+    ``F = C m`` and ``t = L m`` with ``L`` the part of ``C`` on and before the
+    diagonal in tightening order, so ``t = L C^-1 F_final``.  The gasket is not
+    linear: the targets are corrected by simulating the pass and repeating
+    (at most 8 times) until the spread is below 1e-4.  Returns (targets, final forces).
+    """
+    ring = build_ring(spec)
+    n = ring.n
+    # uniform final state: every bolt at F_final
+    u, _, _, _ = _uniform_state(ring, F_final)
+    C = _sensitivity(ring, u)
+    pos = np.empty(n, dtype=np.int64)
+    pos[order] = np.arange(n)
+    before = pos[None, :] <= pos[:, None]  # bolt k tightened no later than bolt j
+    L = np.where(before, C, 0.0)
+    want = np.full(n, F_final)
+    m = np.linalg.solve(C, want)
+    t = L @ m
+    final = np.zeros(n)
+    for _ in range(8):
+        r = build_ring(spec)
+        final = simulate_passes(r, t, (1.0,), [order])[-1]
+        err = want - final
+        if np.max(np.abs(err)) <= 1e-4 * F_final:
+            break
+        t = t + L @ np.linalg.solve(C, err)
+    return t, final
+
+
+def _uniform_state(ring: Ring, F: float):
+    """Solve the ring with every bolt replaced by the force F (a fresh ring)."""
+    bolts, i_n, j_n, k, d0, beh, gparts = ring._parts(None)
+    nb = len(bolts)
+    keep = np.ones(len(k), dtype=bool)
+    keep[:nb] = False
+    loads = np.zeros(ring.n_nodes)
+    loads[ring.node_U] -= F
+    table = ring.gasket_table(gparts - nb)
+    net = Network.from_arrays(
+        ring.n_nodes,
+        np.array(i_n)[keep],
+        np.array(j_n)[keep],
+        np.array(k)[keep],
+        np.array(d0)[keep],
+        np.array(beh)[keep],
+        fixed=[0],
+        curve_table=table,
+    )
+    sol = net.solve(loads)
+    return sol.displacement, None, None, sol
+
+
+def _sensitivity(ring: Ring, u: np.ndarray) -> np.ndarray:
+    """Tangent bolt-force sensitivity C = dF_bolt/d(misfit) at displacements u (dense)."""
+    n = ring.n
+    N = ring.n_nodes
+    K = np.zeros((N, N))
+
+    def add(a, b, kk):
+        K[a, a] += kk
+        K[b, b] += kk
+        K[a, b] -= kk
+        K[b, a] -= kk
+
+    kb = ring.k_bolt
+    g = ring.spec.gasket
+    t = ring.gasket_thickness
+    comp = np.maximum(-u[ring.node_F], 0.0)
+    cs = np.asarray(g.curve_strain) * t
+    Fs = np.asarray(g.curve_stress) * ring.sector_area
+    slopes = np.diff(Fs) / np.diff(cs)
+    idx = np.clip(np.searchsorted(cs, comp, side="right") - 1, 0, slopes.size - 1)
+    kg = slopes[idx]
+    for i in range(n):
+        add(0, ring.node_U[i], kb)
+        add(ring.node_U[i], ring.node_F[i], ring.k_flange)
+        add(0, ring.node_F[i], kg[i])
+        add(ring.node_U[i], ring.node_U[(i + 1) % n], ring.k_ring)
+    free = np.arange(1, N)
+    Kinv = np.linalg.inv(K[np.ix_(free, free)])
+    U = ring.node_U - 1
+    # F = k (u_U - d0), K u = k d0 at U  ->  C = k^2 Kinv_UU - k I
+    return kb * kb * Kinv[np.ix_(U, U)] - kb * np.eye(n)
+
+
+# --------------------------------------------------------------------------- analysis
+
+
+@dataclass(frozen=True)
+class FlangeResult:
+    """Everything ``clampstack flange`` reports (SI floats)."""
+
+    spec: FlangeSpec
+    app2: App2
+    window: tuple[float, float]  # per-bolt preload window (low, high) [N]
+    window_reasons: tuple[str, str]
+    target: float  # nominal per-bolt preload of the final pass [N]
+    assembly_range: tuple[float, float]
+    permissible_preload: float
+    alpha_A: float
+    torque: tuple[float, float, float] | None
+    passes: list[np.ndarray]
+    orders: list[list[int]]
+    final_spread: float
+    compensated_targets: np.ndarray
+    compensated_final: np.ndarray
+    working_loads: np.ndarray
+    service_bolt: np.ndarray
+    service_gasket: np.ndarray
+    assembly_gasket: np.ndarray
+    checks: tuple[Check, ...]
+    notes: tuple[str, ...]
+    equilibrium_residual: float
+    defaults: tuple[tuple[str, str], ...] = field(default=())
+
+    @property
+    def ok(self) -> bool:
+        return all(c.passed for c in self.checks)
+
+    def to_dict(self) -> dict[str, Any]:
+        """JSON form per DESIGN.md (``flange --json``)."""
+        s = self.spec
+        a = self.app2
+        n = s.bolt_count
+        torque = dict.fromkeys(("nominal_Nm", "min_Nm", "max_Nm"))
+        if self.torque is not None:
+            torque = dict(zip(("nominal_Nm", "min_Nm", "max_Nm"), self.torque, strict=True))
+        return {
+            "title": s.title,
+            "bolt_count": n,
+            "required_bolt_load": {
+                "operating_N": a.Wm1,
+                "seating_N": a.Wm2,
+                "hydrostatic_end_force_N": a.H,
+                "gasket_load_operating_N": a.Hp,
+                "required_bolt_area_mm2": a.Am * 1e6,
+                "available_bolt_area_mm2": a.Ab * 1e6,
+            },
+            "gasket": {
+                "effective_width_mm": a.b * 1e3,
+                "basic_width_mm": a.b0 * 1e3,
+                "reaction_diameter_mm": a.G * 1e3,
+                "m": s.gasket.m,
+                "y_MPa": s.gasket.y * 1e-6,
+                "area_mm2": s.gasket.area * 1e6,
+                "assembly_stress_MPa": float(np.sum(self.assembly_gasket)) / s.gasket.area * 1e-6,
+            },
+            "window": {
+                "preload_min_N": self.window[0],
+                "preload_max_N": self.window[1],
+                "min_reason": self.window_reasons[0],
+                "max_reason": self.window_reasons[1],
+            },
+            "target_preload_N": self.target,
+            "assembly_preload_min_N": self.assembly_range[0],
+            "assembly_preload_max_N": self.assembly_range[1],
+            "permissible_preload_N": self.permissible_preload,
+            "tightening_factor": self.alpha_A,
+            "target_bolt_stress_ratio": self.target / s.thread.As / float(s.grade.Rp02),
+            "torque": torque,
+            "bolts": [
+                {
+                    "bolt": i + 1,
+                    "angle_deg": 360.0 * i / n,
+                    "preload_N": float(self.passes[-1][i]),
+                    "working_load_N": float(self.working_loads[i]),
+                    "service_load_N": float(self.service_bolt[i]),
+                    "gasket_force_assembly_N": float(self.assembly_gasket[i]),
+                    "gasket_force_service_N": float(self.service_gasket[i]),
+                    "compensated_target_N": float(self.compensated_targets[i]),
+                }
+                for i in range(n)
+            ],
+            "passes": [[float(f) for f in p] for p in self.passes],
+            "pass_orders": [[b + 1 for b in o] for o in self.orders],
+            "pass_fractions": list(s.passes),
+            "final_spread": self.final_spread,
+            "compensated_final_spread": _spread(self.compensated_final),
+            "equilibrium_residual_N": self.equilibrium_residual,
+            "checks": [c.to_dict() for c in self.checks],
+            "ok": self.ok,
+            "notes": list(self.notes),
+            "defaults": dict(self.defaults),
+        }
+
+
+def _spread(f: np.ndarray) -> float:
+    """(max - min) / mean of the bolt preloads."""
+    mean = float(np.mean(f))
+    return float((np.max(f) - np.min(f)) / mean) if mean > 0 else 0.0
+
+
+def analyse_flange(spec: FlangeSpec) -> FlangeResult:
+    """App. 2 bolt loads, gasket window, torque, passes, compensated targets, service, checks."""
+    a = asme_app2(spec)
+    n = spec.bolt_count
+    thr, grd = spec.thread, spec.grade
+    notes: list[str] = []
+    g = spec.gasket
+    FA = working_loads(spec, a.G)
+
+    # --- bolt capacity and tightening (VDI 2230-1 R7, R13)
+    muG_lo, muG_hi = spec.thread_friction
+    muK_lo, muK_hi = spec.head_friction
+    DKm = 0.5 * (spec.bearing_diameter + spec.hole)
+
+    def k_torque(muG: float, muK: float) -> float:
+        return 0.16 * thr.P + 0.58 * thr.d2 * muG + 0.5 * muK * DKm
+
+    Rp = grd.Rp02
+    if spec.method == "tension":
+        FMzul = spec.utilization * Rp * thr.As
+    else:
+        FMzul = float(
+            permissible_preload(thr.As, thr.ds, thr.d2, thr.P, Rp, muG_lo, spec.utilization)
+        )
+
+    # --- gasket window per bolt (seating, operating, crush, bolt)
+    # operating requirement: residual gasket load >= H_p in service on the worst sector;
+    # the loss of gasket load from assembly to service comes from the ring (linear part)
+    probe = max(a.Wm2 / n, 0.3 * FMzul)
+    loss = _service_gasket_loss(spec, probe, FA)
+    op_min = a.Hp / n + float(np.max(loss))
+    seat_min = a.Wm2 / n
+    lo_w, lo_reason = max(
+        (seat_min, "gasket seating (W_m2/N)"),
+        (op_min, "gasket load in operation (H_p/N plus the loss in service)"),
+    )
+    crush = g.max_stress * g.area / n
+    hi_w, hi_reason = min((crush, "gasket crush limit"), (FMzul, "bolt permissible preload"))
+
+    # --- target and tightening
+    single = muG_lo == muG_hi and muK_lo == muK_hi
+    torque = None
+    if spec.method == "torque":
+        if spec.torque is not None:
+            MA = spec.torque
+        elif spec.preload is not None:
+            MA = spec.preload * k_torque(0.5 * (muG_lo + muG_hi), 0.5 * (muK_lo + muK_hi))
+        else:
+            MA = hi_w * k_torque(muG_lo, muK_lo) / (1 + spec.torque_tolerance)
+        MA_min, MA_max = MA * (1 - spec.torque_tolerance), MA * (1 + spec.torque_tolerance)
+        torque = (MA, MA_min, MA_max)
+        FM_max = MA_max / k_torque(muG_lo, muK_lo)
+        if spec.scatter is not None:
+            alpha = spec.scatter
+            FM_min = FM_max / alpha
+        elif single:
+            alpha = tightening_factor("torque", friction_known=False, bound="lower")
+            FM_min = FM_max / alpha
+        else:
+            FM_min = MA_min / k_torque(muG_hi, muK_hi)
+            alpha = FM_max / FM_min
+        target = MA / k_torque(0.5 * (muG_lo + muG_hi), 0.5 * (muK_lo + muK_hi))
+    else:  # tension (a tensioner sets the preload directly)
+        alpha = (
+            spec.scatter if spec.scatter is not None else tightening_factor("tension", bound="mid")
+        )
+        if spec.preload is not None:
+            target = spec.preload
+        else:
+            target = hi_w * (1 + alpha) / (2 * alpha)
+        FM_min, FM_max = 2 * target / (1 + alpha), 2 * alpha * target / (1 + alpha)
+    ratio = target / thr.As / Rp
+    if not PCC1_RANGE[0] <= ratio <= PCC1_RANGE[1]:
+        notes.append(
+            f"Target bolt stress is {ratio:.0%} of the yield point, outside the "
+            f"{PCC1_RANGE[0]:.0%}-{PCC1_RANGE[1]:.0%} usual in ASME PCC-1 practice (from memory)."
+        )
+    if lo_w > hi_w:
+        notes.append(
+            "The gasket window is empty: no preload both seats the gasket and keeps "
+            "it below its crush limit with these bolts; change bolt size, count or gasket."
+        )
+
+    # --- tightening passes with elastic interaction
+    orders = pass_orders(spec)
+    ring = build_ring(spec)
+    targets = np.full(n, target)
+    passes = simulate_passes(ring, targets, spec.passes, orders)
+    assembly_bolts = passes[-1]
+    _, asm_bolts, asm_gasket, _ = ring.solve(np.zeros(n))
+    comp_order = orders[0]
+    comp_t, comp_final = compensated_targets(spec, target, comp_order)
+    if float(np.max(comp_t)) > FMzul:
+        notes.append(
+            f"The compensated single-pass targets reach {np.max(comp_t) / 1e3:.4g} kN, above the "
+            f"permissible preload {FMzul / 1e3:.4g} kN: use several passes instead."
+        )
+
+    # --- service: pressure, external loads, temperatures
+    ring.scale_k = (
+        spec.bolt_material.E(spec.T_bolt) / spec.bolt_material.E(spec.T_assembly),
+        spec.material.E(spec.T_flange) / spec.material.E(spec.T_assembly),
+    )
+    pair = spec.mating == "flange"
+    lK = (2 * spec.thickness if pair else spec.thickness) + g.thickness
+    d_strain_b = spec.bolt_material.strain(spec.T_bolt) - spec.bolt_material.strain(spec.T_assembly)
+    d_strain_f = spec.material.strain(spec.T_flange) - spec.material.strain(spec.T_assembly)
+    ring.thermal_bolt = (lK / (2 if pair else 1)) * d_strain_b
+    ring.thermal_flange = spec.thickness * d_strain_f
+    _, srv_bolts, srv_gasket, sol = ring.solve(FA)
+    residual = _equilibrium(srv_bolts, srv_gasket, FA)
+
+    # --- checks
+    checks = []
+    checks.append(
+        Check(
+            "bolt_area",
+            "Available bolt root area at least the required area A_m",
+            a.Ab * 1e6,
+            a.Am * 1e6,
+            "mm2",
+            ">=",
+            "ASME BPVC VIII-1 Appendix 2, 2-5 (A_m = max(W_m1/S_b, W_m2/S_a))",
+            f"S_b = {spec.allowable_stress / 1e6:.4g} MPa, S_a = {spec.allowable_stress_ambient / 1e6:.4g} MPa",
+        )
+    )
+    checks.append(
+        Check(
+            "gasket_seating",
+            "Smallest total assembly preload seats the gasket (W >= W_m2)",
+            FM_min * n / 1e3,
+            a.Wm2 / 1e3,
+            "kN",
+            ">=",
+            "ASME BPVC VIII-1 Appendix 2, 2-5 (W_m2 = pi b G y)",
+        )
+    )
+    op_need = a.Hp / n
+    checks.append(
+        Check(
+            "gasket_operating",
+            "Gasket load in service at least m times the pressure (per sector)",
+            float(np.min(srv_gasket)) / 1e3 * (FM_min / target),
+            op_need / 1e3,
+            "kN",
+            ">=",
+            "ASME BPVC VIII-1 Appendix 2, 2-5 (H_p = 2 b pi G m P); ring network in service, "
+            "scaled to the smallest assembly preload",
+        )
+    )
+    checks.append(
+        Check(
+            "gasket_crush",
+            "Largest gasket stress at assembly below the crush limit",
+            FM_max * n / g.area / 1e6,
+            g.max_stress / 1e6,
+            "MPa",
+            "<=",
+            f"gasket data: {g.source}",
+        )
+    )
+    checks.append(
+        Check(
+            "assembly_preload",
+            "Largest assembly preload within the permissible preload",
+            FM_max / 1e3,
+            FMzul / 1e3,
+            "kN",
+            "<=",
+            f"VDI 2230-1:2015, 5.5.1, R7 (nu = {spec.utilization:g})",
+        )
+    )
+    Rp_T, basis = yield_at_temperature(grd, spec.T_bolt)
+    worst = float(np.max(srv_bolts)) * (FM_max / target)
+    checks.append(
+        Check(
+            "bolt_service_stress",
+            "Largest bolt stress in service below the yield point",
+            worst / thr.As / 1e6,
+            float(Rp_T) / 1e6,
+            "MPa",
+            "<=",
+            f"axial stress on A_s against R_p0.2 at the bolt temperature ({basis})",
+        )
+    )
+    notes.append(
+        "Leakage and tightness classes (EN 1591-1, EN 13555) are not evaluated; the "
+        "ASME m and y factors are the gasket criteria used."
+    )
+    return FlangeResult(
+        spec=spec,
+        app2=a,
+        window=(lo_w, hi_w),
+        window_reasons=(lo_reason, hi_reason),
+        target=target,
+        assembly_range=(FM_min, FM_max),
+        permissible_preload=FMzul,
+        alpha_A=alpha,
+        torque=torque,
+        passes=passes,
+        orders=orders,
+        final_spread=_spread(assembly_bolts),
+        compensated_targets=comp_t,
+        compensated_final=comp_final,
+        working_loads=FA,
+        service_bolt=srv_bolts,
+        service_gasket=srv_gasket,
+        assembly_gasket=asm_gasket,
+        checks=tuple(checks),
+        notes=tuple(notes),
+        equilibrium_residual=residual,
+        defaults=spec.defaults,
+    )
+
+
+def _equilibrium(bolts: np.ndarray, gasket: np.ndarray, FA: np.ndarray) -> float:
+    """Whole-ring equilibrium: bolt forces = gasket forces + working loads [N residual]."""
+    return float(abs(np.sum(bolts) - np.sum(gasket) - np.sum(FA)))
+
+
+def _service_gasket_loss(spec: FlangeSpec, F: float, FA: np.ndarray) -> np.ndarray:
+    """Loss of gasket force per sector from assembly (all bolts at F) to service."""
+    ring = build_ring(spec)
+    n = ring.n
+    simulate_passes(ring, np.full(n, F), (1.0,), [list(range(n))])
+    _, _, g0, _ = ring.solve(np.zeros(n))
+    pair = spec.mating == "flange"
+    lK = (2 * spec.thickness if pair else spec.thickness) + spec.gasket.thickness
+    ring.scale_k = (
+        spec.bolt_material.E(spec.T_bolt) / spec.bolt_material.E(spec.T_assembly),
+        spec.material.E(spec.T_flange) / spec.material.E(spec.T_assembly),
+    )
+    ring.thermal_bolt = (lK / (2 if pair else 1)) * (
+        spec.bolt_material.strain(spec.T_bolt) - spec.bolt_material.strain(spec.T_assembly)
+    )
+    ring.thermal_flange = spec.thickness * (
+        spec.material.strain(spec.T_flange) - spec.material.strain(spec.T_assembly)
+    )
+    _, _, g1, _ = ring.solve(FA)
+    return g0 - g1

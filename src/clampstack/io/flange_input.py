@@ -1,0 +1,453 @@
+"""The flange input file (``clampstack flange``): schema and reader."""
+
+from __future__ import annotations
+
+from typing import Any
+
+from ..catalog import gasket as catalog_gasket
+from ..catalog import grade as catalog_grade
+from ..catalog import material as catalog_material
+from ..catalog import thread as catalog_thread
+from ..errors import InputError
+from ..flange.model import FlangeSpec, GasketSpec
+from ..joint.model import ROOM, PartMaterial
+from ..units import parse_quantity
+from .files import InputDocument, load_toml
+from .joint_input import bearing_face_diameter
+from .schema import Key, Schema, read_table
+
+PSI = 6894.757293168361
+
+FLANGE = Schema(
+    "flange",
+    "The flange ring(s).",
+    (
+        Key("bolt_count", "integer", "number of bolts, equally spaced", required=True),
+        Key("bolt_circle", "length", "bolt circle diameter", required=True, positive=True),
+        Key("thickness", "length", "thickness of each flange ring", required=True, positive=True),
+        Key("material", "text", "catalog material of the flange", default="steel"),
+        Key(
+            "inner_diameter",
+            "length",
+            "bore of the flange ring",
+            default="gasket inner diameter",
+            positive=True,
+        ),
+        Key(
+            "outer_diameter",
+            "length",
+            "outer diameter of the flange ring",
+            default="bolt circle + 2.5 x hole",
+            positive=True,
+        ),
+        Key(
+            "mating",
+            "text",
+            "identical flange pair or a rigid mating face",
+            default="flange",
+            choices=("flange", "rigid"),
+        ),
+    ),
+)
+
+BOLT = Schema(
+    "bolt",
+    "The bolts (studs with two nuts on a flange pair).",
+    (
+        Key("thread", "text", 'thread, e.g. "M16", "5/8-11 UNC"', required=True),
+        Key("grade", "text", 'grade, e.g. "8.8", "ASTM A193 B7"', required=True),
+        Key("material", "text", "catalog material of the bolt", default="the grade's steel"),
+        Key("hole", "length", "bolt hole in the flange", default="ISO 273 medium", positive=True),
+        Key(
+            "bearing_diameter",
+            "length",
+            "bearing face of the nut",
+            default="d_w,min of the nut",
+            positive=True,
+        ),
+        Key(
+            "allowable_stress",
+            "stress",
+            "allowable bolt stress S_b at design temperature",
+            default="ASME II-D Table 3 for B7, else min(R_m/5, R_p0.2/4)",
+            positive=True,
+        ),
+        Key(
+            "allowable_stress_ambient",
+            "stress",
+            "allowable bolt stress S_a at ambient",
+            default="as allowable_stress",
+            positive=True,
+        ),
+    ),
+)
+
+NUT = Schema(
+    "nut", "The nuts.", (Key("height", "length", "nut height", default="ISO 4032", positive=True),)
+)
+
+GASKET = Schema(
+    "gasket",
+    "The ring gasket.",
+    (
+        Key("type", "text", "catalog gasket type (`clampstack catalog gaskets`)"),
+        Key("inner_diameter", "length", "gasket inner diameter", required=True, positive=True),
+        Key(
+            "outer_diameter",
+            "length",
+            "gasket outer diameter (contact face)",
+            required=True,
+            positive=True,
+        ),
+        Key("thickness", "length", "gasket thickness", required=True, positive=True),
+        Key("m", "number", "maintenance factor m (overrides the type)", minimum=0.0),
+        Key("y", "stress", "seating stress y (overrides the type)", minimum=0.0),
+        Key("max_stress", "stress", "largest allowed gasket stress (crush)", positive=True),
+        Key("unload_modulus", "stress", "unloading modulus of the gasket", positive=True),
+        Key("curve", "pairs", 'loading curve [[strain, "stress"], ...], e.g. [[0.1, "30 MPa"]]'),
+    ),
+)
+
+LOADING = Schema(
+    "loading",
+    "Loads and temperatures in operation.",
+    (
+        Key("pressure", "stress", "internal design pressure", default="0", minimum=0.0),
+        Key("axial_force", "force", "external axial force on the joint (tension +)", default="0"),
+        Key("bending_moment", "moment", "external bending moment", default="0", minimum=0.0),
+        Key(
+            "temperature",
+            "temperature",
+            "flange (and gasket) temperature in operation",
+            default="assembly temperature",
+        ),
+        Key(
+            "bolt_temperature",
+            "temperature",
+            "bolt temperature in operation",
+            default="flange temperature",
+        ),
+        Key("assembly_temperature", "temperature", "temperature at assembly", default="20 degC"),
+    ),
+)
+
+TIGHTENING = Schema(
+    "tightening",
+    "Tightening and the pass sequence.",
+    (
+        Key(
+            "method",
+            "text",
+            "torque or tension (hydraulic tensioner)",
+            default="torque",
+            choices=("torque", "tension"),
+        ),
+        Key("torque", "torque", "tightening torque per bolt", positive=True),
+        Key("preload", "force", "target preload per bolt", positive=True),
+        Key(
+            "thread_friction",
+            "range:dimensionless",
+            "thread friction",
+            default="0.10..0.16",
+            minimum=0.0,
+        ),
+        Key(
+            "head_friction",
+            "range:dimensionless",
+            "nut bearing friction",
+            default="as thread",
+            minimum=0.0,
+        ),
+        Key("scatter", "number", "tightening factor alpha_A", minimum=1.0),
+        Key(
+            "utilization",
+            "number",
+            "utilisation nu of the yield point",
+            default="0.9",
+            positive=True,
+        ),
+        Key(
+            "torque_tolerance",
+            "number",
+            "relative torque tolerance (+-)",
+            default="0.06",
+            minimum=0.0,
+        ),
+        Key(
+            "passes", "raw", "pass targets in % of the final preload", default="[30, 70, 100, 100]"
+        ),
+        Key(
+            "pattern",
+            "raw",
+            'pattern of every pass ("cross", "circular", "custom") or one per pass',
+            default="cross, last pass circular",
+        ),
+        Key("order", "raw", "custom bolt order (1-based), with pattern custom"),
+    ),
+)
+
+FLANGE_FILE = Schema(
+    "flange file",
+    "A gasketed flange for `clampstack flange`.",
+    (
+        Key("title", "text", "title", default='"untitled flange"'),
+        Key("flange", "table", "the flange", required=True, schema=FLANGE),
+        Key("bolt", "table", "the bolts", required=True, schema=BOLT),
+        Key("nut", "table", "the nuts", schema=NUT),
+        Key("gasket", "table", "the gasket", required=True, schema=GASKET),
+        Key("loading", "table", "loads in operation", schema=LOADING),
+        Key("tightening", "table", "tightening and passes", schema=TIGHTENING),
+    ),
+)
+
+
+def read_flange_file(path: str) -> tuple[InputDocument, FlangeSpec]:
+    """Load and validate a flange file (InputError names the file and the key)."""
+    doc = load_toml(path)
+    try:
+        return doc, flange_from_data(doc.data)
+    except InputError as err:
+        raise err.with_source(doc.path) from None
+
+
+def _mat(key: str, where: str) -> PartMaterial:
+    try:
+        m = catalog_material(key)
+    except InputError as err:
+        raise InputError(err.detail, key=where) from None
+    return PartMaterial(m.key, m)
+
+
+def _temp_ok(pm: PartMaterial, T: float, key: str) -> None:
+    lo, hi = pm.material.valid_range()
+    if not lo - 1e-9 <= T <= hi + 1e-9:
+        raise InputError(
+            f"{T - 273.15:g} degC is outside the data of material "
+            f"{pm.material.key!r} ({lo - 273.15:g} to {hi - 273.15:g} degC)",
+            key=key,
+        )
+
+
+def flange_from_data(data: dict[str, Any]) -> FlangeSpec:
+    """Validate a flange file's TOML data and resolve every default."""
+    raw = read_table(FLANGE_FILE, data)
+    defaults: list[tuple[str, str]] = []
+    f, b, g = raw["flange"], raw["bolt"], raw["gasket"]
+    n = f["bolt_count"]
+    if n < 3:
+        raise InputError(f"a flange needs at least 3 bolts, got {n}", key="flange.bolt_count")
+    if n > 1000:
+        raise InputError(
+            f"{n} bolts is more than this tool models (at most 1000)", key="flange.bolt_count"
+        )
+    try:
+        thr = catalog_thread(b["thread"])
+    except InputError as err:
+        raise InputError(err.detail, key="bolt.thread") from None
+    try:
+        grd = catalog_grade(b["grade"], thr.d)
+    except InputError as err:
+        raise InputError(err.detail, key="bolt.grade") from None
+    hole = b["hole"] or thr.hole_medium
+    if b["hole"] is None:
+        defaults.append(("bolt.hole", f"{hole * 1e3:g} mm (ISO 273 medium)"))
+    dW = b["bearing_diameter"] or bearing_face_diameter(thr.head_across_flats)
+    if dW <= hole:
+        raise InputError("bearing diameter must exceed the bolt hole", key="bolt.bearing_diameter")
+    Dbc = f["bolt_circle"]
+    # --- gasket
+    gi, go, gt = g["inner_diameter"], g["outer_diameter"], g["thickness"]
+    if gi >= go:
+        raise InputError(
+            "gasket inner diameter must be below its outer diameter", key="gasket.inner_diameter"
+        )
+    if go > Dbc - hole:
+        raise InputError(
+            f"gasket outer diameter {go * 1e3:g} mm reaches the bolt holes (bolt circle "
+            f"{Dbc * 1e3:g} mm minus hole {hole * 1e3:g} mm); a ring gasket lies inside the bolts",
+            key="gasket.outer_diameter",
+        )
+    cat = None
+    if g["type"] is not None:
+        try:
+            cat = catalog_gasket(g["type"])
+        except InputError as err:
+            raise InputError(err.detail, key="gasket.type") from None
+    m = g["m"] if g["m"] is not None else (cat.m if cat else None)
+    y = g["y"] if g["y"] is not None else (cat.y if cat else None)
+    if m is None or y is None:
+        raise InputError("give the gasket type, or m and y", key="gasket.type")
+    max_stress = g["max_stress"] or (cat.max_stress if cat else None)
+    unload = g["unload_modulus"] or (cat.unload_modulus if cat else None)
+    if g["curve"] is not None:
+        strains, stresses = [0.0], [0.0]
+        for k, pt in enumerate(g["curve"]):
+            key = f"gasket.curve[{k + 1}]"
+            e = parse_quantity(pt[0], "dimensionless", key)
+            st = parse_quantity(pt[1], "stress", key)
+            if not (0 < e < 1):
+                raise InputError("strain must lie between 0 and 1", key=key)
+            strains.append(e)
+            stresses.append(st)
+        if any(b2 <= a2 for a2, b2 in zip(strains, strains[1:], strict=False)) or any(
+            b2 < a2 for a2, b2 in zip(stresses, stresses[1:], strict=False)
+        ):
+            raise InputError(
+                "curve points must rise in strain and must not fall in stress", key="gasket.curve"
+            )
+        curve = (tuple(strains), tuple(stresses))
+    elif cat is not None:
+        curve = (cat.curve_strain, cat.curve_stress)
+    else:
+        raise InputError("give the gasket type, or its loading curve", key="gasket.curve")
+    if max_stress is None or unload is None:
+        raise InputError(
+            "give max_stress and unload_modulus for a gasket without a type",
+            key="gasket.max_stress",
+        )
+    gasket = GasketSpec(
+        name=cat.key if cat else "user gasket",
+        inner_diameter=gi,
+        outer_diameter=go,
+        thickness=gt,
+        m=m,
+        y=y,
+        max_stress=max_stress,
+        unload_modulus=unload,
+        curve_strain=curve[0],
+        curve_stress=curve[1],
+        source=cat.source if cat else "user data",
+    )
+    # --- flange ring
+    fmat = _mat(f["material"] or "steel", "flange.material")
+    if f["material"] is None:
+        defaults.append(("flange.material", "steel"))
+    ring_in = f["inner_diameter"] or gi
+    ring_out = f["outer_diameter"] or (Dbc + 2.5 * hole)
+    if f["outer_diameter"] is None:
+        defaults.append(("flange.outer_diameter", f"{ring_out * 1e3:.4g} mm"))
+    if not ring_in < Dbc - hole or not ring_out > Dbc + hole:
+        raise InputError(
+            "the bolt holes must lie within the flange ring", key="flange.outer_diameter"
+        )
+    bmat = _mat(b["material"] or grd.material_key, "bolt.material")
+    # --- allowable bolt stresses (ASME App. 2)
+    Sb = b["allowable_stress"]
+    if Sb is None:
+        if grd.name == "ASTM A193 B7" and thr.d <= 2.5 * 0.0254:
+            Sb = 25000 * PSI
+            defaults.append(
+                (
+                    "bolt.allowable_stress",
+                    "172.4 MPa (25 ksi, ASME II-D Table 3, SA-193 B7, from memory)",
+                )
+            )
+        else:
+            Sb = min(grd.Rm / 5, grd.Rp02 / 4)
+            defaults.append(
+                (
+                    "bolt.allowable_stress",
+                    f"{Sb / 1e6:.4g} MPa (min(R_m/5, "
+                    "R_p0.2/4), bolting design factors, from memory)",
+                )
+            )
+    Sa = b["allowable_stress_ambient"] or Sb
+    # --- loading
+    ld = raw["loading"] or {k.name: None for k in LOADING.keys}
+    T_asm = ld["assembly_temperature"] if ld["assembly_temperature"] is not None else ROOM
+    T_fl = ld["temperature"] if ld["temperature"] is not None else T_asm
+    T_b = ld["bolt_temperature"] if ld["bolt_temperature"] is not None else T_fl
+    for pm, T, key in (
+        (fmat, T_fl, "loading.temperature"),
+        (fmat, T_asm, "loading.assembly_temperature"),
+        (bmat, T_b, "loading.bolt_temperature"),
+        (bmat, T_asm, "loading.assembly_temperature"),
+    ):
+        _temp_ok(pm, T, key)
+    # --- tightening
+    tr = raw["tightening"] or {k.name: None for k in TIGHTENING.keys}
+    method = tr["method"] or "torque"
+    if tr["torque"] is not None and tr["preload"] is not None:
+        raise InputError("give torque or preload, not both", key="tightening.preload")
+    if method == "tension" and tr["torque"] is not None:
+        raise InputError("a tensioner sets a preload, not a torque", key="tightening.torque")
+    muG = tr["thread_friction"] or (0.10, 0.16)
+    muK = tr["head_friction"] or muG
+    passes = tr["passes"] if tr["passes"] is not None else [30, 70, 100, 100]
+    if (
+        not isinstance(passes, list)
+        or not passes
+        or len(passes) > 20
+        or not all(isinstance(p, int | float) and not isinstance(p, bool) for p in passes)
+        or not all(0 < p <= 110 for p in passes)
+    ):
+        raise InputError(
+            "expected a list of 1 to 20 percentages between 0 and 110", key="tightening.passes"
+        )
+    pat = tr["pattern"]
+    if pat is None:
+        pats = ["cross"] * len(passes)
+        if len(passes) >= 3:
+            pats[-1] = "circular"
+    elif isinstance(pat, str):
+        pats = [pat] * len(passes)
+    elif isinstance(pat, list) and len(pat) == len(passes):
+        pats = list(pat)
+    else:
+        raise InputError("expected one pattern, or one per pass", key="tightening.pattern")
+    for p in pats:
+        if p not in ("cross", "circular", "custom"):
+            raise InputError(
+                f"unknown pattern {p!r} (cross, circular or custom)", key="tightening.pattern"
+            )
+    order = None
+    if "custom" in pats or tr["order"] is not None:
+        o = tr["order"]
+        if (
+            not isinstance(o, list)
+            or sorted(o) != list(range(1, n + 1))
+            or not all(isinstance(v, int) for v in o)
+        ):
+            raise InputError(
+                f"expected every bolt number 1..{n} exactly once", key="tightening.order"
+            )
+        order = tuple(v - 1 for v in o)
+        if tr["pattern"] is None:
+            pats = ["custom"] * len(passes)
+    return FlangeSpec(
+        title=raw["title"] or "untitled flange",
+        bolt_count=n,
+        bolt_circle=Dbc,
+        thickness=f["thickness"],
+        ring_inner_diameter=ring_in,
+        ring_outer_diameter=ring_out,
+        material=fmat,
+        mating=f["mating"] or "flange",
+        thread=thr,
+        grade=grd,
+        bolt_material=bmat,
+        nut_height=(raw["nut"] or {}).get("height") or thr.nut_height,
+        bearing_diameter=dW,
+        hole=hole,
+        allowable_stress=Sb,
+        allowable_stress_ambient=Sa,
+        gasket=gasket,
+        pressure=ld["pressure"] or 0.0,
+        axial_force=ld["axial_force"] or 0.0,
+        bending_moment=ld["bending_moment"] or 0.0,
+        T_assembly=T_asm,
+        T_flange=T_fl,
+        T_bolt=T_b,
+        method=method,
+        torque=tr["torque"],
+        preload=tr["preload"],
+        thread_friction=muG,
+        head_friction=muK,
+        scatter=tr["scatter"],
+        utilization=tr["utilization"] if tr["utilization"] is not None else 0.9,
+        torque_tolerance=tr["torque_tolerance"] if tr["torque_tolerance"] is not None else 0.06,
+        passes=tuple(p / 100.0 for p in passes),
+        patterns=tuple(pats),
+        order=order,
+        defaults=tuple(defaults),
+    )

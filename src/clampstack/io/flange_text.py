@@ -1,0 +1,155 @@
+"""Readable rendering of a flange result."""
+
+from __future__ import annotations
+
+import math
+
+import numpy as np
+
+from ..flange.analysis import FlangeResult
+from .text import UNIT_SYSTEMS, table
+
+FLANGE_CAUTION = (
+    "Caution: pressure equipment. These results support, and do not replace, the judgement "
+    "of a qualified engineer; the applicable pressure-equipment code (e.g. ASME BPVC VIII-1, "
+    "EN 13445, EN 1591-1) and local regulations govern, and the gasket manufacturer's data "
+    "take precedence over the catalog's typical values."
+)
+
+
+def _margin(c) -> str:
+    m = c.margin
+    return "inf" if math.isinf(m) else f"{m * 100:+.1f} %"
+
+
+def flange_text(r: FlangeResult, units: str = "si") -> str:
+    """Required bolt load, gasket window, torque per bolt, per-pass preloads, checks, caution."""
+    u = UNIT_SYSTEMS[units]
+    s = r.spec
+    F = u.label("force")
+    a = r.app2
+    n = s.bolt_count
+    out = [
+        s.title,
+        f"{n} x {s.thread.designation} grade {s.grade.name} on a {u.fmt('length', s.bolt_circle)} "
+        f"{u.label('length')} bolt circle; {s.gasket.name} gasket "
+        f"{u.fmt('length', s.gasket.inner_diameter)} x {u.fmt('length', s.gasket.outer_diameter)} "
+        f"x {u.fmt('length', s.gasket.thickness)} {u.label('length')}; "
+        f"{'flange pair' if s.mating == 'flange' else 'flange on a rigid face'}",
+        "",
+    ]
+    failed = [c.name for c in r.checks if not c.passed]
+    out.append("RESULT: PASS - all checks pass" if r.ok else f"RESULT: FAIL - {', '.join(failed)}")
+    out.append("")
+    out.append("Required bolt load (ASME BPVC VIII-1 Appendix 2)")
+    out.append(
+        f"  gasket b0 = {u.fmt('length', a.b0)} {u.label('length')}, b = {u.fmt('length', a.b)} "
+        f"{u.label('length')}, G = {u.fmt('length', a.G)} {u.label('length')}, "
+        f"m = {s.gasket.m:g}, y = {u.fmt('stress', s.gasket.y)} {u.label('stress')}"
+    )
+    out.append(
+        f"  H = {u.fmt('force', a.H)}, H_p = {u.fmt('force', a.Hp)}, "
+        f"W_m1 (operating) = {u.fmt('force', a.Wm1)}, W_m2 (seating) = "
+        f"{u.fmt('force', a.Wm2)} {F}"
+    )
+    out.append(
+        f"  bolt area: required A_m = {u.fmt('area', a.Am)}, available A_b = "
+        f"{u.fmt('area', a.Ab)} {u.label('area')}"
+    )
+    out.append("")
+    out.append("Gasket stress window and tightening (per bolt)")
+    out.append(
+        f"  preload window {u.fmt('force', r.window[0])} .. {u.fmt('force', r.window[1])} "
+        f"{F} (low: {r.window_reasons[0]}; high: {r.window_reasons[1]})"
+    )
+    out.append(
+        f"  target preload {u.fmt('force', r.target)} {F} = "
+        f"{r.target / s.thread.As / s.grade.Rp02:.0%} of yield on A_s; assembly range "
+        f"{u.fmt('force', r.assembly_range[0])} .. {u.fmt('force', r.assembly_range[1])} {F}"
+        f" (alpha_A {r.alpha_A:.3g})"
+    )
+    if r.torque is not None:
+        T = u.label("torque")
+        out.append(
+            f"  torque per bolt {u.fmt('torque', r.torque[0])} {T} (min "
+            f"{u.fmt('torque', r.torque[1])}, max {u.fmt('torque', r.torque[2])} {T})"
+        )
+    out.append("")
+    fr = [f"{100 * p:g} %" for p in s.passes]
+    rows = []
+    for i in range(n):
+        rows.append(
+            [str(i + 1), f"{360 * i / n:.1f}"]
+            + [u.fmt("force", float(p[i])) for p in r.passes]
+            + [
+                u.fmt("force", float(r.compensated_targets[i])),
+                u.fmt("force", float(r.working_loads[i])),
+                u.fmt("force", float(r.service_bolt[i])),
+                u.fmt("force", float(r.service_gasket[i])),
+            ]
+        )
+    out.append(
+        table(
+            ["bolt", "angle"]
+            + [f"pass {k + 1} ({f}) [{F}]" for k, f in enumerate(fr)]
+            + [
+                f"1-pass target [{F}]",
+                f"F_A [{F}]",
+                f"in service [{F}]",
+                f"gasket in service [{F}]",
+            ],
+            rows,
+            right=[True] * (len(rows[0])),
+        )
+    )
+    orders = "; ".join(f"pass {k + 1} {pat}" for k, pat in enumerate(s.patterns))
+    out.append(
+        f"  patterns: {orders}; cross order: {'-'.join(str(b + 1) for b in r.orders[0])}"
+        if r.orders
+        else ""
+    )
+    final = r.passes[-1]
+    out.append(
+        f"  after the last pass: {u.fmt('force', float(np.min(final)))} .. "
+        f"{u.fmt('force', float(np.max(final)))} {F}, spread {r.final_spread:.1%}; "
+        f"single pass with the compensated targets (in pass-1 order): spread "
+        f"{_spread(r.compensated_final):.2%}"
+    )
+    out.append("")
+    crow = []
+    for c in r.checks:
+        verdict = "pass" if c.passed else "FAIL"
+        crow.append(
+            [
+                c.name,
+                f"{c.value:.4g} {c.unit}",
+                c.relation,
+                f"{c.limit:.4g} {c.unit}",
+                _margin(c),
+                verdict,
+                c.source,
+            ]
+        )
+    out.append(
+        table(
+            ["check", "value", "", "limit", "margin", "result", "source"],
+            crow,
+            right=[False, True, False, True, True, False, False],
+        )
+    )
+    if r.notes:
+        out.append("")
+        out.append("Notes")
+        out.extend(f"  - {x}" for x in r.notes)
+    if r.defaults:
+        out.append("")
+        out.append("Defaults applied")
+        out.extend(f"  {k} = {v}" for k, v in r.defaults)
+    out.append("")
+    out.append(FLANGE_CAUTION)
+    return "\n".join(out)
+
+
+def _spread(f) -> float:
+    m = float(np.mean(f))
+    return float((np.max(f) - np.min(f)) / m) if m > 0 else 0.0
