@@ -216,6 +216,89 @@ def flange(file: str, as_json: bool, units: str) -> None:
 
 
 @main.command()
+@click.argument("file", type=str)
+@click.option(
+    "--samples", type=int, default=100_000, show_default=True, help="Number of Monte Carlo samples."
+)
+@click.option("--seed", type=int, default=0, show_default=True, help="Random seed.")
+@click.option("--json", "as_json", is_flag=True, help="Machine-readable result on stdout.")
+@click.option(
+    "--units",
+    type=click.Choice(["si", "us"]),
+    default="si",
+    show_default=True,
+    help="Units of the readable output.",
+)
+@handle_errors
+def scatter(file: str, samples: int, seed: int, as_json: bool, units: str) -> None:
+    """Statistical assembly scatter of the joint in FILE (Monte Carlo)."""
+    from .errors import InputError
+    from .io.joint_input import read_joint_file
+    from .io.scatter_text import scatter_text
+    from .studies.scatter import parse_distributions
+    from .studies.scatter import scatter as run_scatter
+
+    if samples < 1:
+        raise InputError(
+            f"the number of samples must be at least 1, got {samples}", key="--samples"
+        )
+    if seed < 0:
+        raise InputError("the seed must not be negative", key="--seed")
+    doc, spec = read_joint_file(file)
+    dists = _in_file(doc.path, parse_distributions, spec.distributions)
+    progress = _progress(samples, quiet=as_json)
+    result = _in_file(doc.path, run_scatter, spec, dists, samples, seed, 4, progress)
+    if progress is not None:
+        progress(None)
+    if as_json:
+        _print_json(result.to_dict())
+    else:
+        click.echo(scatter_text(result, units))
+
+
+def _progress(total: int, quiet: bool):
+    """A progress callback on a terminal for long runs; None when piped or quiet."""
+    if quiet or total < 2_000_000 or not sys.stderr.isatty():
+        return None
+
+    def report(done: int | None) -> None:
+        if done is None:
+            click.echo("", err=True)
+            return
+        width = 30
+        k = int(width * min(done, total) / total)
+        click.echo(f"\r[{'#' * k}{'.' * (width - k)}] {done / total:6.1%}", err=True, nl=False)
+
+    return report
+
+
+@main.command()
+@click.argument("file", type=str)
+@click.option("--json", "as_json", is_flag=True, help="Machine-readable result on stdout.")
+@click.option(
+    "--units",
+    type=click.Choice(["si", "us"]),
+    default="si",
+    show_default=True,
+    help="Units of the readable output.",
+)
+@handle_errors
+def size(file: str, as_json: bool, units: str) -> None:
+    """Smallest thread, grade and tightening method that pass every check for FILE."""
+    from .io.files import load_toml
+    from .io.size_text import size_text
+    from .studies.size import size as run_size
+
+    doc = load_toml(file)
+    result = _in_file(doc.path, run_size, doc.data)
+    if as_json:
+        _print_json(result.to_dict())
+    else:
+        click.echo(size_text(result, units))
+    sys.exit(EXIT_OK if result.designs else EXIT_FAIL)
+
+
+@main.command()
 @click.argument("what", type=click.Choice(["threads", "grades", "materials", "gaskets"]))
 @click.option("--json", "as_json", is_flag=True, help="Machine-readable listing on stdout.")
 @handle_errors

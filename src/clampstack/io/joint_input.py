@@ -363,6 +363,13 @@ JOINT = Schema(
         Key("service", "table", "service loads and temperatures", schema=SERVICE),
         Key("requirements", "table", "requirements", schema=REQUIREMENTS),
         Key("skip", "tables", "checks switched off, each with a reason", schema=SKIP),
+        Key(
+            "distributions",
+            "raw",
+            "scatter study: distributions of torque, friction, "
+            "embedding, temperature, axial_load, yield_strength, slip_friction, preload, "
+            'torque_factor, e.g. torque = {normal = ["45 N*m", "2 N*m"]}',
+        ),
     ),
 )
 
@@ -825,6 +832,9 @@ def joint_from_data(data: dict[str, Any]) -> JointSpec:
             raise InputError(f"check {s['check']!r} is skipped twice", key=f"skip[{n_s + 1}].check")
         skips.append((s["check"], s["reason"].strip()))
 
+    from ..studies.scatter import parse_distributions
+
+    parse_distributions(raw["distributions"])  # validated here, used by scatter
     return JointSpec(
         title=raw["title"] or "untitled joint",
         bolt=bolt,
@@ -839,4 +849,5 @@ def joint_from_data(data: dict[str, Any]) -> JointSpec:
         clamp_model=raw["clamp_model"] or "vdi2230",
         skips=tuple(skips),
         defaults=tuple(defaults),
+        distributions=raw["distributions"],
     )

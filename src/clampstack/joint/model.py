@@ -141,6 +141,7 @@ class JointSpec:
     clamp_model: str
     skips: tuple[tuple[str, str], ...] = ()
     defaults: tuple[tuple[str, str], ...] = field(default=())
+    distributions: dict | None = None  # validated [distributions] table (scatter studies)
 
     @property
     def clamp_length(self) -> float:

@@ -1,0 +1,83 @@
+"""Readable rendering of a scatter study."""
+
+from __future__ import annotations
+
+from ..studies.scatter import QUANTS, ScatterResult
+from .text import CAUTION, UNIT_SYSTEMS, table
+
+_LABELS = {
+    "assembly_preload": "assembly preload",
+    "service_preload": "preload in service (no load)",
+    "residual_clamp_load": "residual clamp load",
+}
+
+
+def scatter_text(r: ScatterResult, units: str = "si") -> str:
+    """Percentiles, probabilities with intervals, and the deterministic comparisons."""
+    u = UNIT_SYSTEMS[units]
+    F = u.label("force")
+    count = f"{r.samples:,}".replace(",", " ")
+    out = [r.spec.title, f"{count} samples, seed {r.seed}", ""]
+    out.append("Sampled inputs")
+    out.extend(f"  {k}: {v}" for k, v in r.distributions.items())
+    out.append("")
+    rows = []
+    for q in QUANTS:
+        p = r.percentiles[q]
+        rows.append(
+            [_LABELS[q]]
+            + [u.fmt("force", p[k]) for k in ("p01", "p05", "p50", "p95", "p99", "mean")]
+        )
+    out.append(
+        table(
+            [f"[{F}]", "1 %", "5 %", "50 %", "95 %", "99 %", "mean"],
+            rows,
+            right=[False] + [True] * 6,
+        )
+    )
+    if not r.exact:
+        out.append("  (percentiles from a histogram of 131 072 bins)")
+    out.append("")
+    prow = []
+    for name in ("separation", "bolt_yield", "slip"):
+        pr = r.probability(name)
+        prow.append(
+            [
+                name,
+                f"{pr['estimate']:.3g}",
+                f"{pr['low']:.3g} .. {pr['high']:.3g}",
+                str(pr["count"]),
+            ]
+        )
+    out.append(
+        table(
+            ["probability of", "estimate", "95 % interval (Clopper-Pearson)", "count"],
+            prow,
+            right=[False, True, True, True],
+        )
+    )
+    out.append("")
+    d = r.deterministic
+    out.append("Deterministic comparison")
+    out.append(
+        f"  tightening factor (VDI 2230-1): assembly preload "
+        f"{u.fmt('force', d['assembly_preload_min_N'])} .. "
+        f"{u.fmt('force', d['assembly_preload_max_N'])} {F} "
+        f"(alpha_A {d['tightening_factor']:.3g}); minimum residual clamp load "
+        f"{u.fmt('force', d['residual_clamp_load_min_N'])} {F}; "
+        f"{'all checks pass' if d['ok'] else 'a check fails'}"
+    )
+    n = r.nasa
+    if n.get("applies"):
+        out.append(
+            f"  NASA-STD-5020 preload uncertainty (+-{n['uncertainty']:.0%}, "
+            f"{'lubricated' if n['lubricated'] else 'unlubricated'}): preload "
+            f"{u.fmt('force', n['preload_min_N'])} .. {u.fmt('force', n['preload_max_N'])} "
+            f"{F}; minimum residual clamp load "
+            f"{u.fmt('force', n['residual_clamp_load_min_N'])} {F} (factors from memory)"
+        )
+    else:
+        out.append(f"  NASA-STD-5020: {n.get('reason', 'not applied')}")
+    out.append("")
+    out.append(CAUTION)
+    return "\n".join(out)

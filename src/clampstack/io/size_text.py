@@ -1,0 +1,74 @@
+"""Readable rendering of a sizing study."""
+
+from __future__ import annotations
+
+from ..studies.size import SizeResult
+from .text import CAUTION, UNIT_SYSTEMS, table
+
+MAX_ROWS = 20
+
+
+def size_text(r: SizeResult, units: str = "si") -> str:
+    """Ranked table of the smallest passing designs with their torque specification."""
+    u = UNIT_SYSTEMS[units]
+    F, T, L = u.label("force"), u.label("torque"), u.label("length")
+    out = [
+        r.title,
+        f"{r.candidates} candidates (thread x grade x method), {r.evaluated} fit and were checked",
+        "",
+    ]
+    if not r.designs:
+        out.append("RESULT: no candidate passes every check")
+    else:
+        out.append(
+            f"RESULT: {len(r.designs)} smallest passing designs (each: the next smaller "
+            "size and the next weaker grade fail)"
+        )
+        rows = []
+        for d in r.designs[:MAX_ROWS]:
+            torque = (
+                "-"
+                if d.torque is None
+                else (
+                    f"{u.fmt('torque', d.torque[0])} ({u.fmt('torque', d.torque[1])}.."
+                    f"{u.fmt('torque', d.torque[2])})"
+                )
+            )
+            rows.append(
+                [
+                    d.thread,
+                    d.grade,
+                    d.method,
+                    u.fmt("length", d.length),
+                    torque,
+                    f"{u.fmt('force', d.preload[0])}..{u.fmt('force', d.preload[1])}",
+                    d.governing,
+                    f"{d.margin * 100:+.1f} %",
+                ]
+            )
+        out.append("")
+        out.append(
+            table(
+                [
+                    "thread",
+                    "grade",
+                    "method",
+                    f"length [{L}]",
+                    f"torque [{T}]",
+                    f"preload [{F}]",
+                    "governing check",
+                    "margin",
+                ],
+                rows,
+                right=[False, False, False, True, True, True, False, True],
+            )
+        )
+        if len(r.designs) > MAX_ROWS:
+            out.append(f"  ({MAX_ROWS} of {len(r.designs)} shown; --json for all)")
+    out.append("")
+    out.append(
+        "Each design is tightened to its permissible preload; run `clampstack check` on "
+        "the chosen design to see every check."
+    )
+    out.append(CAUTION)
+    return "\n".join(out)
