@@ -113,7 +113,7 @@ class Prepared:
     assumptions: tuple[str, ...]
 
 
-def prepare(spec: JointSpec) -> Prepared:
+def prepare(spec: JointSpec, model: TemperatureModel | None = None) -> Prepared:
     """Springs, tightening (VDI 2230-1 R7, R13; ISO 16047) and embedding (5.4.2)."""
     b, tr, srv = spec.bolt, spec.tightening, spec.service
     thr, grd = b.thread, b.grade
@@ -133,7 +133,8 @@ def prepare(spec: JointSpec) -> Prepared:
     if b.shank_diameter is not None and math.pi / 4 * b.shank_diameter**2 < A0:
         d0, A0 = b.shank_diameter, math.pi / 4 * b.shank_diameter**2
 
-    model = TemperatureModel(spec)
+    if model is None:  # a caller trying many grades may pass the model of the same parts
+        model = TemperatureModel(spec)
     dSa, dPa = model.resiliences_at_assembly()
     sp_a = Springs(dSa, dPa, tuple(model.segment_resiliences()))
 

@@ -37,6 +37,9 @@ class TemperatureModel:
 
     def __init__(self, spec: JointSpec):
         self.spec = spec
+        # memo of resiliences and free elongations by temperature vector (the service
+        # temperature, a sweep grid); the cached arrays are never changed by callers
+        self._memo: dict[tuple, tuple[np.ndarray, np.ndarray]] = {}
         b = spec.bolt
         thr = b.thread
         T_srv = spec.service.temperature
@@ -148,21 +151,34 @@ class TemperatureModel:
     def resiliences(self, T_service: float | np.ndarray) -> tuple[np.ndarray, np.ndarray]:
         """``(delta_S, delta_P)`` [m/N] with the joint at service temperature(s) [K]."""
         T = np.asarray(T_service, dtype=float)
-        return self._sum(self.bolt_terms, T), self._sum(self.clamp_terms, T)
+        key = ("res", T.shape, T.tobytes())
+        hit = self._memo.get(key)
+        if hit is None:
+            hit = self._memo[key] = (self._sum(self.bolt_terms, T), self._sum(self.clamp_terms, T))
+        return hit
 
     def resiliences_at_assembly(self) -> tuple[float, float]:
         """``(delta_S, delta_P)`` with every part at the assembly temperature."""
+        hit = self._memo.get(("asm",))
+        if hit is not None:
+            return hit  # type: ignore[return-value]
         T = np.asarray(self.T_assembly)
         dS = sum(t.coef / _modulus(t.material, T) for t in self.bolt_terms)
         dP = sum(t.coef / _modulus(t.material, T) for t in self.clamp_terms)
-        return float(dS), float(dP)
+        out = (float(dS), float(dP))
+        self._memo[("asm",)] = out  # type: ignore[assignment]
+        return out
 
     def segment_resiliences(self, T_service: float | None = None) -> list[tuple[str, float, float]]:
         """Bolt segments ``(name, length, resilience)``; at assembly temperature by default."""
+        hit = self._memo.get(("seg", T_service))
+        if hit is not None:
+            return list(hit)
         out = []
         for (name, length), t in zip(self.bolt_segments, self.bolt_terms, strict=True):
             T = self.T_assembly if T_service is None else T_service + t.offset
             out.append((name, length, float(t.coef / _modulus(t.material, np.asarray(T)))))
+        self._memo[("seg", T_service)] = tuple(out)  # type: ignore[assignment]
         return out
 
     # ------------------------------------------------------------------ expansion
@@ -183,6 +199,10 @@ class TemperatureModel:
         """
         s = self.spec
         T = np.asarray(T_service, dtype=float)
+        key = ("th", T.shape, T.tobytes())
+        hit = self._memo.get(key)
+        if hit is not None:
+            return hit
         T0 = np.asarray(self.T_assembly)
         b = s.bolt
         lK = s.clamp_length
@@ -195,6 +215,7 @@ class TemperatureModel:
                 _strain(lay.material, T + (lay.temperature - self.T_service))
                 - _strain(lay.material, T0)
             )
+        self._memo[key] = (bolt, clamp)
         return bolt, clamp
 
     def check_range(self, T_service: np.ndarray) -> None:

@@ -18,18 +18,34 @@ from __future__ import annotations
 
 import copy
 import math
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 from typing import Any
 
 import numpy as np
 
 from ..catalog import Thread, grades, threads
+from ..catalog import grade as catalog_grade
+from ..catalog import material as catalog_material
 from ..errors import InputError
 from ..io.joint_input import joint_from_data
 from ..joint.analysis import prepare
+from ..joint.model import PartMaterial
+from ..joint.thermal import TemperatureModel
 from .sweep import _evaluate
 
 METHODS = ("torque", "yield", "tension")
+
+
+def _check_temps(pm: PartMaterial, spec) -> None:
+    """The swapped bolt material must cover the joint's temperatures (InputError if not)."""
+    lo, hi = pm.material.valid_range()
+    for T in (spec.bolt.temperature, spec.service.assembly_temperature):
+        if not lo - 1e-9 <= T <= hi + 1e-9:
+            raise InputError(
+                f"bolt material {pm.material.key!r} has no data at {T - 273.15:g} degC"
+            )
+
+
 METRIC_GRADES = (
     "4.6",
     "4.8",
@@ -139,48 +155,102 @@ def size(data: dict[str, Any]) -> SizeResult:
     grade_names = tuple(g for g in grade_names if g in known)
     skipped = {name for name, _ in base.skips}
     T = np.array([base.service.temperature])
-    n_s, n_g, n_m = len(sizes), len(grade_names), len(METHODS)
-    ok = np.zeros((n_s, n_g, n_m), dtype=bool)
-    info: dict[tuple[int, int, int], Design] = {}
+    base_grade = base.bolt.grade.name
+    strength = {}
+    for g in grade_names:
+        rows = [x for x in grades() if x.name == g]
+        strength[g] = min(x.Rp02 for x in rows)
+    order = sorted(grade_names, key=lambda g: strength[g])
+    memo: dict[tuple[int, str, str], Design | None] = {}
     evaluated = 0
-    for i, thr in enumerate(sizes):
-        for j, g in enumerate(grade_names):
-            for k, method in enumerate(METHODS):
-                try:
-                    spec = joint_from_data(candidate_data(data, base, thr, g, method))
-                    prep = prepare(spec)
-                    m = _evaluate(prep, T)["margins"]
-                except InputError:
-                    continue  # does not fit (grade size range, holes, length, data range)
-                evaluated += 1
-                active = {c: float(v[0]) for c, v in m.items() if c not in skipped}
-                if all(v >= -1e-9 for v in active.values()):
-                    ok[i, j, k] = True
-                    # assembly_preload sits at its limit by construction (the candidate is
-                    # tightened to its permissible preload): not reported as governing
-                    pick = {c: v for c, v in active.items() if c != "assembly_preload"} or active
-                    gov = min(pick, key=pick.get)
-                    info[(i, j, k)] = Design(
-                        thr.designation,
-                        spec.bolt.grade.name,
-                        method,
-                        thr.d,
-                        spec.bolt.grade.Rp02,
-                        spec.bolt.length,
-                        prep.torque,
-                        (prep.assembly_min, prep.assembly_max),
-                        gov,
-                        pick[gov],
-                    )
+
+    parsed: dict[int, Any] = {}
+    models: dict[tuple[int, str, str], TemperatureModel] = {}
+    own_bolt_material = any(k in (data.get("bolt") or {}) for k in ("material", "modulus"))
+    nut_raw = data.get("nut") or {}
+    own_nut_material = any(k in nut_raw for k in ("material", "modulus"))
+
+    def variant(i: int, g: str, method: str):
+        """The candidate spec: the file parsed once per size, then grade and method swapped
+        (the same result as parsing candidate_data(...), which the tests check)."""
+        if i not in parsed:
+            try:
+                parsed[i] = joint_from_data(
+                    candidate_data(data, base, sizes[i], base_grade, "torque")
+                )
+            except InputError as err:
+                parsed[i] = err
+        spec = parsed[i]
+        if isinstance(spec, InputError):
+            raise spec
+        grd = catalog_grade(g, sizes[i].d)
+        bolt_mat = spec.bolt.material
+        if not own_bolt_material:
+            bolt_mat = PartMaterial(
+                f"{grd.material_key} (grade {grd.name})", catalog_material(grd.material_key)
+            )
+        bolt = replace(spec.bolt, grade=grd, material=bolt_mat)
+        nut = spec.nut
+        if nut is not None:
+            nut = replace(
+                nut,
+                material=nut.material if own_nut_material else bolt_mat,
+                Rm=nut.Rm if "strength" in nut_raw else grd.Rm,
+            )
+        if not own_bolt_material:
+            _check_temps(bolt_mat, spec)
+        return replace(spec, bolt=bolt, nut=nut, tightening=replace(spec.tightening, method=method))
+
+    def cell(i: int, g: str, method: str) -> Design | None:
+        """The design at (size i, grade, method) if it passes, else None (memoised)."""
+        nonlocal evaluated
+        key = (i, g, method)
+        if key in memo:
+            return memo[key]
+        memo[key] = None
+        thr = sizes[i]
+        try:
+            spec = variant(i, g, method)
+            # the springs depend on the size and the materials, not on grade or method
+            mkey = (i, spec.bolt.material.name, spec.nut.material.name if spec.nut else "")
+            if mkey not in models:
+                models[mkey] = TemperatureModel(spec)
+            prep = prepare(spec, models[mkey])
+            m = _evaluate(prep, T)["margins"]
+        except InputError:
+            return None  # does not fit (grade size range, holes, length, data range)
+        evaluated += 1
+        active = {c: float(v[0]) for c, v in m.items() if c not in skipped}
+        if all(v >= -1e-9 for v in active.values()):
+            # assembly_preload sits at its limit by construction (the candidate is
+            # tightened to its permissible preload): not reported as governing
+            pick = {c: v for c, v in active.items() if c != "assembly_preload"} or active
+            gov = min(pick, key=pick.get)
+            memo[key] = Design(
+                thr.designation,
+                spec.bolt.grade.name,
+                method,
+                thr.d,
+                spec.bolt.grade.Rp02,
+                spec.bolt.length,
+                prep.torque,
+                (prep.assembly_min, prep.assembly_max),
+                gov,
+                pick[gov],
+            )
+        return memo[key]
+
     designs = []
-    for (i, j, k), des in info.items():
-        smaller = i > 0 and ok[i - 1, j, k]
-        weaker = any(
-            ok[i, jj, k] and info[(i, jj, k)].yield_strength < des.yield_strength
-            for jj in range(n_g)
-            if (i, jj, k) in info
-        )
-        if not smaller and not weaker:
-            designs.append(des)
+    for method in METHODS:
+        for g in order:
+            # the smallest size of this grade and method that passes (ascending scan)
+            first = next((i for i in range(len(sizes)) if cell(i, g, method)), None)
+            if first is None:
+                continue
+            des = memo[(first, g, method)]
+            weaker = [w for w in order if strength[w] < des.yield_strength]
+            if not any(cell(first, w, method) for w in weaker):
+                designs.append(des)
+    n_s, n_g, n_m = len(sizes), len(grade_names), len(METHODS)
     designs.sort(key=lambda x: (x.d, x.yield_strength, METHODS.index(x.method)))
     return SizeResult(base.title, tuple(designs), n_s * n_g * n_m, evaluated)
