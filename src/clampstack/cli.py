@@ -244,6 +244,20 @@ def scatter(file: str, samples: int, seed: int, as_json: bool, units: str) -> No
         )
     if seed < 0:
         raise InputError("the seed must not be negative", key="--seed")
+    from .io.files import load_toml
+
+    if "flange" in load_toml(file).data:  # a flange file: every bolt scatters
+        from .io.flange_input import read_flange_file
+        from .io.scatter_text import flange_scatter_text
+        from .studies.flange_scatter import flange_scatter
+
+        fdoc, fspec = read_flange_file(file)
+        fres = _in_file(fdoc.path, flange_scatter, fspec, samples, seed)
+        if as_json:
+            _print_json(fres.to_dict())
+        else:
+            click.echo(flange_scatter_text(fres, units))
+        return
     doc, spec = read_joint_file(file)
     dists = _in_file(doc.path, parse_distributions, spec.distributions)
     progress = _progress(samples, quiet=as_json)
@@ -290,6 +304,16 @@ def size(file: str, as_json: bool, units: str) -> None:
     from .studies.size import size as run_size
 
     doc = load_toml(file)
+    if "flange" in doc.data:  # a flange file: bolts x grade x method x bolt count
+        from .io.size_text import flange_size_text
+        from .studies.flange_size import size_flange
+
+        fres = _in_file(doc.path, size_flange, doc.data)
+        if as_json:
+            _print_json(fres)
+        else:
+            click.echo(flange_size_text(fres, units))
+        sys.exit(EXIT_OK if fres["designs"] else EXIT_FAIL)
     result = _in_file(doc.path, run_size, doc.data)
     if as_json:
         _print_json(result.to_dict())

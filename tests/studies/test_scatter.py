@@ -167,3 +167,28 @@ torque = "70 N*m"
     assert res.exit_code == 2, res.output
     assert res.stdout == ""
     assert "\n" not in res.stderr.strip() and needle in res.stderr
+
+
+def test_flange_scatter_cli_and_reproducibility(examples_dir):
+    from clampstack.io.flange_input import read_flange_file
+    from clampstack.studies.flange_scatter import flange_scatter
+
+    f = str(examples_dir / "pump-outlet-flange-8-bolts.toml")
+    res = CliRunner().invoke(main, ["scatter", f, "--samples", "5000", "--seed", "3", "--json"])
+    assert res.exit_code == 0, res.output
+    out = json.loads(res.stdout)
+    assert {"p01", "p50", "p99"} <= set(out["percentiles"]["assembly_preload_N"])
+    assert {"p01", "p50", "p99"} <= set(out["percentiles"]["residual_clamp_load_N"])
+    for e in ("separation", "bolt_yield", "slip", "gasket_below_operating"):
+        assert set(out["probabilities"][e]) >= {"estimate", "low", "high"}
+    _, spec = read_flange_file(f)
+    a = flange_scatter(spec, 20_000, seed=9, chunk_blocks=1).to_dict()
+    b = flange_scatter(spec, 20_000, seed=9, chunk_blocks=5).to_dict()
+    assert a["percentiles"] == b["percentiles"] and a["probabilities"] == b["probabilities"]
+    # bounds: preload between T_min/k(mu_max) and T_max/k(mu_min) (ISO 16047 relation)
+    lo, hi = (
+        out["deterministic"]["assembly_preload_min_N"],
+        out["deterministic"]["assembly_preload_max_N"],
+    )
+    q = out["percentiles"]["assembly_preload_N"]
+    assert lo * (1 - 1e-9) <= q["p01"] and q["p99"] <= hi * (1 + 1e-9)

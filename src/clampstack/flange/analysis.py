@@ -577,8 +577,10 @@ def _spread(f: np.ndarray) -> float:
     return float((np.max(f) - np.min(f)) / mean) if mean > 0 else 0.0
 
 
-def analyse_flange(spec: FlangeSpec) -> FlangeResult:
-    """App. 2 bolt loads, gasket window, torque, passes, compensated targets, service, checks."""
+def analyse_flange(spec: FlangeSpec, compensate: bool = True) -> FlangeResult:
+    """App. 2 bolt loads, gasket window, torque, passes, compensated targets, service, checks.
+
+    ``compensate=False`` skips the compensated single-pass targets (sizing studies)."""
     a = asme_app2(spec)
     n = spec.bolt_count
     thr, grd = spec.thread, spec.grade
@@ -668,8 +670,11 @@ def analyse_flange(spec: FlangeSpec) -> FlangeResult:
     assembly_bolts = passes[-1]
     _, asm_bolts, asm_gasket, _ = ring.solve(np.zeros(n))
     comp_order = orders[0]
-    comp_t, comp_final = compensated_targets(spec, target, comp_order)
-    if float(np.max(comp_t)) > FMzul:
+    if compensate:
+        comp_t, comp_final = compensated_targets(spec, target, comp_order)
+    else:
+        comp_t, comp_final = np.full(n, np.nan), np.full(n, target)
+    if compensate and float(np.max(comp_t)) > FMzul:
         notes.append(
             f"The compensated single-pass targets reach {np.max(comp_t) / 1e3:.4g} kN, above the "
             f"permissible preload {FMzul / 1e3:.4g} kN: use several passes instead."

@@ -81,3 +81,61 @@ def scatter_text(r: ScatterResult, units: str = "si") -> str:
     out.append("")
     out.append(CAUTION)
     return "\n".join(out)
+
+
+def flange_scatter_text(r, units: str = "si") -> str:
+    """Percentiles and probabilities of a flange's assembly scatter."""
+    u = UNIT_SYSTEMS[units]
+    F = u.label("force")
+    count = f"{r.samples:,}".replace(",", " ")
+    out = [r.spec.title, f"{count} samples of {r.spec.bolt_count} bolts each, seed {r.seed}", ""]
+    out.append("Sampled inputs")
+    out.extend(f"  {k}: {v}" for k, v in r.distributions.items())
+    out.append("")
+    labels = {
+        "assembly_preload": "assembly preload (every bolt)",
+        "residual_clamp_load": "smallest sector gasket force in service",
+    }
+    rows = [
+        [labels[q]]
+        + [u.fmt("force", r.percentiles[q][k]) for k in ("p01", "p05", "p50", "p95", "p99", "mean")]
+        for q in ("assembly_preload", "residual_clamp_load")
+    ]
+    out.append(
+        table(
+            [f"[{F}]", "1 %", "5 %", "50 %", "95 %", "99 %", "mean"],
+            rows,
+            right=[False] + [True] * 6,
+        )
+    )
+    out.append("")
+    prow = []
+    for name in ("gasket_below_operating", "separation", "bolt_yield"):
+        pr = r.probability(name)
+        prow.append(
+            [
+                name,
+                f"{pr['estimate']:.3g}",
+                f"{pr['low']:.3g} .. {pr['high']:.3g}",
+                str(pr["count"]),
+            ]
+        )
+    out.append(
+        table(
+            ["probability of", "estimate", "95 % interval (Clopper-Pearson)", "count"],
+            prow,
+            right=[False, True, True, True],
+        )
+    )
+    d = r.deterministic
+    out.append("")
+    out.append(
+        f"Deterministic: target {u.fmt('force', d['target_preload_N'])} {F} per bolt, "
+        f"range {u.fmt('force', d['assembly_preload_min_N'])} .. "
+        f"{u.fmt('force', d['assembly_preload_max_N'])} {F}; operating minimum per sector "
+        f"{u.fmt('force', d['operating_minimum_per_sector_N'])} {F}"
+    )
+    out.append("Service state linearised about the deterministic ring analysis.")
+    out.append("")
+    out.append(CAUTION)
+    return "\n".join(out)

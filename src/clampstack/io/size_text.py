@@ -72,3 +72,56 @@ def size_text(r: SizeResult, units: str = "si") -> str:
     )
     out.append(CAUTION)
     return "\n".join(out)
+
+
+def flange_size_text(r: dict, units: str = "si") -> str:
+    """Ranked table of the smallest passing flange boltings."""
+    u = UNIT_SYSTEMS[units]
+    F, T = u.label("force"), u.label("torque")
+    out = [
+        r["title"],
+        f"{r['screened']} candidates fit, {r['checked']} passed the quick screen "
+        "and were analysed in full",
+        "",
+    ]
+    if not r["designs"]:
+        out.append("RESULT: no candidate passes every check")
+    else:
+        out.append(f"RESULT: {len(r['designs'])} passing boltings (fewest, smallest first)")
+        rows = [
+            [
+                str(d["bolt_count"]),
+                d["thread"],
+                d["grade"],
+                d["method"],
+                "-" if d["torque_Nm"] is None else u.fmt("torque", d["torque_Nm"]),
+                u.fmt("force", d["preload_N"]),
+                d["governing_check"],
+                f"{d['margin'] * 100:+.1f} %",
+            ]
+            for d in r["designs"][:MAX_ROWS]
+        ]
+        out.append("")
+        out.append(
+            table(
+                [
+                    "bolts",
+                    "thread",
+                    "grade",
+                    "method",
+                    f"torque [{T}]",
+                    f"preload [{F}]",
+                    "governing check",
+                    "margin",
+                ],
+                rows,
+                right=[True, False, False, False, True, True, False, True],
+            )
+        )
+    out.append("")
+    out.append(
+        "Pressure equipment: the applicable code and a qualified engineer govern; run "
+        "`clampstack flange` on the chosen bolting for the full result."
+    )
+    out.append(CAUTION)
+    return "\n".join(out)

@@ -371,56 +371,7 @@ def scatter(
             if progress is not None:
                 progress(done)
 
-    counts = dict.fromkeys(EVENTS, 0)
-    percentiles: dict[str, dict[str, float]] = {}
-    hist: dict[str, tuple[np.ndarray, np.ndarray]] = {}
-    if exact:
-        store: dict[str, list[np.ndarray]] = {q: [] for q in QUANTS}
-        for out in blocks():
-            for e in EVENTS:
-                counts[e] += int(np.count_nonzero(out[e]))
-            for q in QUANTS:
-                store[q].append(np.asarray(out[q], dtype=float))
-        for q in QUANTS:
-            allv = np.concatenate(store[q])
-            vals = np.percentile(allv, list(QUANTILES.values()))
-            percentiles[q] = {k: float(v) for k, v in zip(QUANTILES, vals, strict=True)}
-            percentiles[q]["mean"] = float(np.mean(allv))
-            c, edges = np.histogram(allv, bins=60)
-            hist[q] = (edges, c)
-    else:
-        lo = dict.fromkeys(QUANTS, math.inf)
-        hi = dict.fromkeys(QUANTS, -math.inf)
-        total = dict.fromkeys(QUANTS, 0.0)
-        for out in blocks():  # pass 1: events, extremes, means
-            for e in EVENTS:
-                counts[e] += int(np.count_nonzero(out[e]))
-            for q in QUANTS:
-                lo[q] = min(lo[q], float(np.min(out[q])))
-                hi[q] = max(hi[q], float(np.max(out[q])))
-                total[q] += float(np.sum(out[q]))
-        fine = {q: np.zeros(BINS, dtype=np.int64) for q in QUANTS}
-        for out in blocks():  # pass 2: fine histograms (the same samples again)
-            for q in QUANTS:
-                span = hi[q] - lo[q]
-                if span <= 0:
-                    fine[q][0] += out[q].size
-                    continue
-                idx = np.minimum(((out[q] - lo[q]) / span * BINS).astype(np.int64), BINS - 1)
-                fine[q] += np.bincount(idx, minlength=BINS)
-        for q in QUANTS:
-            cum = np.cumsum(fine[q])
-            span = hi[q] - lo[q]
-            percentiles[q] = {}
-            for k, p in QUANTILES.items():
-                target = p / 100 * samples
-                i = int(np.searchsorted(cum, target))
-                prev = cum[i - 1] if i > 0 else 0
-                frac = (target - prev) / max(fine[q][i], 1)
-                percentiles[q][k] = lo[q] + (i + frac) / BINS * span if span > 0 else lo[q]
-            percentiles[q]["mean"] = total[q] / samples
-            coarse = fine[q].reshape(-1, BINS // 64).sum(axis=1) if span > 0 else fine[q][:64]
-            hist[q] = (np.linspace(lo[q], hi[q] if span > 0 else lo[q] + 1, 65), coarse)
+    counts, percentiles, hist = accumulate(blocks, QUANTS, EVENTS, exact)
 
     det = analyse(spec)
     deterministic = {
@@ -436,6 +387,70 @@ def scatter(
     return ScatterResult(
         spec, samples, seed, percentiles, counts, hist, deterministic, nasa, described, exact
     )
+
+
+def accumulate(
+    blocks: Callable[[], Any], quants: tuple[str, ...], events: tuple[str, ...], exact: bool
+) -> tuple[dict[str, int], dict[str, dict[str, float]], dict[str, tuple[np.ndarray, np.ndarray]]]:
+    """Event counts, percentiles and histograms over the blocks ``blocks()`` yields.
+
+    ``exact``: keep every value and take exact percentiles; otherwise two passes over the
+    same blocks (extremes, then a histogram of :data:`BINS` bins), memory bounded.
+    """
+    counts = dict.fromkeys(events, 0)
+    percentiles: dict[str, dict[str, float]] = {}
+    hist: dict[str, tuple[np.ndarray, np.ndarray]] = {}
+    if exact:
+        store: dict[str, list[np.ndarray]] = {q: [] for q in quants}
+        for out in blocks():
+            for e in events:
+                counts[e] += int(np.count_nonzero(out[e]))
+            for q in quants:
+                store[q].append(np.asarray(out[q], dtype=float).ravel())
+        for q in quants:
+            allv = np.concatenate(store[q])
+            vals = np.percentile(allv, list(QUANTILES.values()))
+            percentiles[q] = {k: float(v) for k, v in zip(QUANTILES, vals, strict=True)}
+            percentiles[q]["mean"] = float(np.mean(allv))
+            c, edges = np.histogram(allv, bins=60)
+            hist[q] = (edges, c)
+        return counts, percentiles, hist
+    lo = dict.fromkeys(quants, math.inf)
+    hi = dict.fromkeys(quants, -math.inf)
+    total = dict.fromkeys(quants, 0.0)
+    number = dict.fromkeys(quants, 0)
+    for out in blocks():  # pass 1: events, extremes, means
+        for e in events:
+            counts[e] += int(np.count_nonzero(out[e]))
+        for q in quants:
+            lo[q] = min(lo[q], float(np.min(out[q])))
+            hi[q] = max(hi[q], float(np.max(out[q])))
+            total[q] += float(np.sum(out[q]))
+            number[q] += int(np.size(out[q]))
+    fine = {q: np.zeros(BINS, dtype=np.int64) for q in quants}
+    for out in blocks():  # pass 2: fine histograms (the same samples again)
+        for q in quants:
+            span = hi[q] - lo[q]
+            v = np.asarray(out[q], dtype=float).ravel()
+            if span <= 0:
+                fine[q][0] += v.size
+                continue
+            idx = np.minimum(((v - lo[q]) / span * BINS).astype(np.int64), BINS - 1)
+            fine[q] += np.bincount(idx, minlength=BINS)
+    for q in quants:
+        cum = np.cumsum(fine[q])
+        span = hi[q] - lo[q]
+        percentiles[q] = {}
+        for k, p in QUANTILES.items():
+            target = p / 100 * number[q]
+            i = min(int(np.searchsorted(cum, target)), BINS - 1)
+            prev = cum[i - 1] if i > 0 else 0
+            frac = (target - prev) / max(fine[q][i], 1)
+            percentiles[q][k] = lo[q] + (i + frac) / BINS * span if span > 0 else lo[q]
+        percentiles[q]["mean"] = total[q] / number[q]
+        coarse = fine[q].reshape(-1, BINS // 64).sum(axis=1) if span > 0 else fine[q][:64]
+        hist[q] = (np.linspace(lo[q], hi[q] if span > 0 else lo[q] + 1, 65), coarse)
+    return counts, percentiles, hist
 
 
 def _unit(key: str) -> str:
