@@ -17,32 +17,35 @@ def demo_input_path(name: str = DEMO_JOINT) -> Path:
 
 
 def run_demo(out_dir: str) -> list[str]:
-    """Check the bundled joint and solve the bundled assembly; write results into ``out_dir``.
+    """Report the bundled joint and solve the bundled assembly; write the results into ``out_dir``.
 
-    Returns the lines to print.  Everything is rendered before anything is
-    written, and each file is replaced atomically.
+    The joint gets the full calculation report (HTML with its JSON and CSV
+    files, :mod:`clampstack.report`) and the readable ``check`` output; the
+    assembly its JSON and HTML.  Returns the lines to print.  Everything is
+    rendered before anything is written, and each file is replaced atomically.
     """
     from .assembly import solve_assembly
     from .io.assembly_input import read_assembly_file
     from .io.files import write_files
-    from .io.html import assembly_html, joint_html
+    from .io.html import assembly_html
     from .io.joint_input import read_joint_file
     from .io.joint_text import joint_text
     from .joint import analyse
+    from .report import render_joint_report, report_file_names
 
     jdoc, spec = read_joint_file(str(demo_input_path(DEMO_JOINT)))
     joint = analyse(spec)
     adoc, asm = read_assembly_file(str(demo_input_path(DEMO_ASSEMBLY)))
     assembly = solve_assembly(asm)
     text = joint_text(joint)
-    files = {
+    files: dict[str, str | bytes] = {
         DEMO_JOINT: jdoc.text,
         "check.txt": text + "\n",
-        "check.json": json.dumps(joint.to_dict(), indent=2, allow_nan=False) + "\n",
-        "check.html": joint_html(joint, DEMO_JOINT, jdoc.sha256),
         DEMO_ASSEMBLY: adoc.text,
         "solve.json": json.dumps(assembly.to_dict(), indent=2, allow_nan=False) + "\n",
         "solve.html": assembly_html(assembly, DEMO_ASSEMBLY, adoc.sha256),
     }
+    files.update(render_joint_report(jdoc, joint))
     written = write_files(out_dir, files)
-    return [text, "", "Wrote:", *(f"  {p}" for p in written)]
+    page = Path(out_dir) / report_file_names(Path(DEMO_JOINT).stem)["html"]
+    return [text, "", f"Report: {page}", "", "Wrote:", *(f"  {p}" for p in written)]

@@ -9,15 +9,24 @@ from click.testing import CliRunner
 from clampstack.cli import main
 
 
-def test_demo_writes_json_and_html(tmp_path):
+def test_demo_writes_the_report_and_the_results(tmp_path):
     out = tmp_path / "demo"
     res = CliRunner().invoke(main, ["demo", "-o", str(out)])
     assert res.exit_code == 0, res.output
-    joint = json.loads((out / "check.json").read_text())
+    report = out / "m10-cover-screw-aluminium.html"
+    assert f"Report: {report}" in res.output  # the demo prints where its report is
+    joint = json.loads((out / "m10-cover-screw-aluminium.json").read_text())
     assert joint["ok"] is True
-    jpage = (out / "check.html").read_text()
-    assert "qualified engineer" in jpage and "PASS" in jpage
+    jpage = report.read_text()
+    assert jpage.startswith("<!DOCTYPE html>")
+    assert "qualified engineer" in jpage and "<b>PASS</b>" in jpage
+    assert "http://" not in jpage and "https://" not in jpage  # self-contained
+    assert jpage.count("<svg ") == 3  # spring model, joint diagram, load curves
+    assert (out / "m10-cover-screw-aluminium-states.csv").is_file()
+    assert (out / "m10-cover-screw-aluminium-checks.csv").is_file()
+    assert (out / "m10-cover-screw-aluminium.toml").is_file()
     assert "RESULT: PASS" in res.output
+    assert "RESULT: PASS" in (out / "check.txt").read_text()
     data = json.loads((out / "solve.json").read_text())
     assert data["cases"][0]["name"] == "assembly"
     page = (out / "solve.html").read_text()
@@ -27,7 +36,7 @@ def test_demo_writes_json_and_html(tmp_path):
     # the numbers of the JSON appear on the page (force in kN, 4 significant digits)
     rod = data["cases"][0]["parts"]["tie-rod"]["force_N"] / 1e3
     assert f"{rod:.3f}" in page
-    assert str(out / "check.json") in res.output
+    assert str(out / "solve.json") in res.output
 
 
 def test_catalog_listings():
@@ -47,5 +56,5 @@ def test_catalog_listings():
 def test_help_lists_commands():
     res = CliRunner().invoke(main, ["--help"])
     assert res.exit_code == 0
-    for cmd in ("solve", "catalog", "demo"):
+    for cmd in ("solve", "catalog", "demo", "report"):
         assert cmd in res.output

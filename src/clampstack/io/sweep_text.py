@@ -2,6 +2,8 @@
 
 from __future__ import annotations
 
+import html
+
 import numpy as np
 
 from ..studies.sweep import C0, SweepResult
@@ -98,3 +100,42 @@ def sweep_text(r: SweepResult, units: str = "si") -> str:
     out.append("")
     out.append(CAUTION)
     return "\n".join(out)
+
+
+def sweep_html_table(r: SweepResult, max_rows: int = MAX_ROWS) -> str:
+    """Verdict, limits and a table of about ``max_rows`` evenly spread points (Jupyter)."""
+    e = html.escape
+    T = r.temperature
+    idx = np.arange(T.size)
+    if T.size > max_rows:
+        idx = np.unique(np.round(np.linspace(0, T.size - 1, max_rows)).astype(int))
+    names = list(r.margins)
+    rows = []
+    for i in idx:
+        worst = min(names, key=lambda n: r.margins[n][i]) if names else ""
+        margin = f"{e(worst)} {r.margins[worst][i] * 100:+.1f} %" if worst else ""
+        rows.append(
+            f"<tr><td>{T[i] - C0:.1f}</td><td>{r.preload_min[i] / 1e3:.4g}</td>"
+            f"<td>{r.preload_max[i] / 1e3:.4g}</td><td>{r.residual_min[i] / 1e3:.4g}</td>"
+            f"<td>{r.bolt_stress_max[i] / 1e6:.4g}</td><td style='text-align:left'>{margin}</td>"
+            f"<td>{'ok' if r.ok[i] else '<b>FAIL</b>'}</td></tr>"
+        )
+    limits = "".join(
+        f"<li>{e(lim.check)} fails "
+        + (
+            "over the whole range"
+            if lim.fails == "whole range"
+            else f"{e(lim.fails)} {lim.temperature - C0:.2f} degC"
+        )
+        + "</li>"
+        for lim in r.limits
+    )
+    verdict = "PASS" if np.all(r.ok) else "FAIL"
+    shown = f"{idx.size} of {T.size} points" if T.size > idx.size else f"{T.size} points"
+    return (
+        f"<div><b>{e(r.spec.title)}</b>: {verdict} from {T[0] - C0:g} to {T[-1] - C0:g} degC "
+        f"({shown})" + (f"<ul>{limits}</ul>" if limits else "") + "<table><tr><th>T [degC]</th>"
+        "<th>preload min [kN]</th><th>preload max [kN]</th><th>residual clamp min [kN]</th>"
+        "<th>bolt stress max [MPa]</th><th>smallest margin</th><th></th></tr>"
+        f"{''.join(rows)}</table><p><small>{e(CAUTION)}</small></p></div>"
+    )

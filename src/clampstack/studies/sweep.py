@@ -127,6 +127,12 @@ class SweepResult:
             lines.append(",".join(row))
         return "\n".join(lines) + "\n"
 
+    def _repr_html_(self) -> str:
+        """Jupyter: verdict, limits and a table of a thinned set of the points."""
+        from ..io.sweep_text import sweep_html_table
+
+        return sweep_html_table(self)
+
 
 def _finite(x: float) -> float | None:
     return float(x) if np.isfinite(x) else None

@@ -1,0 +1,266 @@
+"""Figures of studies: temperature sweep, tightening passes, scatter histograms.
+
+Drawn from the study results as they are (no mechanics here).  Artists that
+carry values have a ``gid`` so that tests can read the plotted data back.
+"""
+
+from __future__ import annotations
+
+from collections.abc import Sequence
+
+import numpy as np
+from matplotlib.figure import Figure
+
+from ..io.text import UNIT_SYSTEMS, fmt_number
+from ..studies.sweep import C0, SweepResult
+from ._style import (
+    BOLT,
+    BOLT_LIGHT,
+    CLAMP,
+    GOOD,
+    INK,
+    LIMIT,
+    LIMIT_LIGHT,
+    MUTED,
+    PASS_RAMP,
+    new_figure,
+    style,
+)
+
+
+def _force(units: str) -> tuple[str, float]:
+    return UNIT_SYSTEMS[units].force
+
+
+def sweep_plot(result: SweepResult, units: str = "si") -> Figure:
+    """Preload and residual clamp load against service temperature.
+
+    The band is the preload at temperature between the minimum assembly preload
+    (after embedding) and the maximum assembly preload: the assembly scatter
+    carried through the temperature range.  The line below it is the residual
+    clamp load under the maximum working load (minimum branch).  Points where a
+    check fails are shaded; the temperatures where a check starts to fail
+    (``result.limits``, root-found) are marked and named.
+    """
+    fl, ff = _force(units)
+    s = result.spec
+    T = result.temperature - C0
+    with style():
+        fig = new_figure(height=3.8)
+        ax = fig.add_subplot()
+        ax.set_title("Preload and residual clamp load over the service temperature")
+        ax.set_xlabel("service temperature [°C]")
+        ax.set_ylabel(f"force [{fl}]")
+        band = ax.fill_between(
+            T,
+            result.preload_min / ff,
+            result.preload_max / ff,
+            color=BOLT_LIGHT,
+            lw=0,
+            label="preload, assembly scatter $F_{M,min}$ .. $F_{M,max}$",
+        )
+        band.set_gid("preload-band")
+        ax.plot(T, result.preload_max / ff, color=BOLT, lw=1.0, gid="preload-max")
+        ax.plot(T, result.preload_min / ff, color=BOLT, lw=1.6, gid="preload-min")
+        ax.plot(
+            T,
+            result.residual_min / ff,
+            color=CLAMP,
+            lw=1.8,
+            gid="residual-min",
+            label="residual clamp load $F_{KR,min}$",
+        )
+        rq = s.requirements.residual_clamp_load
+        if rq > 0:
+            ax.axhline(rq / ff, color=GOOD, lw=0.9, ls=(0, (4, 2)), label="required clamp load")
+            ax.get_lines()[-1].set_gid("required-clamp-load")
+        Ta = s.service.assembly_temperature - C0
+        if T[0] <= Ta <= T[-1]:
+            ax.axvline(Ta, color=MUTED, lw=0.8, ls=":")
+            ax.get_lines()[-1].set_gid("assembly-temperature")
+            ax.annotate(
+                f"assembly {Ta:g} °C",
+                (Ta, 1.0),
+                xycoords=("data", "axes fraction"),
+                xytext=(3, -3),
+                textcoords="offset points",
+                va="top",
+                fontsize=7,
+                color=MUTED,
+            )
+        bad = ~np.asarray(result.ok, dtype=bool)
+        if bad.any():
+            fill = ax.fill_between(
+                T,
+                0,
+                1,
+                where=bad,
+                transform=ax.get_xaxis_transform(),
+                color=LIMIT_LIGHT,
+                lw=0,
+                zorder=0,
+                label="a check fails",
+            )
+            fill.set_gid("failing")
+        for i, lim in enumerate(result.limits):
+            t = lim.temperature - C0
+            ax.axvline(t, color=LIMIT, lw=1.0, ls=(0, (4, 1.5)))
+            ax.get_lines()[-1].set_gid(f"limit-{i}")
+            where = (
+                "over the whole range" if lim.fails == "whole range" else f"{lim.fails} {t:.1f} °C"
+            )
+            ax.annotate(
+                f"{lim.check} fails {where}",
+                (t, 0.0),
+                xycoords=("data", "axes fraction"),
+                xytext=(3, 4 + 11 * i),
+                textcoords="offset points",
+                rotation=0,
+                fontsize=7,
+                color=LIMIT,
+            ).set_gid(f"limit-label-{i}")
+        top = float(np.max(result.preload_max)) / ff
+        ax.set_ylim(min(0.0, float(np.min(result.residual_min)) / ff * 1.05), top * 1.1)
+        ax.set_xlim(T[0], T[-1])
+        fig.legend(loc="outside lower center", ncols=4, fontsize=7, handlelength=2.6)
+    return fig
+
+
+def passes_plot(
+    passes: Sequence[Sequence[float]],
+    bolt_count: int,
+    target: float | None = None,
+    units: str = "si",
+    title: str = "Preload of each bolt after each tightening pass",
+) -> Figure:
+    """Preload of every bolt after every tightening pass (elastic interaction).
+
+    Parameters
+    ----------
+    passes
+        ``passes[k][i]``: preload of bolt ``i`` (numbered from 1 in the figure)
+        after pass ``k`` [N].
+    bolt_count
+        Number of bolts; every pass must list that many preloads.
+    target
+        Target preload [N], drawn as a line if given.
+    """
+    if bolt_count < 1:
+        raise ValueError("bolt_count must be at least 1")
+    data = [np.asarray(p, dtype=float) for p in passes]
+    if not data:
+        raise ValueError("no passes to plot")
+    for k, p in enumerate(data):
+        if p.shape != (bolt_count,):
+            raise ValueError(f"pass {k + 1} lists {p.size} preloads, expected {bolt_count}")
+    fl, ff = _force(units)
+    x = np.arange(1, bolt_count + 1)
+    # earlier passes in lighter shades of the bolt colour, the final pass in the bolt colour
+    idx = np.round(np.linspace(0, len(PASS_RAMP) - 2, max(len(data) - 1, 1))).astype(int)
+    ramp = [PASS_RAMP[i] for i in idx][: len(data) - 1] + [BOLT]
+    with style():
+        fig = new_figure(height=3.4)
+        ax = fig.add_subplot()
+        ax.set_title(title)
+        ax.set_xlabel("bolt")
+        ax.set_ylabel(f"preload [{fl}]")
+        for k, p in enumerate(data):
+            last = k == len(data) - 1
+            color = ramp[k]
+            ax.plot(
+                x,
+                p / ff,
+                marker="o",
+                ms=4.5 if last else 3,
+                lw=2.0 if last else 1.0,
+                color=color,
+                label=f"after pass {k + 1}",
+                gid=f"pass-{k + 1}",
+            )
+        if target is not None:
+            ax.axhline(target / ff, color=INK, lw=0.9, ls=(0, (4, 2)), label="target")
+            ax.get_lines()[-1].set_gid("target")
+        final = data[-1]
+        ax.annotate(
+            f"final: {fmt_number(final.min() / ff)} .. {fmt_number(final.max() / ff)} {fl}",
+            (1.0, 0.0),
+            xycoords="axes fraction",
+            xytext=(-2, 4),
+            textcoords="offset points",
+            ha="right",
+            fontsize=7.5,
+            color=INK,
+        ).set_gid("final-range")
+        if bolt_count <= 24:
+            ax.set_xticks(x)
+        ax.set_xlim(0.5, bolt_count + 0.5)
+        ax.set_ylim(0, max(float(np.max([p.max() for p in data])), target or 0.0) / ff * 1.15)
+        ax.legend(loc="upper left", ncols=min(len(data) + (target is not None), 6), fontsize=7)
+    return fig
+
+
+def histogram(
+    samples: Sequence[float] | np.ndarray,
+    quantity: str = "assembly preload",
+    unit: str = "kN",
+    scale: float = 1e3,
+    limit: float | None = None,
+    limit_label: str = "limit",
+    bins: int | str = "auto",
+    percentiles: Sequence[float] = (1.0, 50.0, 99.0),
+) -> Figure:
+    """Histogram of ``samples`` (SI values; shown divided by ``scale`` in ``unit``).
+
+    Percentiles (``numpy.percentile``, linear interpolation) are marked and
+    named; ``limit`` (SI) is drawn as a line, with the share of samples beyond
+    it on the side away from the median.
+    """
+    v = np.asarray(samples, dtype=float).ravel()
+    v = v[np.isfinite(v)]
+    if v.size == 0:
+        raise ValueError("no finite samples to plot")
+    shown = v / scale
+    with style():
+        fig = new_figure(height=3.4)
+        ax = fig.add_subplot()
+        ax.set_title(f"{quantity[:1].upper()}{quantity[1:]}: {v.size:,} samples".replace(",", " "))
+        ax.set_xlabel(f"{quantity} [{unit}]")
+        ax.set_ylabel("samples")
+        _, _, patches = ax.hist(shown, bins=bins, color=BOLT, alpha=0.85, edgecolor="white", lw=0.4)
+        for p in patches:
+            p.set_gid("bar")
+        ax.grid(axis="x", visible=False)
+        pct = np.percentile(shown, list(percentiles))
+        for k, (q, x) in enumerate(zip(percentiles, pct, strict=True)):
+            ax.axvline(x, color=INK if q == 50 else MUTED, lw=1.0, ls="-" if q == 50 else "--")
+            ax.get_lines()[-1].set_gid(f"p{q:g}")
+            ax.annotate(
+                f"p{q:02g} = {fmt_number(float(x))}",
+                (x, 1.0),
+                xycoords=("data", "axes fraction"),
+                xytext=(3, -3 - 10 * (k % 2)),
+                textcoords="offset points",
+                va="top",
+                fontsize=7,
+                color=INK,
+            ).set_gid(f"label-p{q:g}")
+        if limit is not None:
+            lim = limit / scale
+            ax.axvline(lim, color=LIMIT, lw=1.4)
+            ax.get_lines()[-1].set_gid("limit")
+            below = lim < np.median(shown)
+            share = float(np.mean(shown < lim) if below else np.mean(shown > lim))
+            ax.annotate(
+                f"{limit_label} {fmt_number(lim)} {unit}: {share * 100:.3g} % "
+                f"{'below' if below else 'above'}",
+                (lim, 0.5),
+                xycoords=("data", "axes fraction"),
+                xytext=(-4 if below else 4, 0),
+                textcoords="offset points",
+                ha="right" if below else "left",
+                fontsize=7,
+                color=LIMIT,
+                rotation=90,
+                va="center",
+            ).set_gid("limit-label")
+    return fig

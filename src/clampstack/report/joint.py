@@ -1,0 +1,750 @@
+"""HTML calculation report of a single-bolt joint, with JSON and CSV beside it.
+
+The page is self-contained: inline CSS, figures as inline SVG, no scripts, no
+fonts or images to fetch and no URL at all.  It prints on A4 and on Letter
+(``@page`` margins that fit both, page numbers in the page margin, break rules
+that keep headings with what follows and figures and table rows whole).
+"""
+
+from __future__ import annotations
+
+import csv
+import html
+import io
+import json
+from datetime import UTC, datetime
+from pathlib import Path
+from typing import Any
+
+from .. import __version__
+from ..errors import InputError
+from ..io.files import InputDocument
+from ..io.joint_text import _check_value, _margin, _mu, governing
+from ..io.text import CAUTION, UNIT_SYSTEMS, DisplayUnits
+from ..joint.analysis import JointResult
+
+C0 = 273.15
+SWEEP_MARGIN = 20.0  # K beyond the assembly and service temperatures
+
+REFERENCES: tuple[str, ...] = (
+    "VDI 2230 Part 1:2015, <i>Systematic calculation of highly stressed bolted joints &mdash; "
+    "Joints with one cylindrical bolt</i>. VDI, D&uuml;sseldorf.",
+    "ISO 898-1:2013, <i>Mechanical properties of fasteners made of carbon steel and alloy "
+    "steel &mdash; Part 1: Bolts, screws and studs with specified property classes &mdash; "
+    "Coarse thread and fine pitch thread</i>.",
+    "ISO 16047:2005, <i>Fasteners &mdash; Torque/clamp force testing</i>.",
+    "Budynas, R. G., Nisbett, J. K., <i>Shigley's Mechanical Engineering Design</i>, "
+    "McGraw-Hill, chapter 8 (screws, fasteners and the design of non-permanent joints).",
+    "Wileman, J., Choudhury, M., Green, I., &ldquo;Computation of member stiffness in bolted "
+    "connections&rdquo;, <i>Journal of Mechanical Design</i> 113 (1991) 432&ndash;437.",
+    "Alexander, E. M., &ldquo;Analysis and design of threaded assemblies&rdquo;, SAE Technical "
+    "Paper 770420, 1977.",
+    "FED-STD-H28/2, <i>Screw-thread standards for federal services</i>, section 2.",
+    "ISO 68-1, ISO 261, ISO 262, ISO 724 (ISO general purpose metric screw threads); "
+    "ASME B1.1-2019, <i>Unified Inch Screw Threads</i>.",
+    "ISO 273:1979 (clearance holes); ISO 4014, ISO 4032, ISO 4762 (dimensions of hexagon "
+    "head bolts, hexagon nuts and socket head cap screws).",
+    "ISO 3506-1 (stainless steel fasteners), SAE J429 (inch-series bolts), ASTM A193/A193M "
+    "(bolting for high-temperature service), ASME BPVC Section II Part D (material "
+    "properties at temperature): catalog data, each row with its source "
+    "(<code>clampstack catalog</code>).",
+    "Przemieniecki, J. S., <i>Theory of Matrix Structural Analysis</i>, McGraw-Hill, 1968, "
+    "chapter 3 (the direct stiffness method of the spring network).",
+)
+
+_CSS = """
+:root{--ink:#1e2b33;--muted:#5d6b73;--rule:#d6dde1;--accent:#1b6c8f;--accent-bg:#eaf2f6;
+--pass:#2f7a4a;--pass-bg:#e7f3eb;--fail:#b3261e;--fail-bg:#fbe9e7;--warn:#9a5b12;--warn-bg:#fbf2e4}
+*{box-sizing:border-box}
+html{-webkit-print-color-adjust:exact;print-color-adjust:exact}
+body{font-family:"DejaVu Sans","Liberation Sans",Arial,Helvetica,sans-serif;font-size:10pt;
+line-height:1.4;color:var(--ink);max-width:186mm;margin:1.5rem auto;padding:0 1rem}
+h1{font-size:16pt;margin:0 0 .2rem;line-height:1.2}
+h2{font-size:12pt;margin:1.4rem 0 .5rem;padding-bottom:.15rem;border-bottom:2px solid var(--accent);
+color:var(--ink)}
+h3{font-size:10.5pt;margin:1rem 0 .35rem;color:var(--accent)}
+p{margin:.35rem 0}
+.sub{color:var(--muted);margin:0 0 .6rem}
+.meta{color:var(--muted);font-size:8.5pt}
+.mono,code,pre{font-family:"DejaVu Sans Mono","Liberation Mono",Consolas,monospace}
+code{font-size:9pt}
+table{border-collapse:collapse;margin:.4rem 0 .6rem;font-variant-numeric:tabular-nums;width:100%}
+th,td{border-bottom:1px solid var(--rule);padding:.2rem .45rem;text-align:right;vertical-align:top}
+th{background:var(--accent-bg);font-weight:600;font-size:9pt}
+td.l,th.l{text-align:left}
+table.kv{width:auto}table.kv th{text-align:left;background:none;font-weight:normal;color:var(--muted)}
+table.kv td{text-align:left}
+table.small td,table.small th{font-size:8.5pt}
+table.checks th:first-child{width:25%}table.checks th:last-child{width:38%}
+td.src{font-size:8pt;color:var(--muted);text-align:left}
+.pass{color:var(--pass);font-weight:600}.fail{color:var(--fail);font-weight:700}
+.off{color:var(--muted)}
+.verdict{border-radius:4px;padding:.55rem .8rem;margin:.6rem 0;font-size:11pt}
+.verdict.ok{background:var(--pass-bg);border-left:6px solid var(--pass)}
+.verdict.bad{background:var(--fail-bg);border-left:6px solid var(--fail)}
+.verdict b{font-size:13pt}
+.spec{display:flex;flex-wrap:wrap;gap:.5rem 1.5rem;align-items:baseline;background:var(--accent-bg);
+border-radius:4px;padding:.55rem .8rem;margin:.6rem 0}
+.spec .big{font-size:17pt;font-weight:700;color:var(--accent)}
+.caution{border-left:5px solid var(--warn);background:var(--warn-bg);padding:.5rem .8rem;margin:.8rem 0;
+font-size:9pt}
+pre.input{background:#f6f8f9;border:1px solid var(--rule);border-radius:3px;padding:.5rem .7rem;
+font-size:8.5pt;white-space:pre-wrap;word-break:break-word;margin:.4rem 0}
+figure{margin:.6rem 0 .9rem}
+figure svg.figure{width:100%;height:auto;display:block}
+figcaption{font-size:8.5pt;color:var(--muted);margin-top:.25rem}
+ol.refs li,ul.notes li{margin:.2rem 0}
+footer{margin-top:1.5rem;border-top:1px solid var(--rule);padding-top:.4rem}
+.hash{font-family:"DejaVu Sans Mono","Liberation Mono",monospace;font-size:8pt;word-break:break-all}
+@page{margin:16mm 15mm 17mm 15mm;
+@bottom-left{content:"__FOOTER__";font-family:"DejaVu Sans",Arial,sans-serif;font-size:7pt;color:#5d6b73}
+@bottom-right{content:"page " counter(page) " of " counter(pages);
+font-family:"DejaVu Sans",Arial,sans-serif;font-size:7pt;color:#5d6b73}}
+@media print{
+body{max-width:none;margin:0;padding:0;font-size:9pt}
+h2{break-after:avoid-page;page-break-after:avoid}
+h3{break-after:avoid-page;page-break-after:avoid}
+figure,.verdict,.spec,.caution,table.kv,.keep{break-inside:avoid;page-break-inside:avoid}
+tr,td,th{break-inside:avoid;page-break-inside:avoid}
+thead{display:table-header-group}
+pre.input{break-inside:auto}
+section.newpage{break-before:page;page-break-before:always}
+}
+"""
+
+
+def report_file_names(stem: str) -> dict[str, str]:
+    """Names of the report files for an input file named ``stem`` (without extension)."""
+    return {
+        "html": f"{stem}.html",
+        "json": f"{stem}.json",
+        "states": f"{stem}-states.csv",
+        "checks": f"{stem}-checks.csv",
+    }
+
+
+# --------------------------------------------------------------------------- helpers
+
+
+def _e(x: object) -> str:
+    """Escape text for HTML; ``scheme://`` is written with an entity so the file names no URL."""
+    s = html.escape(str(x))
+    return s.replace("http://", "http&#58;//").replace("https://", "https&#58;//")
+
+
+def _lab(u: DisplayUnits, kind: str) -> str:
+    lab = u.label(kind)
+    return (
+        lab.replace("N*m", "N&middot;m")
+        .replace("ft*lbf", "ft&middot;lbf")
+        .replace("^2", "&sup2;")
+        .replace("um", "&micro;m")
+    )
+
+
+def _f(u: DisplayUnits, kind: str, value: float | None) -> str:
+    """A value with its unit: ``13.51 kN``."""
+    if value is None:
+        return "&ndash;"
+    return f"{u.fmt(kind, value)}&nbsp;{_lab(u, kind)}"
+
+
+def _table(
+    headers: list[str], rows: list[list[str]], left: set[int] | None = None, cls: str = ""
+) -> str:
+    left = left or {0}
+
+    def cell(tag: str, i: int, content: str) -> str:
+        return f'<{tag} class="l">{content}</{tag}>' if i in left else f"<{tag}>{content}</{tag}>"
+
+    th = "".join(cell("th", i, h) for i, h in enumerate(headers))
+    body = "".join(
+        "<tr>" + "".join(cell("td", i, c) for i, c in enumerate(r)) + "</tr>" for r in rows
+    )
+    c = f' class="{cls}"' if cls else ""
+    return f"<table{c}><thead><tr>{th}</tr></thead><tbody>{body}</tbody></table>"
+
+
+def _kv(rows: list[tuple[str, str]]) -> str:
+    body = "".join(f"<tr><th>{k}</th><td>{v}</td></tr>" for k, v in rows)
+    return f'<table class="kv"><tbody>{body}</tbody></table>'
+
+
+def _figure(fig: Any, prefix: str, title: str, caption: str) -> str:
+    from ..plots import inline_svg
+
+    svg = inline_svg(fig, prefix, title=title)
+    return f"<figure>{svg}<figcaption>{caption}</figcaption></figure>"
+
+
+def _css_string(text: str) -> str:
+    t = " ".join(text.split())
+    if len(t) > 90:
+        t = t[:87] + "..."
+    return t.replace("\\", "\\\\").replace('"', '\\"')
+
+
+# --------------------------------------------------------------------------- sections
+
+
+def _summary(r: JointResult, u: DisplayUnits) -> str:
+    s = r.spec
+    tr = s.tightening
+    gov = governing(r)
+    active = [c for c in r.checks if c.skipped is None]
+    if r.ok:
+        verdict = (
+            f'<div class="verdict ok"><b>PASS</b> &mdash; all {len(active)} checks pass'
+            + (
+                f"; governing check <b>{_e(gov.name)}</b> (margin {_e(_margin(gov))})"
+                if gov
+                else ""
+            )
+            + "</div>"
+        )
+    else:
+        failed = ", ".join(_e(c.name) for c in r.checks if not c.passed)
+        verdict = (
+            f'<div class="verdict bad"><b>FAIL</b> &mdash; {failed}'
+            + (f"; smallest margin: {_e(gov.name)} ({_e(_margin(gov))})" if gov else "")
+            + "</div>"
+        )
+    if r.torque is not None:
+        t0, t1, t2 = r.torque
+        spec = (
+            f'<div class="spec"><span>Tightening torque</span>'
+            f'<span class="big">{_f(u, "torque", t0)}</span>'
+            f"<span>min {_f(u, 'torque', t1)} &middot; max {_f(u, 'torque', t2)}</span>"
+            f"<span>method {_e(tr.method)}; thread friction {_e(_mu(tr.thread_friction))}, "
+            f"head friction {_e(_mu(tr.head_friction))}</span></div>"
+        )
+    else:
+        spec = (
+            f'<div class="spec"><span>Method {_e(tr.method)}</span>'
+            f'<span class="big">{_f(u, "force", r.assembly_min)} .. '
+            f"{_f(u, 'force', r.assembly_max)}</span><span>assembly preload (no torque "
+            "specification)</span></div>"
+        )
+    svc = s.service
+    rows = [
+        (
+            "Assembly preload F<sub>M,min</sub> .. F<sub>M,max</sub>",
+            f"{_f(u, 'force', r.assembly_min)} .. {_f(u, 'force', r.assembly_max)} "
+            f"(permissible {_f(u, 'force', r.permissible_preload)})",
+        ),
+        ("Maximum bolt load", _f(u, "force", r.bolt_load_max)),
+        (
+            "Minimum residual clamp load F<sub>KR,min</sub>",
+            f"{_f(u, 'force', r.residual_clamp_min)} (required "
+            f"{_f(u, 'force', r.required_clamp_load)})",
+        ),
+        (
+            "Separation load F<sub>A,sep</sub>",
+            f"{_f(u, 'force', r.separation_load)} (maximum axial load "
+            f"{_f(u, 'force', svc.axial_load[1])})",
+        ),
+        (
+            "Load factor &Phi;<sub>n</sub>",
+            f"{r.load_factor:.4g} at assembly, {r.load_factor_service:.4g} in service "
+            f"(n = {svc.load_height:g})",
+        ),
+        (
+            "Temperatures",
+            f"assembly {svc.assembly_temperature - C0:g} &deg;C, service "
+            f"{svc.temperature - C0:g} &deg;C",
+        ),
+    ]
+    return (
+        '<section id="summary"><h2>1. Summary</h2>'
+        f"{verdict}{spec}{_kv(rows)}"
+        f'<div class="caution">{_e(CAUTION)}</div></section>'
+    )
+
+
+def _inputs(doc: InputDocument, r: JointResult) -> str:
+    name = Path(doc.path).name
+    defaults = (
+        _table(
+            ["key", "value applied"],
+            [[f"<code>{_e(k)}</code>", _e(v)] for k, v in r.defaults],
+            left={0, 1},
+            cls="small",
+        )
+        if r.defaults
+        else "<p>No defaults were applied: every value was given.</p>"
+    )
+    return (
+        '<section id="inputs"><h2>2. Inputs</h2>'
+        f"<p>The input file <code>{_e(name)}</code> as entered (quantities with their units; "
+        f'SHA-256 <span class="hash">{_e(doc.sha256)}</span>):</p>'
+        f'<pre class="input">{_e(doc.text.rstrip())}</pre>'
+        "<h3>Defaults applied</h3>"
+        "<p>Values the input did not give, and what was used instead:</p>"
+        f"{defaults}</section>"
+    )
+
+
+def _model(r: JointResult, u: DisplayUnits, schematic: str) -> str:
+    s = r.spec
+    b = s.bolt
+    sp, sps = r.springs, r.springs_service
+    stiff = _lab(u, "stiffness")
+    rows = [
+        ("Bolt", _e(f"{b.thread.designation} grade {b.grade.name}, {b.head} head")),
+        (
+            "Bolt stiffness 1/&delta;<sub>S</sub>",
+            f"{u.fmt('stiffness', 1 / sp.delta_S)} {stiff} (service "
+            f"{u.fmt('stiffness', 1 / sps.delta_S)} {stiff})",
+        ),
+        (
+            "Clamped-part stiffness 1/&delta;<sub>P</sub>",
+            f"{u.fmt('stiffness', 1 / sp.delta_P)} {stiff} (service "
+            f"{u.fmt('stiffness', 1 / sps.delta_P)} {stiff}); model "
+            f"<code>{_e(s.clamp_model)}</code>",
+        ),
+        (
+            "Load factors",
+            f"&Phi;<sub>K</sub> = {sp.load_factor_K:.4g}, &Phi;<sub>n</sub> = n &Phi;<sub>K</sub> "
+            f"= {r.load_factor:.4g} (n = {s.service.load_height:g})",
+        ),
+        ("Clamp length l<sub>K</sub>", _f(u, "length", s.clamp_length)),
+        (
+            "Smallest section A<sub>0</sub>",
+            f"{_f(u, 'area', r.A0)} (d<sub>0</sub> = {_f(u, 'length', r.d0)}); stress area "
+            f"A<sub>s</sub> = {_f(u, 'area', b.thread.As)}",
+        ),
+    ]
+    seg_rows = [
+        [_e(name), u.fmt("length", length), f"{res * 1e9:.4g}"] for name, length, res in sp.segments
+    ]
+    segs = _table(
+        ["bolt segment", f"length [{_lab(u, 'length')}]", "resilience [&micro;m/kN]"],
+        seg_rows,
+        cls="small",
+    )
+    lay_rows = []
+    for lay in s.layers:
+        lay_rows.append(
+            [
+                _e(lay.name),
+                _e(lay.kind),
+                _e(lay.material.name),
+                u.fmt("length", lay.thickness),
+                u.fmt("length", lay.hole),
+                u.fmt("length", lay.outer_diameter) if lay.outer_diameter else "full cone",
+                f"{lay.temperature - C0:g}",
+            ]
+        )
+    L = _lab(u, "length")
+    layers = _table(
+        [
+            "clamped part",
+            "kind",
+            "material",
+            f"thickness [{L}]",
+            f"hole [{L}]",
+            f"outer diameter [{L}]",
+            "service [&deg;C]",
+        ],
+        lay_rows,
+        left={0, 1, 2},
+        cls="small",
+    )
+    return (
+        '<section id="model"><div class="keep"><h2>3. Model</h2>'
+        "<p>The joint is an axial spring network (VDI 2230-1:2015, 5.3): the bolt in parallel "
+        "with the clamped parts, which are split at the load introduction planes A and B. The "
+        "bolt carries tension only, the part between A and B (it holds the interface) "
+        "compression only, so separation comes out of the solve. The preload is a length "
+        "misfit of the bolt, embedding a shortening of the clamped stack, temperature a free "
+        "thermal elongation of every part.</p>"
+        f"{schematic}</div>{_kv(rows)}{segs}{layers}</section>"
+    )
+
+
+def _diagrams(diagram: str, loads: str) -> str:
+    return f'<section id="diagram"><h2>4. Joint load diagram</h2>{diagram}{loads}</section>'
+
+
+def _states(r: JointResult, u: DisplayUnits) -> str:
+    F = _lab(u, "force")
+    rows = [
+        [
+            _e(st.label),
+            u.fmt("force", st.axial_load),
+            u.fmt("force", st.bolt_min),
+            u.fmt("force", st.bolt_max),
+            u.fmt("force", st.clamp_min),
+            u.fmt("force", st.clamp_max),
+        ]
+        for st in r.states
+    ]
+    return (
+        '<section id="states"><h2>5. States</h2>'
+        + _table(
+            [
+                "state",
+                f"F<sub>A</sub> [{F}]",
+                f"bolt load, min [{F}]",
+                f"bolt load, max [{F}]",
+                f"clamp load, min [{F}]",
+                f"clamp load, max [{F}]",
+            ],
+            rows,
+        )
+        + "<p class=meta>min: minimum assembly preload with embedding (governs the residual "
+        "clamp load); max: maximum assembly preload, embedding not counted (governs the bolt "
+        "load; VDI 2230-1 R8, R10).</p></section>"
+    )
+
+
+def _checks(r: JointResult, u: DisplayUnits) -> str:
+    rows = []
+    for c in r.checks:
+        v, lim = _check_value(c, u)
+        if c.skipped:
+            verdict = '<span class="off">off</span>'
+        elif c.passed:
+            verdict = '<span class="pass">pass</span>'
+        else:
+            verdict = '<span class="fail">FAIL</span>'
+        src = _e(c.source) + (f"<br>{_e(c.detail)}" if c.detail else "")
+        if c.skipped:
+            src += f"<br><b>switched off:</b> {_e(c.skipped)}"
+        rows.append(
+            [
+                f"<b>{_e(c.name)}</b><br><span class=meta>{_e(c.title)}</span>",
+                _e(v).replace(" ", "&nbsp;"),
+                _e(c.relation),
+                _e(lim).replace(" ", "&nbsp;"),
+                _e(_margin(c)).replace(" ", "&nbsp;"),
+                verdict,
+                f'<span class="src">{src}</span>',
+            ]
+        )
+    table = _table(
+        ["check", "value", "", "limit", "margin", "result", "source"],
+        rows,
+        left={0, 5, 6},
+        cls="small checks",
+    )
+    return (
+        '<section id="checks"><h2>6. Checks</h2>'
+        "<p class=meta>Margin: limit/value &minus; 1 for an upper limit, value/limit &minus; 1 "
+        "for a lower limit; a check passes at a margin of zero or more.</p>"
+        f"{table}</section>"
+    )
+
+
+def _tightening(r: JointResult, u: DisplayUnits) -> str:
+    s = r.spec
+    tr = s.tightening
+    rows = [("Method", _e(tr.method))]
+    if r.torque is not None:
+        rows += [
+            ("Tightening torque, nominal", f"<b>{_f(u, 'torque', r.torque[0])}</b>"),
+            (
+                "Torque range",
+                f"{_f(u, 'torque', r.torque[1])} .. {_f(u, 'torque', r.torque[2])}"
+                + (
+                    f" (tolerance &plusmn;{tr.torque_tolerance * 100:.3g} %)"
+                    if tr.method == "torque"
+                    else " (indicative)"
+                ),
+            ),
+        ]
+    if r.torque_required is not None:
+        rows.append(
+            (
+                "Smallest nominal torque for the required clamp load",
+                _f(u, "torque", r.torque_required),
+            )
+        )
+    rows += [
+        ("Thread friction &mu;<sub>G</sub>", _e(_mu(tr.thread_friction))),
+        ("Head friction &mu;<sub>K</sub>", _e(_mu(tr.head_friction))),
+        (
+            "Assembly preload F<sub>M,min</sub> .. F<sub>M,max</sub>",
+            f"{_f(u, 'force', r.assembly_min)} .. {_f(u, 'force', r.assembly_max)}",
+        ),
+        (
+            "Permissible assembly preload F<sub>M,zul</sub>",
+            f"{_f(u, 'force', r.permissible_preload)} (utilisation &nu; = {tr.utilization:g})",
+        ),
+        (
+            "Required minimum assembly preload F<sub>M,erf</sub>",
+            _f(u, "force", r.required_assembly_min),
+        ),
+        ("Tightening factor &alpha;<sub>A</sub>", f"{r.alpha_A:.3g} ({_e(r.alpha_A_basis)})"),
+        (
+            "Embedding",
+            f"f<sub>Z</sub> = {_f(u, 'small_length', r.embedding_amount)}, preload loss "
+            f"F<sub>Z</sub> = {_f(u, 'force', r.embedding_loss)}",
+        ),
+        (
+            "Thermal preload change",
+            f"{_f(u, 'force', r.thermal_change)} (minimum branch, "
+            f"{s.service.assembly_temperature - C0:g} &rarr; {s.service.temperature - C0:g} &deg;C)",
+        ),
+    ]
+    if r.cycle is not None and r.cycle.permanent_loss > 0:
+        rows.append(("Permanent loss after a heat cycle", _f(u, "force", r.cycle.permanent_loss)))
+    return (
+        '<section id="tightening"><h2>7. Tightening specification</h2>'
+        f"{_kv(rows)}<p class=meta>Torque per VDI 2230-1:2015 R13 and ISO 16047: "
+        "M<sub>A</sub> = F<sub>M</sub> (0.16 P + 0.58 d<sub>2</sub> &mu;<sub>G</sub> + "
+        "&mu;<sub>K</sub> D<sub>Km</sub>/2).</p></section>"
+    )
+
+
+def _temperature(sweep: Any, figure: str, note: str, u: DisplayUnits) -> str:
+    if sweep is None:
+        return f'<section id="temperature"><h2>8. Temperature</h2><p>{_e(note)}</p></section>'
+    T = sweep.temperature
+    lims = (
+        "".join(
+            f"<li><b>{_e(lim.check)}</b> fails "
+            + (
+                "over the whole range"
+                if lim.fails == "whole range"
+                else f"{_e(lim.fails)} {lim.temperature - C0:.2f} &deg;C"
+            )
+            + "</li>"
+            for lim in sweep.limits
+        )
+        or "<li>Every check passes over the whole range.</li>"
+    )
+    return (
+        '<section id="temperature"><div class="keep"><h2>8. Temperature</h2>'
+        f"<p>{_e(note)}</p>{figure}</div>"
+        f"<ul class=notes>{lims}</ul>"
+        f"<p>Thermal preload change (minimum preload, after embedding): "
+        f"{_f(u, 'force', sweep.thermal_change_cold)} at {T[0] - C0:g} &deg;C, "
+        f"{_f(u, 'force', sweep.thermal_change_hot)} at {T[-1] - C0:g} &deg;C.</p></section>"
+    )
+
+
+def _assumptions(r: JointResult) -> str:
+    a = "".join(f"<li>{_e(x)}</li>" for x in r.assumptions)
+    n = "".join(f"<li>{_e(x)}</li>" for x in r.notes) or "<li>None.</li>"
+    return (
+        '<section id="assumptions"><h2>9. Assumptions and notes</h2>'
+        f"<h3>Assumptions</h3><ul class=notes>{a}</ul><h3>Notes</h3><ul class=notes>{n}</ul>"
+        "</section>"
+    )
+
+
+def _references() -> str:
+    items = "".join(f"<li>{x}</li>" for x in REFERENCES)
+    return (
+        '<section id="references"><h2>10. References</h2>'
+        "<p class=meta>The published methods and data the calculation uses; each check above "
+        "names its clause.</p>"
+        f'<ol class="refs">{items}</ol></section>'
+    )
+
+
+# --------------------------------------------------------------------------- sweep
+
+
+def report_sweep(result: JointResult) -> tuple[Any, str]:
+    """The temperature sweep for the report, or ``None`` and why not.
+
+    Only when the service temperature differs from the assembly temperature:
+    from 20 K below the lower to 20 K above the higher of the two, narrowed
+    (10 K, then 0 K beyond them) when a material's data do not reach so far.
+    """
+    from ..studies.sweep import sweep
+
+    srv = result.spec.service
+    Ta, Ts = srv.assembly_temperature, srv.temperature
+    if abs(Ts - Ta) < 1e-9:
+        return None, (
+            "The service temperature equals the assembly temperature "
+            f"({Ta - C0:g} °C): no temperature sweep."
+        )
+    lo, hi = min(Ta, Ts), max(Ta, Ts)
+    last = ""
+    for m in (SWEEP_MARGIN, 0.5 * SWEEP_MARGIN, 0.0):
+        try:
+            sw = sweep(result.spec, lo - m, hi + m)
+        except InputError as err:
+            last = err.detail
+            continue
+        return sw, (
+            f"Service temperature swept from {lo - m - C0:g} to {hi + m - C0:g} °C "
+            f"({m:g} K beyond the assembly and service temperatures"
+            + ("" if m == SWEEP_MARGIN else ", narrowed to the materials' data")
+            + "); parts with a temperature of their own keep their difference."
+        )
+    return None, f"No temperature sweep: {last}"
+
+
+# --------------------------------------------------------------------------- report
+
+
+def _states_csv(r: JointResult) -> str:
+    buf = io.StringIO()
+    w = csv.writer(buf, lineterminator="\n")
+    keys = [
+        "name",
+        "label",
+        "axial_load_N",
+        "bolt_load_min_N",
+        "bolt_load_max_N",
+        "clamp_load_min_N",
+        "clamp_load_max_N",
+    ]
+    w.writerow(keys)
+    for st in r.to_dict()["states"]:
+        w.writerow([st[k] if isinstance(st[k], str) else repr(float(st[k])) for k in keys])
+    return buf.getvalue()
+
+
+def _checks_csv(r: JointResult) -> str:
+    buf = io.StringIO()
+    w = csv.writer(buf, lineterminator="\n")
+    keys = ["name", "value", "limit", "unit", "relation", "margin", "pass", "skipped", "source"]
+    w.writerow([*keys, "detail", "title"])
+    for c in r.to_dict()["checks"]:
+        row = []
+        for k in keys:
+            v = c[k]
+            if isinstance(v, bool):
+                row.append(str(v).lower())
+            elif isinstance(v, float):
+                row.append(repr(v))
+            else:
+                row.append("" if v is None else str(v))
+        w.writerow([*row, c["detail"], c["title"]])
+    return buf.getvalue()
+
+
+def render_joint_report(
+    doc: InputDocument,
+    result: JointResult,
+    units: str = "si",
+    now: datetime | None = None,
+    with_sweep: bool = True,
+) -> dict[str, str]:
+    """Render the report files of ``result`` in memory: ``{file name: content}``.
+
+    The HTML report (figures inline as SVG), the JSON result (``result.to_dict()``
+    with a ``report`` block naming the tool version, the date and the input's
+    SHA-256) and two CSV files (states, checks).  Nothing is written here.
+    """
+    from ..plots import bolt_load_plot, joint_diagram, spring_schematic, sweep_plot
+
+    u = UNIT_SYSTEMS[units]
+    now = now or datetime.now(UTC)
+    stamp = now.strftime("%Y-%m-%d %H:%M UTC")
+    name = Path(doc.path).name
+    stem = Path(doc.path).stem or "joint"
+    names = report_file_names(stem)
+    s = result.spec
+    thermal = abs(s.service.temperature - s.service.assembly_temperature) > 1e-9
+
+    schematic = _figure(
+        spring_schematic(result),
+        "f1",
+        "Spring model of the joint",
+        "Figure 1. Spring model: the bolt's segments in series, in parallel with the clamped "
+        "parts split at the load introduction planes A and B; the working load F<sub>A</sub> "
+        "pulls A and B apart. Resiliences at assembly temperature.",
+    )
+    diagram = _figure(
+        joint_diagram(result, units),
+        "f2",
+        "Joint load diagram",
+        "Figure 2. Joint load diagram (VDI 2230-1:2015, 5.3.1). Left: bolt line (slope "
+        "1/&delta;<sub>S</sub>) and clamped-parts lines (slope &minus;1/&delta;<sub>P</sub>) at "
+        "the maximum and minimum assembly preload, after embedding"
+        + (" and at service temperature" if thermal else "")
+        + "; the shaded band is the assembly preload scatter. Right: the maximum working load at "
+        "the minimum preload, its share in the bolt (&Phi;<sub>n</sub> F<sub>A</sub>) and in the "
+        "clamped parts ((1 &minus; &Phi;<sub>n</sub>) F<sub>A</sub>), and the separation point "
+        "(stiffness at service temperature).",
+    )
+    loads = _figure(
+        bolt_load_plot(result, units),
+        "f3",
+        "Bolt load and clamp load against the working load",
+        "Figure 3. Bolt load and clamp load against the working load, solved with the spring "
+        "network at service temperature; the knee is the separation load, beyond which the "
+        "bolt carries all of F<sub>A</sub>.",
+    )
+    sweep_section = ""
+    if with_sweep and thermal:
+        sw, note = report_sweep(result)
+        fig = ""
+        if sw is not None:
+            fig = _figure(
+                sweep_plot(sw, units),
+                "f4",
+                "Preload and residual clamp load over the temperature",
+                "Figure 4. Preload (band: minimum to maximum assembly preload) and residual clamp "
+                "load against the service temperature; where a check fails the background is "
+                "shaded.",
+            )
+        sweep_section = _temperature(sw, fig, note, u)
+
+    head = (
+        f"<header><h1>{_e(s.title)}</h1>"
+        f'<p class="sub">Bolted joint calculation report &middot; '
+        f"{_e(s.bolt.thread.designation)} grade {_e(s.bolt.grade.name)}, clamp length "
+        f"{_f(u, 'length', s.clamp_length)}</p>"
+        f'<p class="meta">clampstack {_e(__version__)} &middot; {_e(stamp)} &middot; input '
+        f'<code>{_e(name)}</code> &middot; SHA-256 <span class="hash">{_e(doc.sha256)}</span>'
+        "</p></header>"
+    )
+    body = "".join(
+        [
+            head,
+            _summary(result, u),
+            _inputs(doc, result),
+            _model(result, u, schematic),
+            _diagrams(diagram, loads),
+            _states(result, u),
+            _checks(result, u),
+            _tightening(result, u),
+            sweep_section,
+            _assumptions(result),
+            _references(),
+            f"<footer><div class=caution>{_e(CAUTION)}</div>"
+            f'<p class="meta">Generated by clampstack {_e(__version__)} on {_e(stamp)} from '
+            f'<code>{_e(name)}</code>, SHA-256 <span class="hash">{_e(doc.sha256)}</span>. '
+            f"Results beside this file: <code>{_e(names['json'])}</code>, "
+            f"<code>{_e(names['states'])}</code>, <code>{_e(names['checks'])}</code>.</p>"
+            "</footer>",
+        ]
+    )
+    if not thermal or not with_sweep:
+        # keep the section numbers consecutive when there is no temperature section
+        for k in (9, 10):
+            body = body.replace(f"<h2>{k}. ", f"<h2>{k - 1}. ")
+    footer = _css_string(
+        f"clampstack {__version__} - {name} (SHA-256 {doc.sha256[:12]}) - {s.title}"
+    )
+    css = _CSS.replace("__FOOTER__", footer)
+    page = (
+        '<!DOCTYPE html>\n<html lang="en"><head><meta charset="utf-8">'
+        '<meta name="viewport" content="width=device-width, initial-scale=1">'
+        f'<meta name="generator" content="clampstack {_e(__version__)}">'
+        f"<title>{_e(s.title)} &mdash; calculation report</title><style>{css}</style></head>"
+        f"<body>\n{body}\n</body></html>\n"
+    )
+    data = result.to_dict()
+    data["report"] = {
+        "clampstack_version": __version__,
+        "generated": now.isoformat(timespec="seconds"),
+        "input_file": name,
+        "input_sha256": doc.sha256,
+        "units": units,
+    }
+    # the page last: when it is there, the results beside it are too
+    return {
+        names["json"]: json.dumps(data, indent=2, allow_nan=False) + "\n",
+        names["states"]: _states_csv(result),
+        names["checks"]: _checks_csv(result),
+        names["html"]: page,
+    }
