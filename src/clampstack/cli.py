@@ -179,7 +179,11 @@ def sweep(
         raise InputError("choose --json or --csv, not both", key="--csv")
     doc, spec = read_joint_file(file)
     lo, hi = _parse_temperature_range(trange)
-    result = _in_file(doc.path, run_sweep, spec, lo, hi, step, cycle)
+    n_points = int((hi - lo) / step) + 2 if step else 101
+    progress = _progress(n_points, as_json or as_csv, "sweep")
+    result = _in_file(doc.path, run_sweep, spec, lo, hi, step, cycle, progress)
+    if progress is not None:
+        progress(None)
     if as_json:
         _print_json(result.to_dict())
     elif as_csv:
@@ -260,7 +264,7 @@ def scatter(file: str, samples: int, seed: int, as_json: bool, units: str) -> No
         return
     doc, spec = read_joint_file(file)
     dists = _in_file(doc.path, parse_distributions, spec.distributions)
-    progress = _progress(samples, quiet=as_json)
+    progress = _progress(samples, as_json, "scatter")
     result = _in_file(doc.path, run_scatter, spec, dists, samples, seed, 4, progress)
     if progress is not None:
         progress(None)
@@ -270,18 +274,22 @@ def scatter(file: str, samples: int, seed: int, as_json: bool, units: str) -> No
         click.echo(scatter_text(result, units))
 
 
-def _progress(total: int, quiet: bool):
-    """A progress callback on a terminal for long runs; None when piped or quiet."""
-    if quiet or total < 2_000_000 or not sys.stderr.isatty():
+def _progress(total: int, quiet: bool, label: str):
+    """A callback ``f(done)`` drawing a bar on a terminal for long runs (None when quiet).
+
+    ``done`` counts the steps finished so far; ``f(None)`` closes the bar.
+    """
+    from .io.progress import Progress, should_show
+
+    if not should_show(total, quiet=quiet):
         return None
+    bar = Progress(total, label=label, enabled=True)
 
     def report(done: int | None) -> None:
         if done is None:
-            click.echo("", err=True)
-            return
-        width = 30
-        k = int(width * min(done, total) / total)
-        click.echo(f"\r[{'#' * k}{'.' * (width - k)}] {done / total:6.1%}", err=True, nl=False)
+            bar.close()
+        elif done > bar.done:
+            bar.update(done - bar.done)
 
     return report
 
@@ -314,7 +322,10 @@ def size(file: str, as_json: bool, units: str) -> None:
         else:
             click.echo(flange_size_text(fres, units))
         sys.exit(EXIT_OK if fres["designs"] else EXIT_FAIL)
-    result = _in_file(doc.path, run_size, doc.data)
+    progress = _progress(2000, as_json, "size")  # candidates: shown only on a terminal
+    result = _in_file(doc.path, run_size, doc.data, progress)
+    if progress is not None:
+        progress(None)
     if as_json:
         _print_json(result.to_dict())
     else:

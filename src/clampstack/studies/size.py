@@ -146,7 +146,7 @@ def candidate_data(
     return d
 
 
-def size(data: dict[str, Any]) -> SizeResult:
+def size(data: dict[str, Any], progress: Any = None) -> SizeResult:
     """Search threads x grades x methods for the Pareto-smallest passing designs."""
     base = joint_from_data(data)
     sizes = candidate_threads(base.bolt.thread)
@@ -207,6 +207,8 @@ def size(data: dict[str, Any]) -> SizeResult:
         key = (i, g, method)
         if key in memo:
             return memo[key]
+        if progress is not None:
+            progress(min(len(memo) + 1, 2000))
         memo[key] = None
         thr = sizes[i]
         try:

@@ -13,6 +13,7 @@ not just the nearest grid point.
 
 from __future__ import annotations
 
+from collections.abc import Callable
 from dataclasses import dataclass
 from typing import Any
 
@@ -23,6 +24,7 @@ from ..joint.analysis import Prepared, evaluate_checks, margins, prepare, servic
 from ..joint.model import JointSpec
 
 C0 = 273.15
+CHUNK = 20_000  # temperature points per piece when a progress bar is drawn
 
 
 @dataclass(frozen=True)
@@ -185,7 +187,12 @@ def _evaluate(prep: Prepared, T: np.ndarray) -> dict[str, Any]:
 
 
 def sweep(
-    spec: JointSpec, T_low: float, T_high: float, step: float | None = None, cycle: bool = False
+    spec: JointSpec,
+    T_low: float,
+    T_high: float,
+    step: float | None = None,
+    cycle: bool = False,
+    progress: Callable[[int], None] | None = None,
 ) -> SweepResult:
     """Sweep the service temperature from ``T_low`` to ``T_high`` [K] in steps of ``step`` [K]."""
     if not T_high > T_low:
@@ -202,7 +209,21 @@ def sweep(
         T = np.append(T, T_high)
     prep = prepare(spec)
     _check_range(prep, T)
-    ev = _evaluate(prep, T)
+    if progress is None or T.size <= CHUNK:
+        ev = _evaluate(prep, T)
+    else:  # the same vectorised evaluation in pieces, reporting as it goes
+        parts = []
+        for start in range(0, T.size, CHUNK):
+            parts.append(_evaluate(prep, T[start : start + CHUNK]))
+            progress(min(start + CHUNK, T.size))
+        ev = {
+            k: np.concatenate([p[k] for p in parts])
+            for k in ("pre_min", "pre_max", "residual", "bolt_max")
+        }
+        ev["margins"] = {
+            name: np.concatenate([p["margins"][name] for p in parts])
+            for name in parts[0]["margins"]
+        }
     skipped = dict(spec.skips)
     active = [k for k in ev["margins"] if k not in skipped]
     ok = np.ones(T.shape, dtype=bool)
