@@ -30,5 +30,11 @@ def require(condition: Any, message: str) -> None:
 
     NaN inputs make a comparison false and so are refused too.
     """
-    if not bool(np.all(condition)):
+    if condition is True or condition is np.True_:
+        return  # the common scalar case, without the cost of np.all
+    if isinstance(condition, np.ndarray) and condition.ndim == 0:
+        ok = bool(condition)
+    else:
+        ok = bool(np.all(condition))
+    if not ok:
         raise ValueError(message)

@@ -35,7 +35,7 @@ class _Term:
 class TemperatureModel:
     """Bolt and clamped-part resilience and thermal elongation at any service temperature."""
 
-    def __init__(self, spec: JointSpec):
+    def __init__(self, spec: JointSpec, clamp_terms: tuple[_Term, ...] | None = None):
         self.spec = spec
         # memo of resiliences and free elongations by temperature vector (the service
         # temperature, a sweep grid); the cached arrays are never changed by callers
@@ -80,8 +80,11 @@ class TemperatureModel:
         self.bolt_terms = tuple(bolt_terms)
         self.bolt_segments = tuple((s.name, s.length) for s in bolt.segments)
 
+        if clamp_terms is not None:  # the same plates, computed before
+            self.clamp_terms = tuple(clamp_terms)
+            return
         plates = [lay for lay in spec.layers if lay.kind != "sleeve"]
-        clamp_terms = []
+        clamp_terms = []  # type: ignore[assignment]
         if plates:
             dh = max(
                 (lay.hole for lay in spec.layers if lay.kind != "washer"),

@@ -162,6 +162,13 @@ def size(data: dict[str, Any], progress: Any = None) -> SizeResult:
         strength[g] = min(x.Rp02 for x in rows)
     order = sorted(grade_names, key=lambda g: strength[g])
     memo: dict[tuple[int, str, str], Design | None] = {}
+    FA_hi = max(base.service.axial_load[1], 0.0)
+    slip_need = (
+        base.service.shear_load * base.requirements.slip_safety / base.requirements.slip_friction
+    )
+    need_floor = max(
+        base.requirements.residual_clamp_load, slip_need, (1 - base.service.load_height) * FA_hi
+    )
     evaluated = 0
 
     parsed: dict[int, Any] = {}
@@ -209,6 +216,17 @@ def size(data: dict[str, Any], progress: Any = None) -> SizeResult:
             return memo[key]
         if progress is not None:
             progress(min(len(memo) + 1, 2000))
+        # a necessary condition, cheap: even tightened to 1.2 R_p0.2 on A_s (the most any
+        # method reaches) the bolt must hold the clamp load needed against separation and
+        # the required residual clamp load (Phi_n <= n); a size below it cannot pass
+        try:
+            Rp_g = catalog_grade(g, sizes[i].d).Rp02
+        except InputError:
+            return None
+        # (sound because any bolt load above 1.2 R_p0.2 A_s fails the working-stress check,
+        # so the screen is off when that check is switched off)
+        if "working_stress" not in skipped and 1.2 * Rp_g * sizes[i].As < need_floor:
+            return None
         memo[key] = None
         thr = sizes[i]
         try:
@@ -216,7 +234,9 @@ def size(data: dict[str, Any], progress: Any = None) -> SizeResult:
             # the springs depend on the size and the materials, not on grade or method
             mkey = (i, spec.bolt.material.name, spec.nut.material.name if spec.nut else "")
             if mkey not in models:
-                models[mkey] = TemperatureModel(spec)
+                # the plates' terms depend on the size only: share them between materials
+                same = next((m for k2, m in models.items() if k2[0] == i), None)
+                models[mkey] = TemperatureModel(spec, same.clamp_terms if same else None)
             prep = prepare(spec, models[mkey])
             m = _evaluate(prep, T)["margins"]
         except InputError:
