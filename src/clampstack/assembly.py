@@ -176,8 +176,29 @@ def _load_vector(
     return f
 
 
+def _with_names(err: Exception, names: tuple[str, ...]) -> str:
+    """The network's message with node numbers replaced by the assembly's node names."""
+    import re
+
+    def repl(m: re.Match[str]) -> str:
+        ids = [int(x) for x in m.group(1).split(", ")]
+        return "nodes " + ", ".join(names[i] if 0 <= i < len(names) else str(i) for i in ids)
+
+    return re.sub(r"nodes (\d+(?:, \d+)*)", repl, str(err))
+
+
 def solve_assembly(asm: Assembly) -> AssemblyResult:
     """Solve the assembled state and every load case (each from the assembled state)."""
+    from .errors import SolveError
+
+    names = asm.node_names()
+    try:
+        return _solve_assembly(asm)
+    except SolveError as err:
+        raise SolveError(_with_names(err, names)) from None
+
+
+def _solve_assembly(asm: Assembly) -> AssemblyResult:
     net, index = build_network(asm)
     names = asm.node_names()
     base = _load_vector(asm.loads, index, "load")

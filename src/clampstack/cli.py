@@ -179,6 +179,10 @@ def sweep(
         raise InputError("choose --json or --csv, not both", key="--csv")
     doc, spec = read_joint_file(file)
     lo, hi = _parse_temperature_range(trange)
+    import math
+
+    if step is not None and not (math.isfinite(step) and step > 0):
+        raise InputError(f"the step must be a positive number of kelvin, got {step}", key="--step")
     n_points = int((hi - lo) / step) + 2 if step else 101
     progress = _progress(n_points, as_json or as_csv, "sweep")
     result = _in_file(doc.path, run_sweep, spec, lo, hi, step, cycle, progress)
@@ -388,16 +392,26 @@ def demo(out_dir: str) -> None:
 @click.option("--json", "as_json", is_flag=True, help="Print the verdict and the files as JSON.")
 @handle_errors
 def report(file: str, out_dir: str, units: str, as_json: bool) -> None:
-    """HTML calculation report of the joint in FILE, JSON and CSV beside it (exit 1 on a fail)."""
+    """HTML calculation report of the joint or flange in FILE, JSON and CSV beside it (exit 1 on a fail)."""
     from .errors import InputError
-    from .io.files import write_files
-    from .io.joint_input import read_joint_file
-    from .joint import analyse
-    from .report import render_joint_report
+    from .io.files import load_toml, write_files
 
-    doc, spec = read_joint_file(file)
-    result = _in_file(doc.path, analyse, spec)
-    files = _in_file(doc.path, render_joint_report, doc, result, units)  # all rendered first
+    if "flange" in load_toml(file).data:  # a flange file: the flange report
+        from .flange import analyse_flange
+        from .io.flange_input import read_flange_file
+        from .report import render_flange_report
+
+        doc, spec = read_flange_file(file)
+        result = _in_file(doc.path, analyse_flange, spec)
+        files = _in_file(doc.path, render_flange_report, doc, result, units)  # all rendered first
+    else:
+        from .io.joint_input import read_joint_file
+        from .joint import analyse
+        from .report import render_joint_report
+
+        doc, spec = read_joint_file(file)
+        result = _in_file(doc.path, analyse, spec)
+        files = _in_file(doc.path, render_joint_report, doc, result, units)  # all rendered first
     try:
         written = write_files(out_dir, files)
     except OSError as err:
@@ -410,6 +424,29 @@ def report(file: str, out_dir: str, units: str, as_json: bool) -> None:
         click.echo(f"Report: {page}")
         click.echo("Beside it: " + ", ".join(p.name for p in written if p != page))
     sys.exit(EXIT_OK if result.ok else EXIT_FAIL)
+
+
+@main.command()
+@click.option("--json", "as_json", is_flag=True, help="Machine-readable result on stdout.")
+@handle_errors
+def verify(as_json: bool) -> None:
+    """Run the bundled verification cases against published values (exit 1 if one fails)."""
+    from .io.text import CAUTION, table
+    from .verify import HEADERS, rows, run_all, summary
+
+    results = run_all()
+    doc = summary(results)
+    if as_json:
+        _print_json(doc)
+    else:
+        click.echo(table(HEADERS, rows(results)))
+        click.echo("")
+        click.echo(
+            f"{doc['passed']} of {len(results)} cases pass"
+            + ("." if doc["ok"] else f"; {doc['failed']} FAIL.")
+        )
+        click.echo(CAUTION)
+    sys.exit(EXIT_OK if doc["ok"] else EXIT_FAIL)
 
 
 if __name__ == "__main__":  # pragma: no cover

@@ -7,9 +7,24 @@ stderr and exit code 2; nothing else is ever shown as a traceback for bad input.
 
 from __future__ import annotations
 
+MAX_MESSAGE = 600  # characters of an error message; the middle of a longer one is cut
+
+
+def printable(text: str, limit: int = MAX_MESSAGE) -> str:
+    """``text`` safe for one terminal line: control characters (newlines, escape
+    sequences) and undecodable characters escaped, the middle cut when too long."""
+    text = text.encode("utf-8", "backslashreplace").decode("utf-8")
+    text = "".join(c if c.isprintable() else c.encode("unicode_escape").decode() for c in text)
+    if len(text) > limit:
+        text = f"{text[: limit * 2 // 3]} ... {text[-limit // 4 :]}"
+    return text
+
 
 class ClampstackError(Exception):
     """Base class of every error clampstack raises on purpose."""
+
+    def __str__(self) -> str:
+        return printable(super().__str__())
 
 
 class InputError(ClampstackError, ValueError):
@@ -43,7 +58,7 @@ class InputError(ClampstackError, ValueError):
         if self.key:
             parts.append(self.key)
         parts.append(self.detail)
-        return ": ".join(parts)
+        return printable(": ".join(str(p) for p in parts))
 
 
 class SolveError(ClampstackError, RuntimeError):

@@ -59,8 +59,30 @@ def registry():
     return ureg
 
 
+MAX_QUANTITY_TEXT = 80  # characters of a quantity string ("12 mm", "0.10..0.16 N*m/rad")
+#: Magnitudes accepted at the input boundary (SI units): no bolted joint needs more,
+#: and anything beyond would overflow or lose all precision in the arithmetic that
+#: follows.  A value smaller than SI_NEGLIGIBLE in size counts as zero (subnormal
+#: numbers would otherwise turn into infinities when divided).
+SI_LARGEST = 1e15
+SI_NEGLIGIBLE = 1e-30
+
+
+def check_magnitude(value: float, shown: str) -> float:
+    """Return ``value`` (zero if smaller than :data:`SI_NEGLIGIBLE` in size); an
+    InputError quoting ``shown`` if it is not finite or larger than :data:`SI_LARGEST`."""
+    if not math.isfinite(value):
+        raise InputError(f"expected a finite number, got {shown}")
+    if abs(value) > SI_LARGEST:
+        raise InputError(
+            f"{shown} is larger than this tool accepts (at most {SI_LARGEST:g} in SI units)"
+        )
+    return 0.0 if abs(value) < SI_NEGLIGIBLE else value
+
+
 def _show(raw: Any) -> str:
-    return f'"{raw}"' if isinstance(raw, str) else repr(raw)
+    text = f'"{raw}"' if isinstance(raw, str) else repr(raw)
+    return text if len(text) <= 60 else f"{text[:55]}...{text[-3:]}"
 
 
 @dataclass(frozen=True)
@@ -85,7 +107,7 @@ def _parse_cached(text: str, kind: str) -> float:
     if not math.isfinite(number):
         raise InputError(f"expected a finite number, got {_show(text)}")
     if kind in ("dimensionless",) and unit_text in ("", "%"):
-        return number / 100.0 if unit_text == "%" else number
+        return check_magnitude(number / 100.0 if unit_text == "%" else number, _show(text))
     if not unit_text:
         if kind == "angle":
             raise InputError(f"expected {human} with a unit (deg or rad), got {_show(text)}")
@@ -106,14 +128,21 @@ def _parse_cached(text: str, kind: str) -> float:
             f"expected a temperature difference, got {_show(text)} (an absolute temperature); "
             'write it in K or delta_degC, e.g. "60 K"'
         )
-    q = ureg.Quantity(number, unit)
-    if kind == "expansion" and q.dimensionality == ureg.parse_units("1/K").dimensionality:
-        return float(q.to("1/K").magnitude)
-    if q.dimensionality != ureg.get_dimensionality(dim) if dim else not q.dimensionless:
-        raise InputError(f"expected {human}, got {_show(text)}")
-    if kind == "dimensionless":
-        return float(q.to("").magnitude)
-    return float(q.to(si_unit).magnitude)
+    try:
+        q = ureg.Quantity(number, unit)
+        if kind == "expansion" and q.dimensionality == ureg.parse_units("1/K").dimensionality:
+            value = float(q.to("1/K").magnitude)
+        elif q.dimensionality != ureg.get_dimensionality(dim) if dim else not q.dimensionless:
+            raise InputError(f"expected {human}, got {_show(text)}")
+        elif kind == "dimensionless":
+            value = float(q.to("").magnitude)
+        else:
+            value = float(q.to(si_unit).magnitude)
+    except InputError:
+        raise
+    except Exception:  # pint refuses some combinations (offset units in products, ...)
+        raise InputError(f"cannot convert {_show(text)} to {human}") from None
+    return check_magnitude(value, _show(text))
 
 
 def parse_quantity(raw: Any, kind: str, key: str | None = None) -> float:
@@ -145,16 +174,23 @@ def parse_quantity(raw: Any, kind: str, key: str | None = None) -> float:
         if isinstance(raw, bool):
             raise InputError(f"expected {KINDS[kind][2]}, got {raw!r}")
         if isinstance(raw, int | float):
+            if isinstance(raw, int) and abs(raw) > 1e300:
+                raise InputError(f"number is too large: {_show(raw)}")
             if not math.isfinite(raw):
                 raise InputError(f"expected a finite number, got {raw!r}")
             if kind == "dimensionless":
-                return float(raw)
+                return check_magnitude(float(raw), _show(raw))
             raise InputError(
                 f"expected {KINDS[kind][2]} with a unit, got {raw!r} (write it as a string, "
                 f'e.g. "{raw} {_example_unit(kind)}")'
             )
         if not isinstance(raw, str):
             raise InputError(f"expected {KINDS[kind][2]}, got {_show(raw)}")
+        if len(raw) > MAX_QUANTITY_TEXT:
+            raise InputError(
+                f"expected {KINDS[kind][2]}, got a text of {len(raw)} characters "
+                f"(at most {MAX_QUANTITY_TEXT})"
+            )
         if ".." in raw:
             raise InputError(f"expected a single value, got the range {_show(raw)}")
         return _parse_cached(raw.strip(), kind)
@@ -185,6 +221,12 @@ def parse_range(raw: Any, kind: str, key: str | None = None) -> tuple[float, flo
     the upper end applies to a bare lower end; ``"-40 degC..150 degC"`` works too.
     ``lo > hi`` is an error.
     """
+    if isinstance(raw, str) and len(raw) > 2 * MAX_QUANTITY_TEXT:
+        raise InputError(
+            f"expected a value or range, got a text of {len(raw)} characters "
+            f"(at most {2 * MAX_QUANTITY_TEXT})",
+            key=key,
+        )
     if isinstance(raw, str) and ".." in raw:
         left, sep, right = raw.partition("..")
         if ".." in right or not left.strip() or not right.strip():

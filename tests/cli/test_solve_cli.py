@@ -115,3 +115,22 @@ def test_load_cell_rig_load_share(examples_dir):
     assert base["bolts (4 x M16)"]["force_N"] == pytest.approx(
         -base["spacer sleeves (4)"]["force_N"] - base["centre sleeve"]["force_N"], rel=1e-9
     )
+
+
+def test_mechanism_names_the_nodes(write_toml):
+    # a tip held only by a compression-only part, pulled away: a mechanism, named by node
+    text = """
+[[part]]
+name = "rod"
+ends = ["base", "tip"]
+stiffness = "100 kN/mm"
+contact = "compression"
+[supports]
+fixed = ["base"]
+[[load]]
+node = "tip"
+force = "5 kN"
+"""
+    res = run("solve", str(write_toml(text)))
+    assert res.exit_code == 2
+    assert "nodes tip" in res.stderr and "mechanism" in res.stderr

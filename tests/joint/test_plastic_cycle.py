@@ -65,3 +65,56 @@ def test_cycle_to_a_lower_peak_is_elastic_again():
     prep = prepare(joint_from_data(joint("150 degC")))
     low = permanent_loss_cycle(prep, T_peak=293.15 + 30)
     assert low.permanent_loss == pytest.approx(0.0, abs=1e-6)
+
+
+def test_plastic_collapse_is_a_note_and_failing_checks_not_an_error():
+    # service load above what the yielding bearing faces can carry (found by fuzzing):
+    # the check reports failing rules (exit 1), the cycle a plastic collapse
+    from click.testing import CliRunner
+
+    from clampstack.cli import main
+
+    spec = joint_from_data(
+        {
+            "bolt": {"thread": "M12", "grade": "10.9", "length": "60 mm"},
+            "nut": {},
+            "clamped": [
+                {"material": "steel", "thickness": "18 mm"},
+                {"material": "steel", "thickness": "22 mm"},
+            ],
+            "tightening": {"torque": "90 N*m", "thread_friction": "0.10..0.14"},
+            "service": {"axial_load": "0..58 kN", "load_height": 0.5},
+        }
+    )
+    r = analyse(spec)
+    assert not r.ok
+    if r.cycle is None:
+        assert any("Plastic collapse" in n for n in r.notes)
+    else:  # the faces flatten until the bolt carries nothing: all preload is lost
+        assert r.cycle.preload_after[1] <= 1e-6 * r.cycle.preload_before[1]
+        assert any("permanent loss" in n for n in r.notes)
+    import tempfile
+    from pathlib import Path
+
+    d = Path(tempfile.mkdtemp())
+    f = d / "j.toml"
+    f.write_text("""
+[bolt]
+thread = "M12"
+grade = "10.9"
+length = "60 mm"
+[nut]
+[[clamped]]
+material = "steel"
+thickness = "18 mm"
+[[clamped]]
+material = "steel"
+thickness = "22 mm"
+[tightening]
+torque = "90 N*m"
+thread_friction = "0.10..0.14"
+[service]
+axial_load = "0..58 kN"
+""")
+    res = CliRunner().invoke(main, ["check", str(f)])
+    assert res.exit_code == 1, res.output

@@ -100,20 +100,30 @@ def cross_order(n: int) -> list[int]:
     Greedy: the next bolt is the one farthest (angularly) from every bolt already
     tightened; ties go to the bolt most nearly opposite the last one, then to the
     lower number.  For 8 bolts this gives 1-5-3-7-2-6-4-8, the usual star pattern
-    (ASME PCC-1 legacy pattern; common practice).
+    (ASME PCC-1 legacy pattern; common practice).  The distance of every bolt to
+    the nearest tightened one is kept up to date, so the order costs O(n^2).
     """
+    idx = np.arange(n)
+
+    def ring_dist(a: np.ndarray, b: int) -> np.ndarray:
+        d = np.abs(a - b) % n
+        return np.minimum(d, n - d)
+
     done = [0]
-    left = set(range(1, n))
-    while left:
-
-        def dist(a: int, b: int) -> int:
-            d = abs(a - b) % n
-            return min(d, n - d)
-
-        last = done[-1]
-        best = max(left, key=lambda c: (min(dist(c, d) for d in done), dist(c, last), -c))
+    left = np.ones(n, dtype=bool)
+    left[0] = False
+    nearest = ring_dist(idx, 0)  # distance to the nearest tightened bolt
+    while left.any():
+        cand = np.flatnonzero(left)
+        m = nearest[cand]
+        top = cand[m == m.max()]
+        if top.size > 1:
+            dl = ring_dist(top, done[-1])
+            top = top[dl == dl.max()]
+        best = int(top.min())
         done.append(best)
-        left.remove(best)
+        left[best] = False
+        nearest = np.minimum(nearest, ring_dist(idx, best))
     return done
 
 

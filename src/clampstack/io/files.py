@@ -10,13 +10,14 @@ from __future__ import annotations
 
 import hashlib
 import os
+import stat as statmod
 import tempfile
 import tomllib
 from dataclasses import dataclass
 from pathlib import Path
 from typing import Any
 
-from ..errors import InputError
+from ..errors import InputError, printable
 
 MAX_INPUT_BYTES = 4 * 1024 * 1024  # a joint or assembly file is a few kB; refuse the absurd
 
@@ -31,34 +32,75 @@ class InputDocument:
     sha256: str
 
 
+MAX_NAME_SHOWN = 160  # characters of a file name shown in an error message
+
+
+def display_name(path: str | os.PathLike[str] | bytes) -> str:
+    """The file name as it may be printed in one line: no control characters, valid
+    UTF-8 (undecodable bytes escaped), shortened in the middle when very long."""
+    name = os.fsdecode(path) if isinstance(path, bytes) else os.fspath(path)
+    return printable(os.fsdecode(name) if isinstance(name, bytes) else name, MAX_NAME_SHOWN)
+
+
 def load_toml(path: str | os.PathLike[str]) -> InputDocument:
-    """Read and parse a TOML input file; every problem is an InputError naming the file."""
-    p = Path(path)
-    name = str(path)
-    if not p.exists():
-        raise InputError("file not found", source=name)
-    if not p.is_file():
-        raise InputError("not a file", source=name)
-    size = p.stat().st_size
-    if size > MAX_INPUT_BYTES:
-        raise InputError(
-            f"file is too large ({size} bytes; at most {MAX_INPUT_BYTES})", source=name
-        )
+    """Read and parse a TOML input file; every problem is an InputError naming the file.
+
+    The one validator of input paths: the path must name an existing regular file
+    (not a folder, device or pipe) of at most :data:`MAX_INPUT_BYTES`, in UTF-8
+    (a byte-order mark is accepted) and valid TOML.  Nothing else is ever raised.
+    """
     try:
-        raw = p.read_bytes()
+        raw_name = os.fspath(path)
+    except TypeError:
+        raise InputError(f"expected a file name, got {type(path).__name__}") from None
+    name = display_name(raw_name)
+    text_name = os.fsdecode(raw_name) if isinstance(raw_name, bytes) else raw_name
+    if not text_name.strip():
+        raise InputError("no input file given (the file name is empty)")
+    if "\x00" in text_name:
+        raise InputError("the file name contains a NUL character", source=name)
+    p = Path(text_name)
+    try:
+        st = p.stat()
+    except (FileNotFoundError, NotADirectoryError):
+        raise InputError("file not found", source=name) from None
+    except PermissionError:
+        raise InputError("permission denied", source=name) from None
+    except (OSError, ValueError) as err:
+        reason = getattr(err, "strerror", None) or str(err)
+        raise InputError(f"cannot open the file ({reason})", source=name) from None
+    if statmod.S_ISDIR(st.st_mode):
+        raise InputError("is a folder, not a file", source=name)
+    if not statmod.S_ISREG(st.st_mode):
+        raise InputError("not a regular file (a device, pipe or socket)", source=name)
+    too_large = f"file is too large (at most {MAX_INPUT_BYTES} bytes; an input file is a few kB)"
+    if st.st_size > MAX_INPUT_BYTES:
+        raise InputError(too_large, source=name)
+    try:
+        with p.open("rb") as fh:
+            raw = fh.read(MAX_INPUT_BYTES + 1)  # the file may have grown since stat
+    except PermissionError:
+        raise InputError("permission denied", source=name) from None
     except OSError as err:
         raise InputError(f"cannot read the file ({err.strerror})", source=name) from None
+    if len(raw) > MAX_INPUT_BYTES:
+        raise InputError(too_large, source=name)
     try:
-        text = raw.decode("utf-8")
+        text = raw.decode("utf-8-sig")
     except UnicodeDecodeError:
         raise InputError("file is not UTF-8 text", source=name) from None
     try:
         data = tomllib.loads(text)
     except tomllib.TOMLDecodeError as err:
-        raise InputError(f"not valid TOML: {str(err).splitlines()[0]}", source=name) from None
+        first = str(err).splitlines()[0] if str(err) else "syntax error"
+        raise InputError(f"not valid TOML: {first}", source=name) from None
     except RecursionError:
         raise InputError("input is nested too deeply", source=name) from None
-    return InputDocument(name, text, data, hashlib.sha256(raw).hexdigest())
+    except (ValueError, OverflowError, MemoryError) as err:
+        # e.g. an integer of more than 4300 digits (Python's conversion limit)
+        detail = " ".join(str(err).split())[:120]
+        raise InputError(f"not valid TOML: {detail}", source=name) from None
+    return InputDocument(text_name, text, data, hashlib.sha256(raw).hexdigest())
 
 
 def atomic_write(path: Path, content: str | bytes) -> None:

@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+import math
 from typing import Any
 
 from ..catalog import gasket as catalog_gasket
@@ -255,6 +256,14 @@ def flange_from_data(data: dict[str, Any]) -> FlangeSpec:
     if dW <= hole:
         raise InputError("bearing diameter must exceed the bolt hole", key="bolt.bearing_diameter")
     Dbc = f["bolt_circle"]
+    chord = Dbc * math.sin(math.pi / n)  # distance between neighbouring bolt axes
+    if chord < dW:
+        raise InputError(
+            f"{n} bolts do not fit on a {Dbc * 1e3:.4g} mm bolt circle: neighbouring bolts "
+            f"are {chord * 1e3:.3g} mm apart, less than the nut bearing diameter "
+            f"{dW * 1e3:.3g} mm",
+            key="flange.bolt_count",
+        )
     # --- gasket
     gi, go, gt = g["inner_diameter"], g["outer_diameter"], g["thickness"]
     if gi >= go:

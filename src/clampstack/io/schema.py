@@ -16,7 +16,7 @@ from dataclasses import dataclass
 from typing import Any
 
 from ..errors import InputError
-from ..units import KINDS, parse_quantity, parse_range
+from ..units import KINDS, check_magnitude, parse_quantity, parse_range
 
 SIMPLE_KINDS = ("text", "number", "integer", "names", "bool", "pairs", "raw")
 
@@ -72,16 +72,45 @@ class Schema:
         raise KeyError(name)
 
 
+SHOW_LIMIT = 60  # characters of an offending value echoed in an error message
+
+
 def _show(v: Any) -> str:
-    return f'"{v}"' if isinstance(v, str) else repr(v)
+    if isinstance(v, dict | list):
+        text = "a table" if isinstance(v, dict) else f"a list of {len(v)}"
+        return text if len(repr(v)) > SHOW_LIMIT else repr(v)
+    text = f'"{v}"' if isinstance(v, str) else repr(v)
+    return text if len(text) <= SHOW_LIMIT else f"{text[: SHOW_LIMIT - 5]}...{text[-3:]}"
 
 
 def _join(path: str, name: str) -> str:
     return f"{path}.{name}" if path else name
 
 
-MAX_DEPTH = 8
-MAX_ITEMS = 100_000
+MAX_DEPTH = 8  # levels of tables and arrays below the top of a document
+MAX_ITEMS = 100_000  # values in a whole document (and entries in one array)
+MAX_TEXT = 500  # characters of a text value (names, titles, catalog keys)
+
+
+def check_shape(data: Any) -> None:
+    """Refuse documents nested deeper than :data:`MAX_DEPTH` or holding more than
+    :data:`MAX_ITEMS` values, before anything else looks at them (iterative: no
+    recursion, so no input can exhaust the stack here)."""
+    stack: list[tuple[Any, int, str]] = [(data, 0, "")]
+    count = 0
+    while stack:
+        node, depth, kp = stack.pop()
+        count += 1
+        if count > MAX_ITEMS:
+            raise InputError(f"input holds too many values (more than {MAX_ITEMS})")
+        if depth > MAX_DEPTH:
+            raise InputError(
+                f"input is nested too deeply (more than {MAX_DEPTH} levels)", key=kp or None
+            )
+        if isinstance(node, dict):
+            stack.extend((v, depth + 1, _join(kp, str(k))) for k, v in node.items())
+        elif isinstance(node, list):
+            stack.extend((v, depth + 1, f"{kp}[{n + 1}]") for n, v in enumerate(node))
 
 
 def read_table(schema: Schema, data: Any, path: str = "", depth: int = 0) -> dict[str, Any]:
@@ -91,6 +120,8 @@ def read_table(schema: Schema, data: Any, path: str = "", depth: int = 0) -> dic
     quantities, ``(lo, hi)`` for ranges), ``None`` for absent optional keys.
     Raises :class:`InputError` naming the key path on the first problem.
     """
+    if depth == 0 and not path:
+        check_shape(data)
     if depth > MAX_DEPTH:
         raise InputError("input is nested too deeply", key=path or None)
     if not isinstance(data, dict):
@@ -98,7 +129,11 @@ def read_table(schema: Schema, data: Any, path: str = "", depth: int = 0) -> dic
     known = {k.name for k in schema.keys}
     for name in data:
         if name not in known:
-            near = difflib.get_close_matches(str(name), sorted(known), n=3, cutoff=0.6)
+            near = (
+                difflib.get_close_matches(str(name), sorted(known), n=3, cutoff=0.6)
+                if len(str(name)) <= MAX_TEXT
+                else []
+            )
             hint = (
                 f" (did you mean {', '.join(near)}?)"
                 if near
@@ -139,6 +174,10 @@ def read_value(key: Key, raw: Any, kp: str, depth: int = 0) -> Any:
     if kind == "text":
         if not isinstance(raw, str) or not raw.strip():
             raise InputError(f"expected text, got {_show(raw)}", key=kp)
+        if len(raw) > MAX_TEXT:
+            raise InputError(
+                f"text is too long ({len(raw)} characters; at most {MAX_TEXT})", key=kp
+            )
         if key.choices and raw not in key.choices:
             near = difflib.get_close_matches(raw, key.choices, n=1)
             hint = f"; did you mean {_show(near[0])}?" if near else ""
@@ -154,11 +193,17 @@ def read_value(key: Key, raw: Any, kp: str, depth: int = 0) -> Any:
     if kind in ("number", "integer"):
         if isinstance(raw, bool) or not isinstance(raw, int | float):
             raise InputError(f"expected a number, got {_show(raw)}", key=kp)
+        if isinstance(raw, int) and abs(raw) > 1e300:
+            raise InputError(f"number is too large: {_show(raw)}", key=kp)
         if not math.isfinite(raw):
             raise InputError(f"expected a finite number, got {_show(raw)}", key=kp)
         if kind == "integer" and not (isinstance(raw, int) or float(raw).is_integer()):
             raise InputError(f"expected a whole number, got {_show(raw)}", key=kp)
-        value = int(raw) if kind == "integer" else float(raw)
+        try:
+            small = check_magnitude(float(raw), _show(raw))
+        except InputError as err:
+            raise InputError(err.detail, key=kp) from None
+        value = int(raw) if kind == "integer" else small
         _check_bounds(key, value, raw, kp)
         return value
     if kind == "names":
@@ -166,6 +211,11 @@ def read_value(key: Key, raw: Any, kp: str, depth: int = 0) -> Any:
             raw = [raw]
         if not isinstance(raw, list) or not all(isinstance(x, str) and x.strip() for x in raw):
             raise InputError(f"expected a list of names, got {_show(raw)}", key=kp)
+        for x in raw:
+            if len(x) > MAX_TEXT:
+                raise InputError(
+                    f"name is too long ({len(x)} characters; at most {MAX_TEXT})", key=kp
+                )
         if len(raw) > MAX_ITEMS:
             raise InputError(f"too many names ({len(raw)})", key=kp)
         return list(raw)

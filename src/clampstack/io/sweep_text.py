@@ -84,6 +84,12 @@ def sweep_text(r: SweepResult, units: str = "si") -> str:
         out.append("")
         out.append("Cycle from the assembly temperature to each end of the range and back:")
         for label, c in r.cycle.items():
+            if c.get("collapse"):
+                out.append(
+                    f"  {label} ({c['peak_temperature_degC']:g} degC): plastic collapse, "
+                    "no equilibrium with yielding parts"
+                )
+                continue
             msg = (
                 "no yielding, preload unchanged"
                 if c["permanent_loss_N"] <= 0

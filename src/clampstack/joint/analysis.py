@@ -834,11 +834,21 @@ def analyse(spec: JointSpec) -> JointResult:
                 "method, is needed."
             )
 
+    from ..errors import SolveError
     from .plastic import permanent_loss_cycle
 
-    cycle = permanent_loss_cycle(prep)
     notes = list(prep.notes) + check_notes
-    if cycle.permanent_loss > 0:
+    try:
+        cycle = permanent_loss_cycle(prep)
+    except SolveError:
+        cycle = None
+        notes.append(
+            "Plastic collapse: with the bolt and the bearing faces elastic-perfectly-plastic, "
+            "no equilibrium exists under the largest service load (the load exceeds what the "
+            "yielding bolt or bearing faces can carry); the permanent preload loss cannot be "
+            "given. See the failing checks."
+        )
+    if cycle is not None and cycle.permanent_loss > 0:
         notes.append(
             f"Yielding at service temperature ({', '.join(cycle.yielded)}): the maximum-preload "
             f"joint keeps {cycle.preload_after[1] / 1e3:.4g} kN after cooling back to the assembly "

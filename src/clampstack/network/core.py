@@ -406,7 +406,12 @@ class Network:
                 float(np.max(np.abs(force), initial=0.0)),
                 force_floor,
             )
-            if np.max(np.abs(resid), initial=0.0) > 1e-6 * scale:
+            # round-off of the part forces: each is a slope times a difference of
+            # displacements and free elongations that may be far larger than the result
+            roundoff = 1e-9 * float(
+                np.max(slope * (np.abs(u[self.i]) + np.abs(u[self.j]) + np.abs(d0)), initial=0.0)
+            )
+            if np.max(np.abs(resid), initial=0.0) > max(1e-6 * scale, roundoff):
                 # far from equilibrium: a group held only by slack parts is the usual cause
                 self._check_mechanism(slope, f_ext)
                 raise SolveError(

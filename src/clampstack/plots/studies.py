@@ -6,7 +6,7 @@ carry values have a ``gid`` so that tests can read the plotted data back.
 
 from __future__ import annotations
 
-from collections.abc import Sequence
+from collections.abc import Mapping, Sequence
 
 import numpy as np
 from matplotlib.figure import Figure
@@ -190,6 +190,7 @@ def passes_plot(
             ha="right",
             fontsize=7.5,
             color=INK,
+            bbox={"boxstyle": "square,pad=0.15", "fc": "white", "ec": "none", "alpha": 0.85},
         ).set_gid("final-range")
         if bolt_count <= 24:
             ax.set_xticks(x)
@@ -263,4 +264,82 @@ def histogram(
                 rotation=90,
                 va="center",
             ).set_gid("limit-label")
+    return fig
+
+
+def binned_histogram(
+    edges: Sequence[float] | np.ndarray,
+    counts: Sequence[int] | np.ndarray,
+    quantity: str = "assembly preload",
+    unit: str = "kN",
+    scale: float = 1e3,
+    percentiles: Mapping[float, float] | None = None,
+    limit: float | None = None,
+    limit_label: str = "limit",
+) -> Figure:
+    """Histogram already binned by a study: ``counts[i]`` samples in ``edges[i]..edges[i+1]``.
+
+    For studies that keep counts rather than samples (the scatter study's
+    ``ScatterResult.histogram``, any number of samples).  Edges, percentiles
+    and ``limit`` are SI values, shown divided by ``scale`` in ``unit``;
+    ``percentiles`` maps the percent (1, 50, 99) to the value the study found.
+    Percentiles and the limit are lines named in a legend above the bars (the
+    share beyond the limit would be only as exact as the bins, so it is not
+    printed).  A limit farther from the samples than their own range is not
+    drawn to scale: the legend names it and the side it lies on.
+    """
+    top = 0.84  # lines end here (axes fraction); the legend sits above
+    e = np.asarray(edges, dtype=float).ravel()
+    c = np.asarray(counts).ravel()
+    if e.size != c.size + 1 or c.size == 0:
+        raise ValueError(f"{c.size} counts need {c.size + 1} edges, got {e.size}")
+    if not np.all(np.isfinite(e)) or np.any(np.diff(e) <= 0):
+        raise ValueError("edges must be finite and increasing")
+    total = int(np.sum(c))
+    if total <= 0 or np.any(c < 0):
+        raise ValueError("no samples to plot")
+    shown = e / scale
+    with style():
+        fig = new_figure(height=3.4)
+        ax = fig.add_subplot()
+        ax.set_title(f"{quantity[:1].upper()}{quantity[1:]}: {total:,} samples".replace(",", " "))
+        ax.set_xlabel(f"{quantity} [{unit}]")
+        ax.set_ylabel("samples")
+        bars = ax.bar(
+            shown[:-1],
+            c,
+            width=np.diff(shown),
+            align="edge",
+            color=BOLT,
+            alpha=0.85,
+            edgecolor="white",
+            lw=0.4,
+        )
+        for p in bars:
+            p.set_gid("bar")
+        ax.grid(axis="x", visible=False)
+        for q, x in sorted((percentiles or {}).items()):
+            ax.axvline(
+                x / scale,
+                color=INK if q == 50 else MUTED,
+                lw=1.0,
+                ls="-" if q == 50 else "--",
+                ymax=top,
+                label=f"p{q:02g} = {fmt_number(x / scale)} {unit}",
+            )
+            ax.get_lines()[-1].set_gid(f"p{q:g}")
+        if limit is not None:
+            lim = limit / scale
+            lo, hi = shown[0], shown[-1]
+            span = hi - lo
+            text = f"{limit_label} {fmt_number(lim)} {unit}"
+            if lo - span <= lim <= hi + span:
+                ax.axvline(lim, color=LIMIT, lw=1.4, ymax=top, label=text)
+            else:  # far off: named, not drawn to scale
+                side = "below" if lim < lo else "above"
+                ax.plot([], [], color=LIMIT, lw=1.4, label=f"{text} (off the scale, {side})")
+            ax.get_lines()[-1].set_gid("limit")
+        ax.set_ylim(0, float(np.max(c)) * 1.04 / top)  # the legend above the bars and lines
+        if ax.get_lines():
+            ax.legend(loc="upper left", ncols=4, fontsize=7, handlelength=2.2)
     return fig

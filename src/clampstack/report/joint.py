@@ -9,7 +9,6 @@ that keep headings with what follows and figures and table rows whole).
 from __future__ import annotations
 
 import csv
-import html
 import io
 import json
 from datetime import UTC, datetime
@@ -19,12 +18,34 @@ from typing import Any
 from .. import __version__
 from ..errors import InputError
 from ..io.files import InputDocument
-from ..io.joint_text import _check_value, _margin, _mu, governing
-from ..io.text import CAUTION, UNIT_SYSTEMS, DisplayUnits
+from ..io.joint_text import _margin, _mu, governing
+from ..io.text import CAUTION, UNIT_SYSTEMS, DisplayUnits, fmt_number
 from ..joint.analysis import JointResult
+from ._common import (
+    MARGIN_NOTE,
+    _checks_table,
+    _e,
+    _f,
+    _figure,
+    _kv,
+    _lab,
+    _page,
+    _renumber,
+    _table,
+)
+from ._common import _checks_csv as _checks_csv_rows
 
 C0 = 273.15
 SWEEP_MARGIN = 20.0  # K beyond the assembly and service temperatures
+SCATTER_SAMPLES = 100_000  # Monte Carlo samples of the report's scatter section
+SCATTER_SEED = 0
+
+#: cited only when the report holds the scatter section
+SCATTER_REFERENCE = (
+    "Clopper, C. J., Pearson, E. S., &ldquo;The use of confidence or fiducial limits "
+    "illustrated in the case of the binomial&rdquo;, <i>Biometrika</i> 26 (1934) "
+    "404&ndash;413 (the 95 % intervals of the scatter probabilities)."
+)
 
 REFERENCES: tuple[str, ...] = (
     "VDI 2230 Part 1:2015, <i>Systematic calculation of highly stressed bolted joints &mdash; "
@@ -52,66 +73,6 @@ REFERENCES: tuple[str, ...] = (
     "chapter 3 (the direct stiffness method of the spring network).",
 )
 
-_CSS = """
-:root{--ink:#1e2b33;--muted:#5d6b73;--rule:#d6dde1;--accent:#1b6c8f;--accent-bg:#eaf2f6;
---pass:#2f7a4a;--pass-bg:#e7f3eb;--fail:#b3261e;--fail-bg:#fbe9e7;--warn:#9a5b12;--warn-bg:#fbf2e4}
-*{box-sizing:border-box}
-html{-webkit-print-color-adjust:exact;print-color-adjust:exact}
-body{font-family:"DejaVu Sans","Liberation Sans",Arial,Helvetica,sans-serif;font-size:10pt;
-line-height:1.4;color:var(--ink);max-width:186mm;margin:1.5rem auto;padding:0 1rem}
-h1{font-size:16pt;margin:0 0 .2rem;line-height:1.2}
-h2{font-size:12pt;margin:1.4rem 0 .5rem;padding-bottom:.15rem;border-bottom:2px solid var(--accent);
-color:var(--ink)}
-h3{font-size:10.5pt;margin:1rem 0 .35rem;color:var(--accent)}
-p{margin:.35rem 0}
-.sub{color:var(--muted);margin:0 0 .6rem}
-.meta{color:var(--muted);font-size:8.5pt}
-.mono,code,pre{font-family:"DejaVu Sans Mono","Liberation Mono",Consolas,monospace}
-code{font-size:9pt}
-table{border-collapse:collapse;margin:.4rem 0 .6rem;font-variant-numeric:tabular-nums;width:100%}
-th,td{border-bottom:1px solid var(--rule);padding:.2rem .45rem;text-align:right;vertical-align:top}
-th{background:var(--accent-bg);font-weight:600;font-size:9pt}
-td.l,th.l{text-align:left}
-table.kv{width:auto}table.kv th{text-align:left;background:none;font-weight:normal;color:var(--muted)}
-table.kv td{text-align:left}
-table.small td,table.small th{font-size:8.5pt}
-table.checks th:first-child{width:25%}table.checks th:last-child{width:38%}
-td.src{font-size:8pt;color:var(--muted);text-align:left}
-.pass{color:var(--pass);font-weight:600}.fail{color:var(--fail);font-weight:700}
-.off{color:var(--muted)}
-.verdict{border-radius:4px;padding:.55rem .8rem;margin:.6rem 0;font-size:11pt}
-.verdict.ok{background:var(--pass-bg);border-left:6px solid var(--pass)}
-.verdict.bad{background:var(--fail-bg);border-left:6px solid var(--fail)}
-.verdict b{font-size:13pt}
-.spec{display:flex;flex-wrap:wrap;gap:.5rem 1.5rem;align-items:baseline;background:var(--accent-bg);
-border-radius:4px;padding:.55rem .8rem;margin:.6rem 0}
-.spec .big{font-size:17pt;font-weight:700;color:var(--accent)}
-.caution{border-left:5px solid var(--warn);background:var(--warn-bg);padding:.5rem .8rem;margin:.8rem 0;
-font-size:9pt}
-pre.input{background:#f6f8f9;border:1px solid var(--rule);border-radius:3px;padding:.5rem .7rem;
-font-size:8.5pt;white-space:pre-wrap;word-break:break-word;margin:.4rem 0}
-figure{margin:.6rem 0 .9rem}
-figure svg.figure{width:100%;height:auto;display:block}
-figcaption{font-size:8.5pt;color:var(--muted);margin-top:.25rem}
-ol.refs li,ul.notes li{margin:.2rem 0}
-footer{margin-top:1.5rem;border-top:1px solid var(--rule);padding-top:.4rem}
-.hash{font-family:"DejaVu Sans Mono","Liberation Mono",monospace;font-size:8pt;word-break:break-all}
-@page{margin:16mm 15mm 17mm 15mm;
-@bottom-left{content:"__FOOTER__";font-family:"DejaVu Sans",Arial,sans-serif;font-size:7pt;color:#5d6b73}
-@bottom-right{content:"page " counter(page) " of " counter(pages);
-font-family:"DejaVu Sans",Arial,sans-serif;font-size:7pt;color:#5d6b73}}
-@media print{
-body{max-width:none;margin:0;padding:0;font-size:9pt}
-h2{break-after:avoid-page;page-break-after:avoid}
-h3{break-after:avoid-page;page-break-after:avoid}
-figure,.verdict,.spec,.caution,table.kv,.keep{break-inside:avoid;page-break-inside:avoid}
-tr,td,th{break-inside:avoid;page-break-inside:avoid}
-thead{display:table-header-group}
-pre.input{break-inside:auto}
-section.newpage{break-before:page;page-break-before:always}
-}
-"""
-
 
 def report_file_names(stem: str) -> dict[str, str]:
     """Names of the report files for an input file named ``stem`` (without extension)."""
@@ -121,67 +82,6 @@ def report_file_names(stem: str) -> dict[str, str]:
         "states": f"{stem}-states.csv",
         "checks": f"{stem}-checks.csv",
     }
-
-
-# --------------------------------------------------------------------------- helpers
-
-
-def _e(x: object) -> str:
-    """Escape text for HTML; ``scheme://`` is written with an entity so the file names no URL."""
-    s = html.escape(str(x))
-    return s.replace("http://", "http&#58;//").replace("https://", "https&#58;//")
-
-
-def _lab(u: DisplayUnits, kind: str) -> str:
-    lab = u.label(kind)
-    return (
-        lab.replace("N*m", "N&middot;m")
-        .replace("ft*lbf", "ft&middot;lbf")
-        .replace("^2", "&sup2;")
-        .replace("um", "&micro;m")
-    )
-
-
-def _f(u: DisplayUnits, kind: str, value: float | None) -> str:
-    """A value with its unit: ``13.51 kN``."""
-    if value is None:
-        return "&ndash;"
-    return f"{u.fmt(kind, value)}&nbsp;{_lab(u, kind)}"
-
-
-def _table(
-    headers: list[str], rows: list[list[str]], left: set[int] | None = None, cls: str = ""
-) -> str:
-    left = left or {0}
-
-    def cell(tag: str, i: int, content: str) -> str:
-        return f'<{tag} class="l">{content}</{tag}>' if i in left else f"<{tag}>{content}</{tag}>"
-
-    th = "".join(cell("th", i, h) for i, h in enumerate(headers))
-    body = "".join(
-        "<tr>" + "".join(cell("td", i, c) for i, c in enumerate(r)) + "</tr>" for r in rows
-    )
-    c = f' class="{cls}"' if cls else ""
-    return f"<table{c}><thead><tr>{th}</tr></thead><tbody>{body}</tbody></table>"
-
-
-def _kv(rows: list[tuple[str, str]]) -> str:
-    body = "".join(f"<tr><th>{k}</th><td>{v}</td></tr>" for k, v in rows)
-    return f'<table class="kv"><tbody>{body}</tbody></table>'
-
-
-def _figure(fig: Any, prefix: str, title: str, caption: str) -> str:
-    from ..plots import inline_svg
-
-    svg = inline_svg(fig, prefix, title=title)
-    return f"<figure>{svg}<figcaption>{caption}</figcaption></figure>"
-
-
-def _css_string(text: str) -> str:
-    t = " ".join(text.split())
-    if len(t) > 90:
-        t = t[:87] + "..."
-    return t.replace("\\", "\\\\").replace('"', '\\"')
 
 
 # --------------------------------------------------------------------------- sections
@@ -399,40 +299,9 @@ def _states(r: JointResult, u: DisplayUnits) -> str:
 
 
 def _checks(r: JointResult, u: DisplayUnits) -> str:
-    rows = []
-    for c in r.checks:
-        v, lim = _check_value(c, u)
-        if c.skipped:
-            verdict = '<span class="off">off</span>'
-        elif c.passed:
-            verdict = '<span class="pass">pass</span>'
-        else:
-            verdict = '<span class="fail">FAIL</span>'
-        src = _e(c.source) + (f"<br>{_e(c.detail)}" if c.detail else "")
-        if c.skipped:
-            src += f"<br><b>switched off:</b> {_e(c.skipped)}"
-        rows.append(
-            [
-                f"<b>{_e(c.name)}</b><br><span class=meta>{_e(c.title)}</span>",
-                _e(v).replace(" ", "&nbsp;"),
-                _e(c.relation),
-                _e(lim).replace(" ", "&nbsp;"),
-                _e(_margin(c)).replace(" ", "&nbsp;"),
-                verdict,
-                f'<span class="src">{src}</span>',
-            ]
-        )
-    table = _table(
-        ["check", "value", "", "limit", "margin", "result", "source"],
-        rows,
-        left={0, 5, 6},
-        cls="small checks",
-    )
     return (
         '<section id="checks"><h2>6. Checks</h2>'
-        "<p class=meta>Margin: limit/value &minus; 1 for an upper limit, value/limit &minus; 1 "
-        "for a lower limit; a check passes at a margin of zero or more.</p>"
-        f"{table}</section>"
+        f"{MARGIN_NOTE}{_checks_table(r.checks, u)}</section>"
     )
 
 
@@ -534,8 +403,8 @@ def _assumptions(r: JointResult) -> str:
     )
 
 
-def _references() -> str:
-    items = "".join(f"<li>{x}</li>" for x in REFERENCES)
+def _references(extra: tuple[str, ...] = ()) -> str:
+    items = "".join(f"<li>{x}</li>" for x in (*REFERENCES, *extra))
     return (
         '<section id="references"><h2>10. References</h2>'
         "<p class=meta>The published methods and data the calculation uses; each check above "
@@ -580,6 +449,190 @@ def report_sweep(result: JointResult) -> tuple[Any, str]:
     return None, f"No temperature sweep: {last}"
 
 
+# --------------------------------------------------------------------------- scatter
+
+_QUANTITY = {
+    "assembly_preload": "assembly preload F<sub>M</sub>",
+    "service_preload": "preload in service, no working load",
+    "residual_clamp_load": "residual clamp load F<sub>KR</sub> (minimum over the load range)",
+}
+_EVENT = {
+    "separation": "the interface opens under the largest working load",
+    "bolt_yield": "the bolt yields, at assembly or in service",
+    "slip": "the interface slips under the shear load",
+}
+
+
+def report_scatter(result: JointResult) -> tuple[Any, str]:
+    """The scatter study of the report, or ``None`` and why not.
+
+    Run only when the input has a ``[distributions]`` table:
+    :data:`SCATTER_SAMPLES` samples with seed :data:`SCATTER_SEED`, the same
+    study as ``clampstack scatter FILE --samples 100000 --seed 0``.
+    """
+    from ..studies.scatter import parse_distributions, scatter
+
+    spec = result.spec
+    if spec.distributions is None:
+        return None, "The input has no [distributions] table: no scatter study."
+    try:
+        sr = scatter(
+            spec, parse_distributions(spec.distributions), SCATTER_SAMPLES, seed=SCATTER_SEED
+        )
+    except InputError as err:
+        return None, f"No scatter study: {err.detail}"
+    return sr, ""
+
+
+def _given_distributions(spec: Any) -> dict[str, Any]:
+    """The distributions the input gives (``Dist`` objects), by key."""
+    from ..studies.scatter import parse_distributions
+
+    return parse_distributions(spec.distributions)
+
+
+def _dist_text(d: Any, key: str, u: DisplayUnits) -> str:
+    """A distribution in display units: ``normal, mean 48.00 N&middot;m, std 1.500 N&middot;m``."""
+    from ..studies.scatter import DIST_KEYS
+
+    kind = DIST_KEYS[key][0]
+    if kind == "temperature":
+
+        def val(x: float, spread: bool = False) -> str:
+            return f"{fmt_number(x if spread else x - C0)}&nbsp;{'K' if spread else '&deg;C'}"
+
+    else:
+        display = {"length": "small_length", "dimensionless": None}.get(kind, kind)
+
+        def val(x: float, spread: bool = False) -> str:
+            return fmt_number(x, 3) if display is None else _f(u, display, x)
+
+    if d.kind == "uniform":
+        return f"uniform {val(d.a)} .. {val(d.b)}"
+    if d.kind in ("normal", "lognormal"):
+        return f"{d.kind}, mean {val(d.a)}, standard deviation {val(d.b, spread=True)}"
+    return f"fixed {val(d.a)}"
+
+
+def _scatter(sr: Any, note: str, figures: str, u: DisplayUnits) -> str:
+    if sr is None:
+        return f'<section id="scatter"><h2>9. Statistical scatter</h2><p>{_e(note)}</p></section>'
+    F = _lab(u, "force")
+    count = f"{sr.samples:,}".replace(",", "&nbsp;")
+    intro = (
+        "<p>The input's <code>[distributions]</code> table asks for a Monte Carlo study of the "
+        "assembly scatter: each sample draws the inputs below and runs the check chain in "
+        "closed form (tightening, embedding, temperature, working load through the joint "
+        f"diagram). <b>{count} samples, seed {sr.seed}</b>: the same input file gives the same "
+        "numbers in every report; <code>clampstack scatter FILE --samples N --seed S</code> "
+        "runs the study with other settings.</p>"
+    )
+    given = _given_distributions(sr.spec)
+    inputs = _table(
+        ["sampled input", "distribution"],
+        [
+            [f"<code>{_e(k)}</code>", _dist_text(given[k], k, u) if k in given else _e(v)]
+            for k, v in sr.distributions.items()
+        ],
+        left={0, 1},
+        cls="small",
+    )
+    keys = ("p01", "p05", "p50", "p95", "p99", "mean")
+    rows = [
+        [_QUANTITY[q], *(u.fmt("force", sr.percentiles[q][k]).replace(" ", "&nbsp;") for k in keys)]
+        for q in _QUANTITY
+    ]
+    pct = _table([f"[{F}]", "1 %", "5 %", "50 %", "95 %", "99 %", "mean"], rows, cls="small")
+    prow = []
+    for name, meaning in _EVENT.items():
+        pr = sr.probability(name)
+        prow.append(
+            [
+                f"<b>{_e(name)}</b><br><span class=meta>{_e(meaning)}</span>",
+                f"{pr['estimate']:.3g}",
+                f"{pr['low']:.3g} .. {pr['high']:.3g}",
+                f"{pr['count']:,}".replace(",", "&nbsp;"),
+            ]
+        )
+    prob = _table(
+        ["probability that", "estimate", "95 % interval (Clopper&ndash;Pearson)", "samples"],
+        prow,
+        cls="small",
+    )
+    d = sr.deterministic
+    compare = (
+        "<p>For comparison, the tightening factor of VDI 2230-1 (tightening specification "
+        "above) gives an assembly "
+        f"preload of {_f(u, 'force', d['assembly_preload_min_N'])} .. "
+        f"{_f(u, 'force', d['assembly_preload_max_N'])} and a minimum residual clamp load of "
+        f"{_f(u, 'force', d['residual_clamp_load_min_N'])}; the study's 1 % .. 99 % range of the "
+        f"assembly preload is {_f(u, 'force', sr.percentiles['assembly_preload']['p01'])} .. "
+        f"{_f(u, 'force', sr.percentiles['assembly_preload']['p99'])}.</p>"
+    )
+    return (
+        '<section id="scatter"><div class="keep"><h2>9. Statistical scatter</h2>'
+        f"{intro}{inputs}</div>"
+        f'<div class="keep"><h3>Percentiles</h3>{pct}</div>'
+        f'<div class="keep"><h3>Probabilities</h3>{prob}'
+        "<p class=meta>Estimate: share of the samples; interval: exact binomial 95 % "
+        "confidence interval (Clopper and Pearson, 1934). A count of zero still has an upper "
+        "bound above zero.</p></div>"
+        f"{compare}{figures}</section>"
+    )
+
+
+def _scatter_figures(sr: Any, r: JointResult, units: str, first: int) -> str:
+    """Histograms of the assembly preload and the residual clamp load (figures ``first``..)."""
+    from ..plots import binned_histogram
+
+    u = UNIT_SYSTEMS[units]
+    label, factor = u.force
+    out = []
+    samples = f"{sr.samples:,}".replace(",", "&nbsp;")
+    req = r.spec.requirements.residual_clamp_load
+    for k, (q, name, limit, limit_label, caption) in enumerate(
+        (
+            (
+                "assembly_preload",
+                "assembly preload",
+                r.permissible_preload,
+                "permissible",
+                "with the permissible assembly preload F<sub>M,zul</sub>",
+            ),
+            (
+                "residual_clamp_load",
+                "residual clamp load",
+                req if req > 0 else None,
+                "required",
+                "with the required clamp load" if req > 0 else "(no required clamp load given)",
+            ),
+        )
+    ):
+        edges, counts = sr.histogram[q]
+        p = sr.percentiles[q]
+        fig = binned_histogram(
+            edges,
+            counts,
+            quantity=name,
+            unit=label,
+            scale=factor,
+            percentiles={1.0: p["p01"], 50.0: p["p50"], 99.0: p["p99"]},
+            limit=limit,
+            limit_label=limit_label,
+        )
+        n = first + k
+        out.append(
+            _figure(
+                fig,
+                f"f{n}",
+                f"Histogram of the {name}",
+                f"Figure {n}. Histogram of the {name} over the {samples} samples "
+                f"({len(counts)} bins), the 1 %, 50 % and 99 % percentiles marked, {caption}.",
+            )
+        )
+    return "".join(out)
+
+
 # --------------------------------------------------------------------------- report
 
 
@@ -602,22 +655,7 @@ def _states_csv(r: JointResult) -> str:
 
 
 def _checks_csv(r: JointResult) -> str:
-    buf = io.StringIO()
-    w = csv.writer(buf, lineterminator="\n")
-    keys = ["name", "value", "limit", "unit", "relation", "margin", "pass", "skipped", "source"]
-    w.writerow([*keys, "detail", "title"])
-    for c in r.to_dict()["checks"]:
-        row = []
-        for k in keys:
-            v = c[k]
-            if isinstance(v, bool):
-                row.append(str(v).lower())
-            elif isinstance(v, float):
-                row.append(repr(v))
-            else:
-                row.append("" if v is None else str(v))
-        w.writerow([*row, c["detail"], c["title"]])
-    return buf.getvalue()
+    return _checks_csv_rows(r.to_dict()["checks"])
 
 
 def render_joint_report(
@@ -626,12 +664,14 @@ def render_joint_report(
     units: str = "si",
     now: datetime | None = None,
     with_sweep: bool = True,
+    with_scatter: bool = True,
 ) -> dict[str, str]:
     """Render the report files of ``result`` in memory: ``{file name: content}``.
 
     The HTML report (figures inline as SVG), the JSON result (``result.to_dict()``
     with a ``report`` block naming the tool version, the date and the input's
-    SHA-256) and two CSV files (states, checks).  Nothing is written here.
+    SHA-256, and a ``scatter`` block when the input has a ``[distributions]``
+    table) and two CSV files (states, checks).  Nothing is written here.
     """
     from ..plots import bolt_load_plot, joint_diagram, spring_schematic, sweep_plot
 
@@ -673,7 +713,7 @@ def render_joint_report(
         "network at service temperature; the knee is the separation load, beyond which the "
         "bolt carries all of F<sub>A</sub>.",
     )
-    sweep_section = ""
+    sweep_section, figures = "", 3
     if with_sweep and thermal:
         sw, note = report_sweep(result)
         fig = ""
@@ -686,7 +726,13 @@ def render_joint_report(
                 "load against the service temperature; where a check fails the background is "
                 "shaded.",
             )
+            figures += 1
         sweep_section = _temperature(sw, fig, note, u)
+    scatter_section, sr = "", None
+    if with_scatter and s.distributions is not None:
+        sr, note = report_scatter(result)
+        figs = "" if sr is None else _scatter_figures(sr, result, units, figures + 1)
+        scatter_section = _scatter(sr, note, figs, u)
 
     head = (
         f"<header><h1>{_e(s.title)}</h1>"
@@ -708,8 +754,9 @@ def render_joint_report(
             _checks(result, u),
             _tightening(result, u),
             sweep_section,
+            scatter_section,
             _assumptions(result),
-            _references(),
+            _references((SCATTER_REFERENCE,) if sr is not None else ()),
             f"<footer><div class=caution>{_e(CAUTION)}</div>"
             f'<p class="meta">Generated by clampstack {_e(__version__)} on {_e(stamp)} from '
             f'<code>{_e(name)}</code>, SHA-256 <span class="hash">{_e(doc.sha256)}</span>. '
@@ -718,20 +765,12 @@ def render_joint_report(
             "</footer>",
         ]
     )
-    if not thermal or not with_sweep:
-        # keep the section numbers consecutive when there is no temperature section
-        for k in (9, 10):
-            body = body.replace(f"<h2>{k}. ", f"<h2>{k - 1}. ")
-    footer = _css_string(
-        f"clampstack {__version__} - {name} (SHA-256 {doc.sha256[:12]}) - {s.title}"
-    )
-    css = _CSS.replace("__FOOTER__", footer)
-    page = (
-        '<!DOCTYPE html>\n<html lang="en"><head><meta charset="utf-8">'
-        '<meta name="viewport" content="width=device-width, initial-scale=1">'
-        f'<meta name="generator" content="clampstack {_e(__version__)}">'
-        f"<title>{_e(s.title)} &mdash; calculation report</title><style>{css}</style></head>"
-        f"<body>\n{body}\n</body></html>\n"
+    body = _renumber(body)  # consecutive, with or without the temperature and scatter sections
+    page = _page(
+        s.title,
+        __version__,
+        f"clampstack {__version__} - {name} (SHA-256 {doc.sha256[:12]}) - {s.title}",
+        body,
     )
     data = result.to_dict()
     data["report"] = {
@@ -741,6 +780,8 @@ def render_joint_report(
         "input_sha256": doc.sha256,
         "units": units,
     }
+    if sr is not None:
+        data["scatter"] = sr.to_dict()
     # the page last: when it is there, the results beside it are too
     return {
         names["json"]: json.dumps(data, indent=2, allow_nan=False) + "\n",

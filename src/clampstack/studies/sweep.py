@@ -19,7 +19,7 @@ from typing import Any
 
 import numpy as np
 
-from ..errors import InputError
+from ..errors import InputError, SolveError
 from ..joint.analysis import Prepared, evaluate_checks, margins, prepare, service_closed_form
 from ..joint.model import JointSpec
 
@@ -301,7 +301,15 @@ def _cycles(prep: Prepared, T_low: float, T_high: float) -> dict[str, Any]:
     for label, Tp in (("cold", T_low), ("hot", T_high)):
         if abs(Tp - T0) < 1e-9:
             continue
-        c = permanent_loss_cycle(prep, T_peak=Tp)
+        try:
+            c = permanent_loss_cycle(prep, T_peak=Tp)
+        except SolveError:
+            out[label] = {
+                "peak_temperature_degC": Tp - C0,
+                "collapse": True,
+                "note": "no equilibrium with yielding parts (plastic collapse)",
+            }
+            continue
         out[label] = {
             "peak_temperature_degC": Tp - C0,
             "preload_before_min_N": c.preload_before[0],

@@ -1,0 +1,194 @@
+"""Gasketed flange: ASME BPVC VIII-1 Appendix 2 by hand, elastic interaction of a rigid
+flange on a linear gasket, and the bolt loads from a bending moment.
+"""
+
+from __future__ import annotations
+
+from functools import cache
+from typing import Any
+
+from .registry import Outcome, register
+
+G = "flange"
+INCH = 0.0254
+LBF = 4.4482216152605
+APP2 = "ASME BPVC VIII-1 Appendix 2, 2-5, hand calculation"
+
+
+def _data(**over: Any) -> dict[str, Any]:
+    d: dict[str, Any] = {
+        "title": "verification flange",
+        "flange": {
+            "bolt_count": 8,
+            "bolt_circle": "160 mm",
+            "thickness": "20 mm",
+            "inner_diameter": "90 mm",
+            "outer_diameter": "200 mm",
+        },
+        "bolt": {"thread": "M16", "grade": "8.8"},
+        "gasket": {
+            "type": "spiral-wound",
+            "inner_diameter": "95 mm",
+            "outer_diameter": "127 mm",
+            "thickness": "4.5 mm",
+        },
+        "loading": {"pressure": "40 bar"},
+        "tightening": {"thread_friction": "0.10..0.14"},
+    }
+    d.update(over)
+    return d
+
+
+@cache
+def _app2():
+    from ..flange.analysis import asme_app2
+    from ..io.flange_input import flange_from_data
+
+    return asme_app2(flange_from_data(_data()))
+
+
+# ASME BPVC VIII-1 Appendix 2, 2-5, by hand for this gasket (inches, psi):
+# N = (127 - 95)/2 = 16 mm; b0 = N/2 = 8 mm = 0.31496 in > 1/4 in ->
+# b = 0.5 sqrt(0.31496) = 0.28060 in; G = 127 mm - 2 b = 112.745 mm = 4.43878 in
+# P = 40 bar = 580.151 psi; m = 3, y = 10 000 psi (Table 2-5.1, spiral wound, from memory)
+# H = 0.785 G^2 P = 0.785 x 19.70277 x 580.151 = 8972.9 lbf
+# H_p = 2 b 3.14 G m P = 2 x 0.28060 x 3.14 x 4.43878 x 3 x 580.151 = 13 613.7 lbf
+# W_m2 = 3.14 b G y = 3.14 x 0.28060 x 4.43878 x 10 000 = 39 109.2 lbf
+@register("App. 2 effective gasket width b", G)
+def app2_b() -> Outcome:
+    return Outcome(_app2().b / INCH, 0.28060, 1e-4, APP2, "in")
+
+
+@register("App. 2 gasket reaction diameter G", G)
+def app2_G() -> Outcome:
+    return Outcome(_app2().G / INCH, 4.43878, 1e-5, APP2, "in")
+
+
+@register("App. 2 hydrostatic end force H", G)
+def app2_H() -> Outcome:
+    return Outcome(_app2().H / LBF, 8972.9, 2e-4, APP2, "lbf")
+
+
+@register("App. 2 joint contact load H_p", G)
+def app2_Hp() -> Outcome:
+    return Outcome(_app2().Hp / LBF, 13613.7, 2e-4, APP2, "lbf")
+
+
+@register("App. 2 seating load W_m2", G)
+def app2_Wm2() -> Outcome:
+    return Outcome(_app2().Wm2 / LBF, 39109.2, 2e-4, f"{APP2} (y from memory)", "lbf")
+
+
+@register("App. 2 narrow gasket: G is the mean diameter", G)
+def app2_narrow() -> Outcome:
+    # b0 = (120 - 100)/4 = 5 mm <= 1/4 in: b = b0 and G = (100 + 120)/2 = 110 mm
+    from ..flange.analysis import asme_app2
+    from ..io.flange_input import flange_from_data
+
+    spec = flange_from_data(
+        _data(
+            gasket={
+                "type": "fibre-3mm",
+                "inner_diameter": "100 mm",
+                "outer_diameter": "120 mm",
+                "thickness": "3 mm",
+            }
+        )
+    )
+    return Outcome(asme_app2(spec).G * 1e3, 110.0, 1e-12, APP2, "mm")
+
+
+@cache
+def _rigid_interaction() -> tuple[Any, Any]:
+    # Rigid plate on a linear gasket of total stiffness K_g, bolts of stiffness k_b; bolts
+    # not yet tightened are loose.  Tightening the next bolt from zero to the target t moves
+    # the plate by t/(K_g + e k_b), with e the number of bolts already tightened, so each
+    # of those drops by c = k_b/(K_g + e k_b) of t (equilibrium of the plate and
+    # compatibility; the elastic interaction that ASME PCC-1 describes, in its simplest form).
+    import numpy as np
+
+    from ..flange.analysis import build_ring, cross_order, simulate_passes
+    from ..io.flange_input import flange_from_data
+
+    spec = flange_from_data(
+        _data(
+            flange={
+                "bolt_count": 8,
+                "bolt_circle": "160 mm",
+                "thickness": "20 mm",
+                "inner_diameter": "90 mm",
+                "outer_diameter": "200 mm",
+                "mating": "rigid",
+            },
+            gasket={
+                "inner_diameter": "95 mm",
+                "outer_diameter": "127 mm",
+                "thickness": "4.5 mm",
+                "m": 3.0,
+                "y": "69 MPa",
+                "max_stress": "300 MPa",
+                "unload_modulus": "5000 MPa",
+                "curve": [[0.02, "100 MPa"], [0.04, "200 MPa"]],
+            },
+        )
+    )
+    ring = build_ring(spec)
+    ring.k_ring *= 1e8  # a rigid ring and flange plate
+    ring.k_flange *= 1e8
+    n, kb = ring.n, ring.k_bolt
+    Kg = n * 5000e6 * ring.sector_area / ring.gasket_thickness
+    target = 40e3
+    order = cross_order(n)
+    sim = simulate_passes(ring, np.full(n, target), (1.0,), [order])[-1]
+    F = np.zeros(n)
+    done: list[int] = []
+    for j in order:
+        F[done] -= kb / (Kg + len(done) * kb) * target
+        F[j] = target
+        done.append(j)
+    return sim, F
+
+
+@register("elastic interaction: first bolt after one cross pass, rigid flange", G)
+def interaction_first() -> Outcome:
+    sim, F = _rigid_interaction()
+    return Outcome(
+        float(sim.min()) / 1e3,
+        float(F.min()) / 1e3,
+        2e-6,
+        "rigid plate on a linear gasket, equilibrium and compatibility, closed form",
+        "kN",
+    )
+
+
+@register("elastic interaction: mean bolt load after one cross pass, rigid flange", G)
+def interaction_mean() -> Outcome:
+    sim, F = _rigid_interaction()
+    return Outcome(
+        float(sim.mean()) / 1e3,
+        float(F.mean()) / 1e3,
+        2e-6,
+        "rigid plate on a linear gasket, equilibrium and compatibility, closed form",
+        "kN",
+    )
+
+
+@register("most loaded bolt under axial force and bending moment", G)
+def moment_loading() -> Outcome:
+    # F_i = F/N + M r cos(theta_i)/sum_j(r^2 cos^2 theta_j) = F/N + 4 M cos(theta_i)/(N D_bc):
+    # 16 kN/8 + 4 x 4 kN*m/(8 x 0.160 m)
+    #     = 2 kN + 12.5 kN = 14.5 kN (moment equilibrium of a rigid bolt circle)
+    from ..flange.analysis import working_loads
+    from ..io.flange_input import flange_from_data
+
+    spec = flange_from_data(
+        _data(loading={"pressure": "0 bar", "axial_force": "16 kN", "bending_moment": "4 kN*m"})
+    )
+    FA = working_loads(spec, 0.1)
+    return Outcome(
+        float(FA.max()) / 1e3,
+        14.5,
+        1e-12,
+        "statics of a rigid bolt circle, F_i = F/N + M r cos(theta_i)/sum(r^2 cos^2), closed form",
+        "kN",
+    )
