@@ -276,3 +276,43 @@ def _to_toml(d: dict) -> str:
         out.append(f"[{table}]")
         out.extend(f"{k} = {val(v)}" for k, v in kv.items())
     return "\n".join(out) + "\n"
+
+
+def test_bolt_and_nut_keys_as_for_a_joint(write_toml):
+    # DESIGN.md: a flange file's [bolt] and [nut] are "as for a joint"; [tightening] as for
+    # a joint plus the pass sequence (methods torque, angle, yield, tension)
+    text = """
+[flange]
+bolt_count = 8
+bolt_circle = "160 mm"
+thickness = "20 mm"
+material = "steel"
+[bolt]
+thread = "M16"
+grade = "8.8"
+length = "80 mm"
+head = "hex"
+shank_length = "10 mm"
+temperature = "100 degC"
+[nut]
+height = "13 mm"
+bearing_diameter = "22 mm"
+[gasket]
+type = "spiral-wound"
+inner_diameter = "95 mm"
+outer_diameter = "127 mm"
+thickness = "4.5 mm"
+[loading]
+pressure = "40 bar"
+[tightening]
+method = "yield"
+thread_friction = "0.10..0.14"
+passes = [50, 100]
+"""
+    res = run("flange", str(write_toml(text)), "--json")
+    assert res.exit_code in (0, 1), res.output
+    out = json.loads(res.stdout)
+    assert len(out["passes"]) == 2
+    short = text.replace('length = "80 mm"', 'length = "40 mm"')
+    res = run("flange", str(write_toml(short)))
+    assert res.exit_code == 2 and "bolt.length" in res.stderr

@@ -298,14 +298,15 @@ def build_ring(spec: FlangeSpec) -> Ring:
     E_f = spec.material.E(spec.T_assembly)
     lK = (2 * t if pair else t) + g.thickness
     try:
+        shank = [(spec.shank_length, spec.shank_diameter or thr.d)] if spec.shank_length > 0 else []
         dS = bolt_resilience(
             thr.d,
             thr.P,
             thr.d3,
             E_b,
             lK,
-            (),
-            None if pair else "hex",
+            shank,
+            None if spec.head == "stud" else spec.head,
             "nut" if pair else "tapped",
             E_nut=E_b,
             E_tapped=E_f,
@@ -651,6 +652,30 @@ def analyse_flange(spec: FlangeSpec, compensate: bool = True) -> FlangeResult:
             FM_min = MA_min / k_torque(muG_hi, muK_hi)
             alpha = FM_max / FM_min
         target = MA / k_torque(0.5 * (muG_lo + muG_hi), 0.5 * (muK_lo + muK_hi))
+    elif spec.method in ("yield", "angle"):
+        # tightened to the yield point (VDI 2230-1; R_p0.2max = 1.2 R_p0.2min, from memory)
+        from ..components import yield_controlled_preload_range
+
+        FM_min, FM_max = (
+            float(x)
+            for x in yield_controlled_preload_range(
+                thr.As, thr.ds, thr.d2, thr.P, Rp, muG_lo, muG_hi
+            )
+        )
+        alpha = FM_max / FM_min
+        target = 0.5 * (FM_min + FM_max)
+        FMzul = float(permissible_preload(thr.As, thr.ds, thr.d2, thr.P, 1.2 * Rp, muG_lo, 1.0))
+        T_lo = float(permissible_preload(thr.As, thr.ds, thr.d2, thr.P, Rp, muG_lo, 1.0))
+        T_hi = float(permissible_preload(thr.As, thr.ds, thr.d2, thr.P, 1.2 * Rp, muG_hi, 1.0))
+        torque = (
+            target * k_torque(0.5 * (muG_lo + muG_hi), 0.5 * (muK_lo + muK_hi)),
+            T_lo * k_torque(muG_lo, muK_lo),
+            T_hi * k_torque(muG_hi, muK_hi),
+        )
+        notes.append(
+            f"Method {spec.method}: the bolts are tightened to their yield point; the "
+            "torque is indicative."
+        )
     else:  # tension (a tensioner sets the preload directly)
         alpha = (
             spec.scatter if spec.scatter is not None else tightening_factor("tension", bound="mid")

@@ -71,3 +71,6 @@ class FlangeSpec:
     patterns: tuple[str, ...]  # one per pass: cross | circular | custom
     order: tuple[int, ...] | None  # custom order (0-based)
     defaults: tuple[tuple[str, str], ...] = field(default=())
+    head: str = "stud"  # stud (two nuts) | hex | socket
+    shank_length: float = 0.0
+    shank_diameter: float | None = None

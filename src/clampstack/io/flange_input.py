@@ -58,6 +58,44 @@ BOLT = Schema(
         Key("thread", "text", 'thread, e.g. "M16", "5/8-11 UNC"', required=True),
         Key("grade", "text", 'grade, e.g. "8.8", "ASTM A193 B7"', required=True),
         Key("material", "text", "catalog material of the bolt", default="the grade's steel"),
+        Key(
+            "modulus", "stress", "Young's modulus of the bolt (overrides; constant)", positive=True
+        ),
+        Key("expansion", "expansion", "thermal expansion of the bolt (overrides; constant)"),
+        Key(
+            "length",
+            "length",
+            "bolt or stud length (checked to reach through nuts and flanges)",
+            positive=True,
+        ),
+        Key(
+            "head",
+            "text",
+            "bolt form",
+            default="stud (flange pair), hex (rigid face)",
+            choices=("hex", "socket", "stud"),
+        ),
+        Key(
+            "shank_length",
+            "length",
+            "plain shank inside the clamp length",
+            default="0",
+            minimum=0.0,
+        ),
+        Key("shank_diameter", "length", "diameter of a reduced shank", positive=True),
+        Key(
+            "temperature",
+            "temperature",
+            "bolt temperature in operation",
+            default="loading.bolt_temperature",
+        ),
+        Key(
+            "rolled",
+            "text",
+            "thread rolled before or after heat treatment",
+            default="before",
+            choices=("before", "after"),
+        ),
         Key("hole", "length", "bolt hole in the flange", default="ISO 273 medium", positive=True),
         Key(
             "bearing_diameter",
@@ -84,7 +122,24 @@ BOLT = Schema(
 )
 
 NUT = Schema(
-    "nut", "The nuts.", (Key("height", "length", "nut height", default="ISO 4032", positive=True),)
+    "nut",
+    "The nuts (as for a joint).",
+    (
+        Key("height", "length", "nut height", default="ISO 4032", positive=True),
+        Key(
+            "bearing_diameter",
+            "length",
+            "bearing face of the nut",
+            default="d_w,min",
+            positive=True,
+        ),
+        Key("material", "text", "catalog material of the nut", default="the bolt's"),
+        Key("modulus", "stress", "Young's modulus of the nut (overrides)", positive=True),
+        Key("expansion", "expansion", "thermal expansion of the nut (overrides)"),
+        Key("strength", "stress", "tensile strength of the nut material", positive=True),
+        Key("limiting_pressure", "stress", "limiting surface pressure under the nut"),
+        Key("temperature", "temperature", "nut temperature in operation"),
+    ),
 )
 
 GASKET = Schema(
@@ -141,7 +196,7 @@ TIGHTENING = Schema(
             "text",
             "torque or tension (hydraulic tensioner)",
             default="torque",
-            choices=("torque", "tension"),
+            choices=("torque", "angle", "yield", "tension"),
         ),
         Key("torque", "torque", "tightening torque per bolt", positive=True),
         Key("preload", "force", "target preload per bolt", positive=True),
@@ -340,6 +395,17 @@ def flange_from_data(data: dict[str, Any]) -> FlangeSpec:
             "the bolt holes must lie within the flange ring", key="flange.outer_diameter"
         )
     bmat = _mat(b["material"] or grd.material_key, "bolt.material")
+    if b["modulus"] is not None or b["expansion"] is not None:
+        if b["modulus"] is None or b["expansion"] is None:
+            raise InputError("give the bolt's modulus and expansion together", key="bolt.modulus")
+        bmat = PartMaterial("user bolt", bmat.material, b["modulus"], b["expansion"])
+    nut_raw = raw["nut"] or {}
+    if nut_raw.get("bearing_diameter") is not None:
+        dW = nut_raw["bearing_diameter"]
+        if dW <= hole:
+            raise InputError(
+                "bearing diameter must exceed the bolt hole", key="nut.bearing_diameter"
+            )
     # --- allowable bolt stresses (ASME App. 2)
     Sb = b["allowable_stress"]
     if Sb is None:
@@ -361,11 +427,30 @@ def flange_from_data(data: dict[str, Any]) -> FlangeSpec:
                 )
             )
     Sa = b["allowable_stress_ambient"] or Sb
+    # --- the bolt must reach through both flanges (or one and the rigid part), gasket and nuts
+    pair = (f["mating"] or "flange") == "flange"
+    grip = (2 if pair else 1) * f["thickness"] + gt
+    need = grip + (2 if pair else 1) * (nut_raw.get("height") or thr.nut_height)
+    if b["length"] is not None and b["length"] < need * (1 - 1e-9):
+        raise InputError(
+            f"bolt length {b['length'] * 1e3:g} mm does not reach through the joint "
+            f"({need * 1e3:.4g} mm with {'both nuts' if pair else 'the nut'})",
+            key="bolt.length",
+        )
+    if (b["shank_length"] or 0.0) > grip:
+        raise InputError("the plain shank is longer than the grip", key="bolt.shank_length")
+    if b["shank_diameter"] is not None and b["shank_diameter"] >= thr.d:
+        raise InputError(
+            "a reduced shank must be thinner than the thread", key="bolt.shank_diameter"
+        )
+
     # --- loading
     ld = raw["loading"] or {k.name: None for k in LOADING.keys}
     T_asm = ld["assembly_temperature"] if ld["assembly_temperature"] is not None else ROOM
     T_fl = ld["temperature"] if ld["temperature"] is not None else T_asm
     T_b = ld["bolt_temperature"] if ld["bolt_temperature"] is not None else T_fl
+    if b["temperature"] is not None:
+        T_b = b["temperature"]
     for pm, T, key in (
         (fmat, T_fl, "loading.temperature"),
         (fmat, T_asm, "loading.assembly_temperature"),
@@ -378,6 +463,11 @@ def flange_from_data(data: dict[str, Any]) -> FlangeSpec:
     method = tr["method"] or "torque"
     if tr["torque"] is not None and tr["preload"] is not None:
         raise InputError("give torque or preload, not both", key="tightening.preload")
+    if method in ("yield", "angle") and (tr["torque"] is not None or tr["preload"] is not None):
+        raise InputError(
+            f"method {method!r} tightens to the yield point; remove torque and preload",
+            key="tightening.method",
+        )
     if method == "tension" and tr["torque"] is not None:
         raise InputError("a tensioner sets a preload, not a torque", key="tightening.torque")
     muG = tr["thread_friction"] or (0.10, 0.16)
@@ -435,7 +525,10 @@ def flange_from_data(data: dict[str, Any]) -> FlangeSpec:
         thread=thr,
         grade=grd,
         bolt_material=bmat,
-        nut_height=(raw["nut"] or {}).get("height") or thr.nut_height,
+        nut_height=nut_raw.get("height") or thr.nut_height,
+        head=b["head"] or ("stud" if (f["mating"] or "flange") == "flange" else "hex"),
+        shank_length=b["shank_length"] or 0.0,
+        shank_diameter=b["shank_diameter"],
         bearing_diameter=dW,
         hole=hole,
         allowable_stress=Sb,
