@@ -308,7 +308,7 @@ def build_ring(spec: FlangeSpec) -> Ring:
             shank,
             None if spec.head == "stud" else spec.head,
             "nut" if pair else "tapped",
-            E_nut=E_b,
+            E_nut=spec.nut_material.E(spec.T_assembly) if spec.nut_material else E_b,
             E_tapped=E_f,
         ).total
         ring_width = 0.5 * (spec.ring_outer_diameter - spec.ring_inner_diameter)
@@ -802,6 +802,11 @@ def analyse_flange(spec: FlangeSpec, compensate: bool = True) -> FlangeResult:
             f"axial stress on A_s against R_p0.2 at the bolt temperature ({basis})",
         )
     )
+    if spec.unused:
+        notes.append(
+            f"Not used by the flange model: {', '.join(spec.unused)} (no thread-"
+            "stripping, surface-pressure or fatigue check for flange bolts here)."
+        )
     notes.append(
         "Leakage and tightness classes (EN 1591-1, EN 13555) are not evaluated; the "
         "ASME m and y factors are the gasket criteria used."

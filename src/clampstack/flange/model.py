@@ -74,3 +74,5 @@ class FlangeSpec:
     head: str = "stud"  # stud (two nuts) | hex | socket
     shank_length: float = 0.0
     shank_diameter: float | None = None
+    nut_material: PartMaterial | None = None  # None: the bolt's
+    unused: tuple[str, ...] = ()  # keys accepted for a joint that the flange model does not use

@@ -284,6 +284,17 @@ def _temp_ok(pm: PartMaterial, T: float, key: str) -> None:
         )
 
 
+def _nut_material(nut_raw: dict[str, Any]) -> PartMaterial | None:
+    """The nut's material when the file gives one (modulus and expansion, or a catalog key)."""
+    if nut_raw.get("modulus") is not None:
+        if nut_raw.get("expansion") is None:
+            raise InputError("give the nut's modulus and expansion together", key="nut.expansion")
+        return PartMaterial("user nut", None, nut_raw["modulus"], nut_raw["expansion"])
+    if nut_raw.get("material") is not None:
+        return _mat(nut_raw["material"], "nut.material")
+    return None
+
+
 def flange_from_data(data: dict[str, Any]) -> FlangeSpec:
     """Validate a flange file's TOML data and resolve every default."""
     raw = read_table(FLANGE_FILE, data)
@@ -526,6 +537,13 @@ def flange_from_data(data: dict[str, Any]) -> FlangeSpec:
         grade=grd,
         bolt_material=bmat,
         nut_height=nut_raw.get("height") or thr.nut_height,
+        nut_material=_nut_material(nut_raw),
+        unused=tuple(
+            f"nut.{k}"
+            for k in ("strength", "limiting_pressure", "temperature")
+            if nut_raw.get(k) is not None
+        )
+        + (("bolt.rolled",) if b["rolled"] is not None else ()),
         head=b["head"] or ("stud" if (f["mating"] or "flange") == "flange" else "hex"),
         shank_length=b["shank_length"] or 0.0,
         shank_diameter=b["shank_diameter"],
