@@ -51,7 +51,7 @@ def main() -> None:
     Wp = math.pi * p.d0**3 / 16
 
     def floor():
-        FM = T0 * x["torque_factor"] / DKm_k(x["thread_friction"], x["head_friction"])
+        FM = T0 * x.get("torque_factor", 1.0) / DKm_k(x["thread_friction"], x["head_friction"])
         FV = (FM * (dSa + dPa) - p.embedding_amount - (thb - thc)) / (dS + dP)
         FS, FK = service_closed_form(FV, phi, FA_hi)
         FS2, FK2 = service_closed_form(FV, phi, FA_lo)
@@ -67,7 +67,7 @@ def main() -> None:
         for i in range(m):
             muG = x["thread_friction"][i]
             muK = x["head_friction"][i]
-            FM = T0 * x["torque_factor"][i] / DKm_k(muG, muK)
+            FM = T0 * (x["torque_factor"][i] if "torque_factor" in x else 1.0) / DKm_k(muG, muK)
             FV = (FM * (dSa + dPa) - p.embedding_amount - (thb - thc)) / (dS + dP)
             FK = FV - (1 - phi) * FA_hi
             FS = FV + phi * FA_hi if FK >= 0 else FA_hi

@@ -45,12 +45,14 @@ def handle_errors(fn: Callable[..., Any]) -> Callable[..., Any]:
 
 def _in_file(path: str, fn: Callable[..., Any], *args: Any) -> Any:
     """Call ``fn``; an InputError it raises is reported against the input file ``path``."""
-    from .errors import InputError
+    from .errors import InputError, SolveError
 
     try:
         return fn(*args)
     except InputError as err:
         raise err.with_source(path) from None
+    except SolveError as err:
+        raise SolveError(f"{path}: {err}") from None
 
 
 def _print_json(obj: Any) -> None:
@@ -60,6 +62,24 @@ def _print_json(obj: Any) -> None:
 class _Group(click.Group):
     def list_commands(self, ctx: click.Context) -> list[str]:
         return list(self.commands)  # in the order they are defined
+
+    def main(self, *args: Any, **kwargs: Any) -> Any:  # type: ignore[override]
+        """Usage errors as one line on stderr with exit code 2 (click prints several)."""
+        kwargs["standalone_mode"] = False
+        try:
+            rv = super().main(*args, **kwargs)
+        except click.exceptions.UsageError as err:
+            msg = " ".join(err.format_message().split())
+            where = f"{err.ctx.info_name}: " if err.ctx is not None and err.ctx.info_name else ""
+            click.echo(f"clampstack: error: {where}{msg} (see --help)", err=True)
+            sys.exit(EXIT_INPUT)
+        except click.exceptions.Abort:
+            click.echo("clampstack: aborted", err=True)
+            sys.exit(1)
+        except click.exceptions.ClickException as err:
+            click.echo(f"clampstack: error: {' '.join(err.format_message().split())}", err=True)
+            sys.exit(err.exit_code)
+        sys.exit(rv if isinstance(rv, int) else 0)
 
 
 @click.group(cls=_Group, context_settings={"help_option_names": ["-h", "--help"]})
@@ -89,8 +109,8 @@ def solve(file: str, as_json: bool, units: str) -> None:
     from .io.assembly_input import read_assembly_file
     from .io.report_text import assembly_text
 
-    _, asm = read_assembly_file(file)
-    result = solve_assembly(asm)
+    doc, asm = read_assembly_file(file)
+    result = _in_file(doc.path, solve_assembly, asm)
     if as_json:
         _print_json(result.to_dict())
     else:
@@ -265,7 +285,7 @@ def scatter(file: str, samples: int, seed: int, as_json: bool, units: str) -> No
             _print_json(fres.to_dict())
         else:
             click.echo(flange_scatter_text(fres, units))
-        return
+        sys.exit(EXIT_OK if fres.deterministic["ok"] else EXIT_FAIL)
     doc, spec = read_joint_file(file)
     dists = _in_file(doc.path, parse_distributions, spec.distributions)
     progress = _progress(samples, as_json, "scatter")
@@ -276,6 +296,7 @@ def scatter(file: str, samples: int, seed: int, as_json: bool, units: str) -> No
         _print_json(result.to_dict())
     else:
         click.echo(scatter_text(result, units))
+    sys.exit(EXIT_OK if result.deterministic["ok"] else EXIT_FAIL)
 
 
 def _progress(total: int, quiet: bool, label: str):

@@ -316,3 +316,31 @@ passes = [50, 100]
     short = text.replace('length = "80 mm"', 'length = "40 mm"')
     res = run("flange", str(write_toml(short)))
     assert res.exit_code == 2 and "bolt.length" in res.stderr
+
+
+@pytest.mark.parametrize(
+    ("flange_mat", "T_flange", "T_bolt", "sign"),
+    [
+        ("steel", "80 degC", "80 degC", 0),
+        ("steel", "80 degC", "20 degC", 1),
+        ("aluminium-6082-T6", "80 degC", "80 degC", 1),
+        ("steel", "20 degC", "80 degC", -1),
+    ],
+)
+def test_flange_temperature_changes_bolt_load_the_right_way(flange_mat, T_flange, T_bolt, sign):
+    # compatibility: a flange that grows more than its bolts raises the bolt load, one that
+    # grows less lowers it; the same steel at one temperature changes it only through the
+    # (small) modulus change
+    d = data(loading={"pressure": "0 bar", "temperature": T_flange, "bolt_temperature": T_bolt})
+    d["flange"]["material"] = flange_mat
+    cold = data(loading={"pressure": "0 bar"})
+    cold["flange"]["material"] = flange_mat
+    from clampstack.flange.analysis import analyse_flange
+
+    hot_r = analyse_flange(flange_from_data(d), compensate=False)
+    cold_r = analyse_flange(flange_from_data(cold), compensate=False)
+    change = (hot_r.service_bolt.mean() - cold_r.service_bolt.mean()) / cold_r.service_bolt.mean()
+    if sign == 0:
+        assert abs(change) < 0.02
+    else:
+        assert change * sign > 0.01

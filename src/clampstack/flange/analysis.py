@@ -156,10 +156,12 @@ class Ring:
     def _parts(self, skip_bolt: int | None = None):
         n = self.n
         bolts = [i for i in range(n) if i != skip_bolt]
-        i_nodes = [0] * len(bolts) + list(self.node_U) + [0] * n + list(self.node_U)
+        # the flange plate runs from the gasket face F (below) up to the nut bearing U, so
+        # that its thermal growth is a positive free elongation along the axis
+        i_nodes = [0] * len(bolts) + list(self.node_F) + [0] * n + list(self.node_U)
         j_nodes = (
             list(self.node_U[bolts])
-            + list(self.node_F)
+            + list(self.node_U)
             + list(self.node_F)
             + list(np.roll(self.node_U, -1))
         )
@@ -560,7 +562,8 @@ class FlangeResult:
                 {
                     "bolt": i + 1,
                     "angle_deg": 360.0 * i / n,
-                    "preload_N": float(self.passes[-1][i]),
+                    "preload_N": float(self.service_bolt[i]),
+                    "assembly_preload_N": float(self.passes[-1][i]),
                     "working_load_N": float(self.working_loads[i]),
                     "service_load_N": float(self.service_bolt[i]),
                     "gasket_force_assembly_N": float(self.assembly_gasket[i]),

@@ -192,8 +192,10 @@ def _part(raw: dict[str, Any], key: str) -> PartSpec:
         stiffness = modulus * area / length
     if not (math.isfinite(stiffness) and stiffness > 0):
         raise InputError(f"stiffness comes out as {stiffness!r}", key=key)
-    if raw["gap"] and behaviour not in ("compression", "tension"):
-        raise InputError('a gap needs contact = "compression" or "tension"', key=f"{key}.gap")
+    if raw["gap"] and behaviour == "linear":
+        behaviour = "compression"  # a clearance that closes: a contact that only pushes
+    if raw["gap"] and behaviour == "curve":
+        raise InputError("a curve part takes no gap (shift the curve instead)", key=f"{key}.gap")
     return PartSpec(
         name=raw["name"],
         ends=(ends[0], ends[1]),

@@ -113,6 +113,9 @@ def atomic_write(path: Path, content: str | bytes) -> None:
             fh.write(data)
             fh.flush()
             os.fsync(fh.fileno())
+        umask = os.umask(0)
+        os.umask(umask)
+        os.chmod(tmp, 0o666 & ~umask)  # mkstemp makes 0600; a result file is an ordinary file
         os.replace(tmp, path)
     except BaseException:
         try:

@@ -351,35 +351,64 @@ def flange_from_data(data: dict[str, Any]) -> FlangeSpec:
     m = g["m"] if g["m"] is not None else (cat.m if cat else None)
     y = g["y"] if g["y"] is not None else (cat.y if cat else None)
     if m is None or y is None:
-        raise InputError("give the gasket type, or m and y", key="gasket.type")
-    max_stress = g["max_stress"] or (cat.max_stress if cat else None)
-    unload = g["unload_modulus"] or (cat.unload_modulus if cat else None)
+        raise InputError(
+            "give the gasket type, or its factors m and y (ASME VIII-1 App. 2; "
+            "they set the seating and operating loads)",
+            key="gasket.m",
+        )
+    curve = None
     if g["curve"] is not None:
         strains, stresses = [0.0], [0.0]
         for k, pt in enumerate(g["curve"]):
             key = f"gasket.curve[{k + 1}]"
             e = parse_quantity(pt[0], "dimensionless", key)
             st = parse_quantity(pt[1], "stress", key)
+            if e == 0.0 and st == 0.0 and k == 0:
+                continue  # the origin, given explicitly
             if not (0 < e < 1):
                 raise InputError("strain must lie between 0 and 1", key=key)
             strains.append(e)
             stresses.append(st)
-        if any(b2 <= a2 for a2, b2 in zip(strains, strains[1:], strict=False)) or any(
-            b2 < a2 for a2, b2 in zip(stresses, stresses[1:], strict=False)
+        if (
+            len(strains) < 2
+            or any(b2 <= a2 for a2, b2 in zip(strains, strains[1:], strict=False))
+            or any(b2 < a2 for a2, b2 in zip(stresses, stresses[1:], strict=False))
         ):
             raise InputError(
                 "curve points must rise in strain and must not fall in stress", key="gasket.curve"
             )
         curve = (tuple(strains), tuple(stresses))
-    elif cat is not None:
-        curve = (cat.curve_strain, cat.curve_stress)
-    else:
-        raise InputError("give the gasket type, or its loading curve", key="gasket.curve")
-    if max_stress is None or unload is None:
-        raise InputError(
-            "give max_stress and unload_modulus for a gasket without a type",
-            key="gasket.max_stress",
+    like = cat
+    if cat is None and curve is None:
+        # m and y only: the loading behaviour of the catalog type nearest in (m, y)
+        import math as _m
+
+        from ..catalog import gaskets as catalog_gaskets
+
+        like = min(
+            catalog_gaskets(),
+            key=lambda t: (
+                abs(_m.log((t.m + 0.1) / (m + 0.1))) + abs(_m.log((t.y + 1e5) / (y + 1e5)))
+            ),
         )
+        defaults.append(
+            ("gasket.curve", f"typical curve of catalog type {like.key!r} (nearest m and y)")
+        )
+    if curve is None:
+        assert like is not None
+        curve = (like.curve_strain, like.curve_stress)
+    max_stress = g["max_stress"] or (like.max_stress if like else None)
+    if max_stress is None:
+        max_stress = curve[1][-1]
+        defaults.append(("gasket.max_stress", f"{max_stress / 1e6:.4g} MPa (top of the curve)"))
+    unload = g["unload_modulus"] or (like.unload_modulus if like else None)
+    if unload is None:
+        unload = (curve[1][-1] - curve[1][-2]) / (curve[0][-1] - curve[0][-2])
+        defaults.append(
+            ("gasket.unload_modulus", f"{unload / 1e6:.4g} MPa (last slope of the curve)")
+        )
+    if not unload > 0:
+        raise InputError("the unloading modulus must be positive", key="gasket.unload_modulus")
     gasket = GasketSpec(
         name=cat.key if cat else "user gasket",
         inner_diameter=gi,
@@ -391,7 +420,7 @@ def flange_from_data(data: dict[str, Any]) -> FlangeSpec:
         unload_modulus=unload,
         curve_strain=curve[0],
         curve_stress=curve[1],
-        source=cat.source if cat else "user data",
+        source=cat.source if cat else ("user m, y; curve of " + like.key if like else "user data"),
     )
     # --- flange ring
     fmat = _mat(f["material"] or "steel", "flange.material")

@@ -151,8 +151,14 @@ WASHER = Schema(
     "A washer under the head or the nut.",
     (
         Key("side", "text", "where it sits", default="head", choices=("head", "nut")),
-        Key("thickness", "length", "thickness", required=True, positive=True),
-        Key("outer_diameter", "length", "outer diameter", required=True, positive=True),
+        Key("thickness", "length", "thickness", default="ISO 7089 for the thread", positive=True),
+        Key(
+            "outer_diameter",
+            "length",
+            "outer diameter",
+            default="ISO 7089 for the thread",
+            positive=True,
+        ),
         Key("inner_diameter", "length", "inner diameter", default="the hole", positive=True),
         *_MATERIAL_KEYS,
         Key("temperature", "temperature", "service temperature", default="service temperature"),
@@ -406,6 +412,38 @@ def bearing_face_diameter(s: float) -> float:
     return 0.93 * s
 
 
+#: ISO 7089 plain washers, normal series: nominal d [mm] -> (thickness h, outer d2) [mm]
+#: (from memory).  Other sizes: h = 0.16 d, d2 = 2 d (common practice, no source).
+_ISO7089 = {
+    3: (0.5, 7),
+    4: (0.8, 9),
+    5: (1, 10),
+    6: (1.6, 12),
+    8: (1.6, 16),
+    10: (2, 20),
+    12: (2.5, 24),
+    14: (2.5, 28),
+    16: (3, 30),
+    20: (3, 37),
+    24: (4, 44),
+    30: (4, 56),
+    36: (5, 66),
+    42: (8, 78),
+    48: (8, 92),
+    56: (10, 105),
+    64: (10, 115),
+}
+
+
+def washer_default(d: float) -> tuple[float, float]:
+    """Default plain washer (thickness, outer diameter) [m] for a bolt of diameter d [m]."""
+    key = round(d * 1e3, 3)
+    if key in _ISO7089:
+        h, od = _ISO7089[key]  # type: ignore[index]
+        return h * 1e-3, od * 1e-3
+    return 0.16 * d, 2.0 * d
+
+
 def read_joint_file(path: str) -> tuple[InputDocument, JointSpec]:
     """Load and validate a joint file (InputError names the file and the key)."""
     doc = load_toml(path)
@@ -448,7 +486,13 @@ def _material(raw: dict[str, Any], key: str, default: str | None, defaults: list
         except InputError as err:
             raise InputError(err.detail, key=f"{key}.material") from None
     if mat is None and raw.get("expansion") is None:
-        raise InputError("a part given by modulus needs its expansion too", key=f"{key}.expansion")
+        if default is None:
+            raise InputError(
+                "a part given by modulus needs its expansion too (or a material)",
+                key=f"{key}.expansion",
+            )
+        mat = catalog_material(default)  # the modulus overrides; expansion from the default
+        defaults.append((f"{key}.expansion", f"from {default}"))
     label = mat.key if mat is not None else "user modulus"
     return PartMaterial(label, mat, raw.get("modulus"), raw.get("expansion"))
 
@@ -544,6 +588,15 @@ def joint_from_data(data: dict[str, Any]) -> JointSpec:
         T = r.get("temperature")
         T = T_srv if T is None else T
         if kind == "washer":
+            if r["thickness"] is None or r["outer_diameter"] is None:
+                h_w, od_w = washer_default(thr.d)
+                r = dict(r)
+                if r["thickness"] is None:
+                    r["thickness"] = h_w
+                    defaults.append((f"{key}.thickness", f"{h_w * 1e3:g} mm (ISO 7089)"))
+                if r["outer_diameter"] is None:
+                    r["outer_diameter"] = od_w
+                    defaults.append((f"{key}.outer_diameter", f"{od_w * 1e3:g} mm (ISO 7089)"))
             hole = r["inner_diameter"] or first_hole
             if hole < thr.d * 0.999:
                 raise InputError(

@@ -40,6 +40,7 @@ def size_text(r: SizeResult, units: str = "si") -> str:
                     d.grade,
                     d.method,
                     u.fmt("length", d.length),
+                    "-" if d.engagement is None else u.fmt("length", d.engagement),
                     torque,
                     f"{u.fmt('force', d.preload[0])}..{u.fmt('force', d.preload[1])}",
                     d.governing,
@@ -54,21 +55,23 @@ def size_text(r: SizeResult, units: str = "si") -> str:
                     "grade",
                     "method",
                     f"length [{L}]",
+                    f"engagement [{L}]",
                     f"torque [{T}]",
                     f"preload [{F}]",
                     "governing check",
                     "margin",
                 ],
                 rows,
-                right=[False, False, False, True, True, True, False, True],
+                right=[False, False, False, True, True, True, True, False, True],
             )
         )
         if len(r.designs) > MAX_ROWS:
             out.append(f"  ({MAX_ROWS} of {len(r.designs)} shown; --json for all)")
     out.append("")
     out.append(
-        "Each design is tightened to its permissible preload; run `clampstack check` on "
-        "the chosen design to see every check."
+        "Each design is tightened to its permissible preload (bolt length and, for a tapped "
+        "hole, engagement as listed: the engagement scales with the diameter); run "
+        "`clampstack check` on the chosen design to see every check."
     )
     out.append(CAUTION)
     return "\n".join(out)

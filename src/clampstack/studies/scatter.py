@@ -74,13 +74,25 @@ class Dist:
             return rng.lognormal(math.log(self.a) - 0.5 * s2, math.sqrt(s2), n)
         return np.full(n, self.a)
 
-    def describe(self, unit: str = "") -> str:
+    def describe(
+        self,
+        unit: str = "",
+        factor: float = 1.0,
+        offset: float = 0.0,
+        spread_unit: str | None = None,
+    ) -> str:
+        """Text in a display unit: value = SI / factor - offset (a spread: SI / factor)."""
         u = f" {unit}" if unit else ""
+        su = f" {spread_unit if spread_unit is not None else unit}".rstrip()
+
+        def v(x: float) -> float:
+            return x / factor - offset
+
         if self.kind == "uniform":
-            return f"uniform {self.a:.4g}..{self.b:.4g}{u}"
+            return f"uniform {v(self.a):.4g}..{v(self.b):.4g}{u}"
         if self.kind in ("normal", "lognormal"):
-            return f"{self.kind} mean {self.a:.4g}, std {self.b:.4g}{u}"
-        return f"fixed {self.a:.4g}{u}"
+            return f"{self.kind} mean {v(self.a):.4g}{u}, std {self.b / factor:.4g}{su}"
+        return f"fixed {v(self.a):.4g}{u}"
 
 
 def parse_distributions(raw: Any) -> dict[str, Dist]:
@@ -170,9 +182,6 @@ def make_chain(spec: JointSpec, dists: dict[str, Dist]) -> Chain:
     ):
         if name not in d:
             d[name] = Dist("uniform", *rng_) if rng_[0] != rng_[1] else Dist("fixed", rng_[0])
-    if tr.method == "torque" and "torque" not in d and "torque_factor" not in d:
-        t = tr.torque_tolerance
-        d["torque_factor"] = Dist("uniform", 1 - t, 1 + t) if t > 0 else Dist("fixed", 1.0)
     if tr.method == "tension" and "preload" not in d:
         # a tensioner's scatter: the deterministic range (tightening factor) as a uniform
         d["preload"] = Dist("uniform", prep.assembly_min, prep.assembly_max)
@@ -383,7 +392,7 @@ def scatter(
         "ok": det.ok,
     }
     nasa = _nasa(chain, det)
-    described = {k: v.describe(_unit(k)) for k, v in chain.dists.items()}
+    described = {k: v.describe(**_unit(k)) for k, v in chain.dists.items()}
     return ScatterResult(
         spec, samples, seed, percentiles, counts, hist, deterministic, nasa, described, exact
     )
@@ -453,15 +462,16 @@ def accumulate(
     return counts, percentiles, hist
 
 
-def _unit(key: str) -> str:
+def _unit(key: str) -> dict[str, Any]:
+    """Display unit of a sampled input (for the text and the JSON description)."""
     return {
-        "torque": "N*m",
-        "preload": "N",
-        "embedding": "m",
-        "temperature": "K",
-        "axial_load": "N",
-        "yield_strength": "Pa",
-    }.get(key, "")
+        "torque": {"unit": "N*m"},
+        "preload": {"unit": "kN", "factor": 1e3},
+        "axial_load": {"unit": "kN", "factor": 1e3},
+        "embedding": {"unit": "um", "factor": 1e-6},
+        "temperature": {"unit": "degC", "offset": 273.15, "spread_unit": "K"},
+        "yield_strength": {"unit": "MPa", "factor": 1e6},
+    }.get(key, {})
 
 
 def _nasa(chain: Chain, det) -> dict[str, Any]:

@@ -78,6 +78,7 @@ class Design:
     preload: tuple[float, float]
     governing: str
     margin: float
+    engagement: float | None = None  # tapped hole: the engagement the design was checked with
 
     def to_dict(self) -> dict[str, Any]:
         return {
@@ -85,6 +86,7 @@ class Design:
             "grade": self.grade,
             "method": self.method,
             "bolt_length_mm": self.length * 1e3,
+            "engagement_mm": None if self.engagement is None else self.engagement * 1e3,
             "torque_Nm": None if self.torque is None else self.torque[0],
             "torque_min_Nm": None if self.torque is None else self.torque[1],
             "torque_max_Nm": None if self.torque is None else self.torque[2],
@@ -259,6 +261,7 @@ def size(data: dict[str, Any], progress: Any = None) -> SizeResult:
                 (prep.assembly_min, prep.assembly_max),
                 gov,
                 pick[gov],
+                spec.tapped_hole.engagement if spec.tapped_hole else None,
             )
         return memo[key]
 
