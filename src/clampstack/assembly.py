@@ -82,6 +82,8 @@ class Assembly:
         for p in self.parts:
             seen.setdefault(p.ends[0])
             seen.setdefault(p.ends[1])
+        for n in self.fixed:
+            seen.setdefault(n)
         return tuple(seen)
 
 

@@ -134,3 +134,27 @@ force = "5 kN"
     res = run("solve", str(write_toml(text)))
     assert res.exit_code == 2
     assert "nodes tip" in res.stderr and "mechanism" in res.stderr
+
+
+def test_design_md_example_literally(write_toml):
+    # the [[part]] example of DESIGN.md as written: a fixed node "B" that no part uses is a
+    # support with nothing on it (reaction 0)
+    text = """
+title = "..."
+[[part]]
+name = "rod"
+ends = ["A", "C"]
+length = "450 mm"
+area = "314 mm^2"
+material = "steel"
+[supports]
+fixed = ["A", "B"]
+[[load]]
+node = "C"
+force = "60 kN"
+"""
+    out = json.loads(run("solve", str(write_toml(text)), "--json").stdout)
+    case = out["cases"][0]
+    assert case["parts"]["rod"]["force_N"] == pytest.approx(60e3)
+    assert case["reactions"]["B"]["force_N"] == 0.0
+    assert case["reactions"]["A"]["force_N"] == pytest.approx(-60e3)

@@ -235,12 +235,13 @@ def assembly_from_data(data: dict[str, Any]) -> Assembly:
     nodes = {e for p in parts for e in p.ends}
     if not raw["supports"]["fixed"]:
         raise InputError("at least one node must be fixed", key="supports.fixed")
-    for n, node in enumerate(raw["supports"]["fixed"]):
-        if node not in nodes:
-            raise InputError(
-                f"unknown node {node!r} (nodes: {', '.join(sorted(nodes))})",
-                key=f"supports.fixed[{n + 1}]",
-            )
+    if not any(node in nodes for node in raw["supports"]["fixed"]):
+        raise InputError(
+            f"none of the fixed nodes {', '.join(map(repr, raw['supports']['fixed']))} is an end "
+            f"of a part (nodes: {', '.join(sorted(nodes))})",
+            key="supports.fixed",
+        )
+    # a fixed node that no part uses is a support with nothing on it: kept, reaction 0
     for n, it in enumerate(raw["load"] or []):
         if it["node"] not in nodes:
             raise InputError(

@@ -184,6 +184,12 @@ LOADING = Schema(
             default="flange temperature",
         ),
         Key("assembly_temperature", "temperature", "temperature at assembly", default="20 degC"),
+        Key("flange_temperature", "temperature", "flange temperature (same as temperature)"),
+        Key(
+            "gasket_temperature",
+            "temperature",
+            "gasket temperature (accepted; the gasket curve has no temperature data)",
+        ),
     ),
 )
 
@@ -239,6 +245,7 @@ TIGHTENING = Schema(
             default="cross, last pass circular",
         ),
         Key("order", "raw", "custom bolt order (1-based), with pattern custom"),
+        Key("sequence", "raw", "the same as pattern (a name) or order (a list of bolt numbers)"),
     ),
 )
 
@@ -487,6 +494,12 @@ def flange_from_data(data: dict[str, Any]) -> FlangeSpec:
     # --- loading
     ld = raw["loading"] or {k.name: None for k in LOADING.keys}
     T_asm = ld["assembly_temperature"] if ld["assembly_temperature"] is not None else ROOM
+    if ld.get("flange_temperature") is not None:
+        if ld["temperature"] is not None and ld["temperature"] != ld["flange_temperature"]:
+            raise InputError(
+                "give temperature or flange_temperature, not both", key="loading.flange_temperature"
+            )
+        ld = dict(ld, temperature=ld["flange_temperature"])
     T_fl = ld["temperature"] if ld["temperature"] is not None else T_asm
     T_b = ld["bolt_temperature"] if ld["bolt_temperature"] is not None else T_fl
     if b["temperature"] is not None:
@@ -513,6 +526,34 @@ def flange_from_data(data: dict[str, Any]) -> FlangeSpec:
     muG = tr["thread_friction"] or (0.10, 0.16)
     muK = tr["head_friction"] or muG
     passes = tr["passes"] if tr["passes"] is not None else [30, 70, 100, 100]
+    if isinstance(passes, list):
+        conv = []
+        for k, p in enumerate(passes):
+            if isinstance(p, str):  # "30 %"
+                p = parse_quantity(p, "dimensionless", f"tightening.passes[{k + 1}]") * 100
+            conv.append(p)
+        passes = conv
+        if (
+            passes
+            and all(
+                isinstance(p, int | float) and not isinstance(p, bool) and 0 < p <= 1.0
+                for p in passes
+            )
+            and max(passes) <= 1.0
+            and any(p < 1.0 for p in passes)
+        ):
+            passes = [100 * p for p in passes]  # given as fractions: 0.3 means 30 %
+            defaults.append(("tightening.passes", "read as fractions of the target"))
+    seq = tr.get("sequence")
+    if seq is not None:
+        if isinstance(seq, str) and tr["pattern"] is None:
+            tr = dict(tr, pattern=seq)
+        elif isinstance(seq, list) and tr["order"] is None:
+            tr = dict(tr, order=seq)
+        else:
+            raise InputError(
+                "give sequence, or pattern and order, not both", key="tightening.sequence"
+            )
     if (
         not isinstance(passes, list)
         or not passes

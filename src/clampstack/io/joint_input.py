@@ -610,6 +610,8 @@ def joint_from_data(data: dict[str, Any]) -> JointSpec:
                 )
         else:
             hole = r["hole"]
+            if hole is None and hole_default is not None:
+                defaults.append((f"{key}.hole", f"{hole_default * 1e3:g} mm (ISO 273 medium)"))
             if hole is None:
                 if hole_default is None:
                     raise InputError(

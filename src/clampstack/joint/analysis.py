@@ -850,7 +850,8 @@ def analyse(spec: JointSpec) -> JointResult:
         )
     if cycle is not None and cycle.permanent_loss > 0:
         notes.append(
-            f"Yielding at service temperature ({', '.join(cycle.yielded)}): the maximum-preload "
+            f"Yielding on the way from assembly to service and back ({', '.join(cycle.yielded)}): "
+            f"the maximum-preload "
             f"joint keeps {cycle.preload_after[1] / 1e3:.4g} kN after cooling back to the assembly "
             f"temperature, a permanent loss of {cycle.permanent_loss / 1e3:.4g} kN."
         )
