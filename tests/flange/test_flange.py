@@ -348,10 +348,16 @@ def test_flange_temperature_changes_bolt_load_the_right_way(flange_mat, T_flange
 
 def test_flange_aliases_and_pass_fractions(write_toml):
     d = data()
-    d["loading"] = {"pressure": "10 bar", "flange_temperature": "60 degC",
-                    "gasket_temperature": "60 degC"}
-    d["tightening"] = {"thread_friction": "0.10..0.14", "passes": ["30 %", "70 %", "100 %"],
-                       "sequence": "circular"}
+    d["loading"] = {
+        "pressure": "10 bar",
+        "flange_temperature": "60 degC",
+        "gasket_temperature": "60 degC",
+    }
+    d["tightening"] = {
+        "thread_friction": "0.10..0.14",
+        "passes": ["30 %", "70 %", "100 %"],
+        "sequence": "circular",
+    }
     res = run("flange", str(write_toml(_to_toml(d))), "--json")
     assert res.exit_code in (0, 1), res.output
     out = json.loads(res.stdout)
