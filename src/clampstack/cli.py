@@ -82,6 +82,19 @@ class _Group(click.Group):
         sys.exit(rv if isinstance(rv, int) else 0)
 
 
+#: the options every analysing command shares (DESIGN.md: --json; readable units)
+json_option = click.option(
+    "--json", "as_json", is_flag=True, help="Machine-readable result on stdout."
+)
+units_option = click.option(
+    "--units",
+    type=click.Choice(["si", "us"]),
+    default="si",
+    show_default=True,
+    help="Units of the readable output.",
+)
+
+
 @click.group(cls=_Group, context_settings={"help_option_names": ["-h", "--help"]})
 @click.version_option(__version__, prog_name="clampstack")
 def main() -> None:
@@ -94,14 +107,8 @@ def main() -> None:
 
 @main.command()
 @click.argument("file", type=str)
-@click.option("--json", "as_json", is_flag=True, help="Machine-readable result on stdout.")
-@click.option(
-    "--units",
-    type=click.Choice(["si", "us"]),
-    default="si",
-    show_default=True,
-    help="Units of the readable output.",
-)
+@json_option
+@units_option
 @handle_errors
 def solve(file: str, as_json: bool, units: str) -> None:
     """Solve a generic axial assembly (parts between nodes) in FILE."""
@@ -120,14 +127,8 @@ def solve(file: str, as_json: bool, units: str) -> None:
 
 @main.command()
 @click.argument("file", type=str)
-@click.option("--json", "as_json", is_flag=True, help="Machine-readable result on stdout.")
-@click.option(
-    "--units",
-    type=click.Choice(["si", "us"]),
-    default="si",
-    show_default=True,
-    help="Units of the readable output.",
-)
+@json_option
+@units_option
 @handle_errors
 def check(file: str, as_json: bool, units: str) -> None:
     """Analyse and check a single-bolt joint in FILE (exit 1 if a check fails)."""
@@ -174,15 +175,9 @@ def _parse_temperature_range(text: str) -> tuple[float, float]:
     is_flag=True,
     help="Also follow a cycle to each end of the range and back (permanent loss).",
 )
-@click.option("--json", "as_json", is_flag=True, help="Machine-readable result on stdout.")
+@json_option
 @click.option("--csv", "as_csv", is_flag=True, help="One CSV row per temperature on stdout.")
-@click.option(
-    "--units",
-    type=click.Choice(["si", "us"]),
-    default="si",
-    show_default=True,
-    help="Units of the readable output.",
-)
+@units_option
 @handle_errors
 def sweep(
     file: str, trange: str, step: float | None, cycle: bool, as_json: bool, as_csv: bool, units: str
@@ -219,14 +214,8 @@ def sweep(
 
 @main.command()
 @click.argument("file", type=str)
-@click.option("--json", "as_json", is_flag=True, help="Machine-readable result on stdout.")
-@click.option(
-    "--units",
-    type=click.Choice(["si", "us"]),
-    default="si",
-    show_default=True,
-    help="Units of the readable output.",
-)
+@json_option
+@units_option
 @handle_errors
 def flange(file: str, as_json: bool, units: str) -> None:
     """Analyse a gasketed flange in FILE: bolt loads, gasket window, passes (exit 1 on a fail)."""
@@ -249,14 +238,8 @@ def flange(file: str, as_json: bool, units: str) -> None:
     "--samples", type=int, default=100_000, show_default=True, help="Number of Monte Carlo samples."
 )
 @click.option("--seed", type=int, default=0, show_default=True, help="Random seed.")
-@click.option("--json", "as_json", is_flag=True, help="Machine-readable result on stdout.")
-@click.option(
-    "--units",
-    type=click.Choice(["si", "us"]),
-    default="si",
-    show_default=True,
-    help="Units of the readable output.",
-)
+@json_option
+@units_option
 @handle_errors
 def scatter(file: str, samples: int, seed: int, as_json: bool, units: str) -> None:
     """Statistical assembly scatter of the joint in FILE (Monte Carlo)."""
@@ -321,14 +304,8 @@ def _progress(total: int, quiet: bool, label: str):
 
 @main.command()
 @click.argument("file", type=str)
-@click.option("--json", "as_json", is_flag=True, help="Machine-readable result on stdout.")
-@click.option(
-    "--units",
-    type=click.Choice(["si", "us"]),
-    default="si",
-    show_default=True,
-    help="Units of the readable output.",
-)
+@json_option
+@units_option
 @handle_errors
 def size(file: str, as_json: bool, units: str) -> None:
     """Smallest thread, grade and tightening method that pass every check for FILE."""
@@ -448,7 +425,7 @@ def report(file: str, out_dir: str, units: str, as_json: bool) -> None:
 
 
 @main.command()
-@click.option("--json", "as_json", is_flag=True, help="Machine-readable result on stdout.")
+@json_option
 @handle_errors
 def verify(as_json: bool) -> None:
     """Run the bundled verification cases against published values (exit 1 if one fails)."""

@@ -14,6 +14,7 @@ from ..flange.model import FlangeSpec, GasketSpec
 from ..joint.model import ROOM, PartMaterial
 from ..units import parse_quantity
 from .files import InputDocument, load_toml
+from .joint_input import TIGHTENING as JOINT_TIGHTENING
 from .joint_input import bearing_face_diameter
 from .schema import Key, Schema, read_table
 
@@ -195,46 +196,9 @@ LOADING = Schema(
 
 TIGHTENING = Schema(
     "tightening",
-    "Tightening and the pass sequence.",
+    "Tightening (the keys of a joint's [tightening]) and the pass sequence.",
     (
-        Key(
-            "method",
-            "text",
-            "torque or tension (hydraulic tensioner)",
-            default="torque",
-            choices=("torque", "angle", "yield", "tension"),
-        ),
-        Key("torque", "torque", "tightening torque per bolt", positive=True),
-        Key("preload", "force", "target preload per bolt", positive=True),
-        Key(
-            "thread_friction",
-            "range:dimensionless",
-            "thread friction",
-            default="0.10..0.16",
-            minimum=0.0,
-        ),
-        Key(
-            "head_friction",
-            "range:dimensionless",
-            "nut bearing friction",
-            default="as thread",
-            minimum=0.0,
-        ),
-        Key("scatter", "number", "tightening factor alpha_A", minimum=1.0),
-        Key(
-            "utilization",
-            "number",
-            "utilisation nu of the yield point",
-            default="0.9",
-            positive=True,
-        ),
-        Key(
-            "torque_tolerance",
-            "number",
-            "relative torque tolerance (+-)",
-            default="0.06",
-            minimum=0.0,
-        ),
+        *JOINT_TIGHTENING.keys,
         Key(
             "passes", "raw", "pass targets in % of the final preload", default="[30, 70, 100, 100]"
         ),

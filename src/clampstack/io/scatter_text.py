@@ -21,41 +21,11 @@ def scatter_text(r: ScatterResult, units: str = "si") -> str:
     out.append("Sampled inputs")
     out.extend(f"  {k}: {v}" for k, v in r.distributions.items())
     out.append("")
-    rows = []
-    for q in QUANTS:
-        p = r.percentiles[q]
-        rows.append(
-            [_LABELS[q]]
-            + [u.fmt("force", p[k]) for k in ("p01", "p05", "p50", "p95", "p99", "mean")]
-        )
-    out.append(
-        table(
-            [f"[{F}]", "1 %", "5 %", "50 %", "95 %", "99 %", "mean"],
-            rows,
-            right=[False] + [True] * 6,
-        )
-    )
+    out.append(_percentile_table(r, _LABELS, QUANTS, u))
     if not r.exact:
         out.append("  (percentiles from a histogram of 131 072 bins)")
     out.append("")
-    prow = []
-    for name in ("separation", "bolt_yield", "slip"):
-        pr = r.probability(name)
-        prow.append(
-            [
-                name,
-                f"{pr['estimate']:.3g}",
-                f"{pr['low']:.3g} .. {pr['high']:.3g}",
-                str(pr["count"]),
-            ]
-        )
-    out.append(
-        table(
-            ["probability of", "estimate", "95 % interval (Clopper-Pearson)", "count"],
-            prow,
-            right=[False, True, True, True],
-        )
-    )
+    out.append(_probability_table(r, ("separation", "bolt_yield", "slip")))
     out.append("")
     d = r.deterministic
     out.append("Deterministic comparison")
@@ -96,37 +66,9 @@ def flange_scatter_text(r, units: str = "si") -> str:
         "assembly_preload": "assembly preload (every bolt)",
         "residual_clamp_load": "smallest sector gasket force in service",
     }
-    rows = [
-        [labels[q]]
-        + [u.fmt("force", r.percentiles[q][k]) for k in ("p01", "p05", "p50", "p95", "p99", "mean")]
-        for q in ("assembly_preload", "residual_clamp_load")
-    ]
-    out.append(
-        table(
-            [f"[{F}]", "1 %", "5 %", "50 %", "95 %", "99 %", "mean"],
-            rows,
-            right=[False] + [True] * 6,
-        )
-    )
+    out.append(_percentile_table(r, labels, ("assembly_preload", "residual_clamp_load"), u))
     out.append("")
-    prow = []
-    for name in ("gasket_below_operating", "separation", "bolt_yield"):
-        pr = r.probability(name)
-        prow.append(
-            [
-                name,
-                f"{pr['estimate']:.3g}",
-                f"{pr['low']:.3g} .. {pr['high']:.3g}",
-                str(pr["count"]),
-            ]
-        )
-    out.append(
-        table(
-            ["probability of", "estimate", "95 % interval (Clopper-Pearson)", "count"],
-            prow,
-            right=[False, True, True, True],
-        )
-    )
+    out.append(_probability_table(r, ("gasket_below_operating", "separation", "bolt_yield")))
     d = r.deterministic
     out.append("")
     out.append(
@@ -139,3 +81,34 @@ def flange_scatter_text(r, units: str = "si") -> str:
     out.append("")
     out.append(CAUTION)
     return "\n".join(out)
+
+
+def _percentile_table(r, labels: dict[str, str], quants, u) -> str:
+    F = u.label("force")
+    rows = [
+        [labels[q]]
+        + [u.fmt("force", r.percentiles[q][k]) for k in ("p01", "p05", "p50", "p95", "p99", "mean")]
+        for q in quants
+    ]
+    return table(
+        [f"[{F}]", "1 %", "5 %", "50 %", "95 %", "99 %", "mean"], rows, right=[False] + [True] * 6
+    )
+
+
+def _probability_table(r, names) -> str:
+    rows = []
+    for name in names:
+        pr = r.probability(name)
+        rows.append(
+            [
+                name,
+                f"{pr['estimate']:.3g}",
+                f"{pr['low']:.3g} .. {pr['high']:.3g}",
+                str(pr["count"]),
+            ]
+        )
+    return table(
+        ["probability of", "estimate", "95 % interval (Clopper-Pearson)", "count"],
+        rows,
+        right=[False, True, True, True],
+    )
