@@ -130,6 +130,11 @@ class AssemblyResult:
         """JSON form per DESIGN.md."""
         return {"title": self.assembly.title, "cases": [c.to_dict() for c in self.cases]}
 
+    def _repr_html_(self) -> str:
+        from .io.html import assembly_repr_html
+
+        return assembly_repr_html(self)
+
 
 ASSEMBLY_CASE = "assembly"
 

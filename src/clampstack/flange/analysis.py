@@ -584,6 +584,11 @@ class FlangeResult:
             "defaults": dict(self.defaults),
         }
 
+    def _repr_html_(self) -> str:
+        from ..io.html import flange_repr_html
+
+        return flange_repr_html(self)
+
 
 def _spread(f: np.ndarray) -> float:
     """(max - min) / mean of the bolt preloads."""

@@ -112,3 +112,100 @@ def assembly_html(result: AssemblyResult, source_name: str = "", sha256: str = "
     )
     parts.append(f'<div class="caution">{_e(CAUTION)}</div>')
     return _page(asm.title, "\n".join(parts))
+
+
+def html_table(headers: list[str], rows: list[list[object]]) -> str:
+    """A plain HTML table (escaped cells), for notebooks."""
+    head = "".join(f"<th>{_e(h)}</th>" for h in headers)
+    body = "".join("<tr>" + "".join(f"<td>{_e(c)}</td>" for c in r) + "</tr>" for r in rows)
+    return f"<table><tr>{head}</tr>{body}</table>"
+
+
+def assembly_repr_html(result: AssemblyResult) -> str:
+    """Parts, forces and reactions of every case (Jupyter ``_repr_html_``)."""
+    out = [f"<div><b>{_e(result.assembly.title)}</b>"]
+    for case in result.cases:
+        rows = [
+            [
+                p,
+                f"{case.force[p] / 1e3:.4g}",
+                "-" if case.stress[p] is None else f"{case.stress[p] / 1e6:.4g}",
+                f"{case.elongation[p] * 1e3:.4g}",
+                "yes" if case.carrying[p] else "no",
+            ]
+            for p in case.force
+        ]
+        out.append(f"<p>{_e(case.name)}</p>")
+        out.append(
+            html_table(["part", "force [kN]", "stress [MPa]", "elongation [mm]", "carrying"], rows)
+        )
+    out.append(f"<p><small>{_e(CAUTION)}</small></p></div>")
+    return "".join(out)
+
+
+def checks_rows(checks) -> list[list[object]]:
+    """Rows of a checks table: name, value, limit, margin, result, source."""
+    import math
+
+    rows = []
+    for c in checks:
+        m = c.margin
+        rows.append(
+            [
+                c.name,
+                f"{c.value:.4g} {c.unit}",
+                f"{c.relation} {c.limit:.4g} {c.unit}",
+                "inf" if math.isinf(m) else f"{m * 100:+.1f} %",
+                "off" if c.skipped else ("pass" if c.passed else "FAIL"),
+                c.source,
+            ]
+        )
+    return rows
+
+
+def flange_repr_html(result) -> str:
+    """Verdict, per-bolt loads and the checks of a flange (Jupyter ``_repr_html_``)."""
+    n = result.spec.bolt_count
+    rows = [
+        [
+            i + 1,
+            f"{result.passes[-1][i] / 1e3:.4g}",
+            f"{result.service_bolt[i] / 1e3:.4g}",
+            f"{result.service_gasket[i] / 1e3:.4g}",
+        ]
+        for i in range(n)
+    ]
+    return (
+        f"<div><b>{_e(result.spec.title)}</b>: {'PASS' if result.ok else 'FAIL'}"
+        + html_table(
+            ["bolt", "after the passes [kN]", "in service [kN]", "gasket in service [kN]"], rows
+        )
+        + html_table(
+            ["check", "value", "limit", "margin", "result", "source"], checks_rows(result.checks)
+        )
+        + f"<p><small>{_e(CAUTION)}</small></p></div>"
+    )
+
+
+def scatter_repr_html(result) -> str:
+    """Percentiles and probabilities of a scatter study (Jupyter ``_repr_html_``)."""
+    prow = [
+        [
+            q,
+            *(
+                f"{result.percentiles[q][k] / 1e3:.4g}"
+                for k in ("p01", "p05", "p50", "p95", "p99", "mean")
+            ),
+        ]
+        for q in result.percentiles
+    ]
+    brow = []
+    for name in result.counts:
+        pr = result.probability(name)
+        brow.append([name, f"{pr['estimate']:.3g}", f"{pr['low']:.3g} .. {pr['high']:.3g}"])
+    return (
+        f"<div><b>{_e(result.spec.title)}</b>: {result.samples} samples, seed {result.seed}"
+        + html_table(["[kN]", "1 %", "5 %", "50 %", "95 %", "99 %", "mean"], prow)
+        + html_table(["probability of", "estimate", "95 % interval"], brow)
+        + f"<p><small>{_e(CAUTION)}</small></p></div>"
+    )

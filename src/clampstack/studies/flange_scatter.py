@@ -65,6 +65,11 @@ class FlangeScatterResult:
             ],
         }
 
+    def _repr_html_(self) -> str:
+        from ..io.html import scatter_repr_html
+
+        return scatter_repr_html(self)
+
 
 def flange_scatter(
     spec: FlangeSpec, samples: int, seed: int = 0, chunk_blocks: int = 1

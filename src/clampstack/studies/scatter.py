@@ -318,6 +318,11 @@ class ScatterResult:
             "nasa_std_5020": self.nasa,
         }
 
+    def _repr_html_(self) -> str:
+        from ..io.html import scatter_repr_html
+
+        return scatter_repr_html(self)
+
 
 def clopper_pearson(k: int, n: int, level: float = 0.95) -> tuple[float, float]:
     """Exact (Clopper-Pearson, 1934) two-sided confidence interval of a binomial proportion."""
