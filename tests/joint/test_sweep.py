@@ -147,3 +147,16 @@ def test_sweep_cycle_reports_permanent_loss(examples_dir):
     hot = out["cycle"]["hot"]
     assert hot["permanent_loss_N"] > 0 and "bolt" in hot["yielded"]
     assert any(lim["check"] == "working_stress" for lim in out["limits"])
+
+
+def test_per_part_temperatures_scale_from_the_assembled_state(examples_dir):
+    # the exhaust flange: flange at 380 degC, bolts at 280 degC in service; at the assembly
+    # temperature every part is at it, so the sweep starts from the assembled state
+    _, spec = read_joint_file(str(examples_dir / "exhaust-flange-hot.toml"))
+    s = sweep(spec, C0 + 20, C0 + 380, 10.0)
+    r = analyse(spec)
+    assert s.preload_max[0] == pytest.approx(r.assembly_max, rel=1e-9)
+    assert s.thermal_change_cold == pytest.approx(0.0, abs=1e-6)
+    # and at the file's service temperature it is the check's state
+    st = {x.key: x for x in r.states}
+    assert s.preload_min[-1] == pytest.approx(st["temperature"].bolt_min, rel=1e-9)

@@ -100,7 +100,7 @@ def permanent_loss_cycle(
             Yt = (
                 yield_ratio
                 * float(
-                    yield_at_temperature(s.bolt.grade, s.bolt.temperature + (T - srv.temperature))[
+                    yield_at_temperature(s.bolt.grade, float(model.part_T(s.bolt.temperature, T)))[
                         0
                     ]
                 )

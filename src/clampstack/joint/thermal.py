@@ -8,8 +8,8 @@ with temperature, only the modulus), sleeves ``l/(E A)``.  The coefficients
 table interpolation per part and a sum, vectorised over the temperature
 points (VDI 2230-1, 5.4.2.3: ``delta_T = delta E_RT / E_T``).
 
-Per-part temperatures: a part whose temperature was given keeps its difference
-from the joint's service temperature when the service temperature is scanned.
+Per-part temperatures: when the service temperature is scanned, every part's
+rise above the assembly temperature scales with the joint's (:meth:`part_T`).
 """
 
 from __future__ import annotations
@@ -28,7 +28,7 @@ from .model import JointSpec, PartMaterial
 class _Term:
     coef: float  # resilience times modulus [1/m]
     material: PartMaterial
-    offset: float  # part temperature minus the joint's service temperature [K]
+    T_part: float  # the part's own service temperature from the file [K]
     name: str
 
 
@@ -76,7 +76,7 @@ class TemperatureModel:
                 mat, T = tap.material, tap.temperature
             else:
                 mat, T = b.material, b.temperature
-            bolt_terms.append(_Term(seg.resilience, mat, T - T_srv, seg.name))
+            bolt_terms.append(_Term(seg.resilience, mat, T, seg.name))
         self.bolt_terms = tuple(bolt_terms)
         self.bolt_segments = tuple((s.name, s.length) for s in bolt.segments)
 
@@ -110,7 +110,7 @@ class TemperatureModel:
                         _Term(
                             1.0 / k1,
                             plates[0].material,
-                            plates[0].temperature - T_srv,
+                            plates[0].temperature,
                             "clamped (Wileman)",
                         )
                     )
@@ -120,15 +120,11 @@ class TemperatureModel:
                         unit, b.bearing_diameter, dh, DA, model, tap is not None, thr.d, 1.0
                     )
                     for lay, r in zip(plates, res, strict=False):
-                        clamp_terms.append(
-                            _Term(float(r), lay.material, lay.temperature - T_srv, lay.name)
-                        )
+                        clamp_terms.append(_Term(float(r), lay.material, lay.temperature, lay.name))
                     if len(res) > len(plates):  # Shigley: the tapped part's slab
                         assert tap is not None
                         clamp_terms.append(
-                            _Term(
-                                float(res[-1]), tap.material, tap.temperature - T_srv, "tapped part"
-                            )
+                            _Term(float(res[-1]), tap.material, tap.temperature, "tapped part")
                         )
             except ValueError as err:
                 raise InputError(
@@ -139,16 +135,31 @@ class TemperatureModel:
                 assert lay.outer_diameter is not None
                 area = math.pi / 4 * (lay.outer_diameter**2 - lay.hole**2)
                 clamp_terms.append(
-                    _Term(lay.thickness / area, lay.material, lay.temperature - T_srv, lay.name)
+                    _Term(lay.thickness / area, lay.material, lay.temperature, lay.name)
                 )
         self.clamp_terms = tuple(clamp_terms)
 
+    # ------------------------------------------------------------------ temperatures
+    def part_T(self, T_file: float, T_service: float | np.ndarray) -> np.ndarray:
+        """A part's temperature when the joint's service temperature is ``T_service`` [K].
+
+        Every part's rise above the assembly temperature scales with the joint's: at the
+        assembly temperature all parts are at it, at the file's service temperature each part
+        is at its own (a hot flange with a cooler bolt keeps that proportion in a sweep).
+        When the file's service and assembly temperatures coincide, the parts keep their
+        difference from the service temperature instead.
+        """
+        T = np.asarray(T_service, dtype=float)
+        rise = self.T_service - self.T_assembly
+        if abs(rise) > 1e-9:
+            return self.T_assembly + (T_file - self.T_assembly) * (T - self.T_assembly) / rise
+        return T + (T_file - self.T_service)
+
     # ------------------------------------------------------------------ moduli
-    @staticmethod
-    def _sum(terms: tuple[_Term, ...], T: np.ndarray) -> np.ndarray:
+    def _sum(self, terms: tuple[_Term, ...], T: np.ndarray) -> np.ndarray:
         total = np.zeros_like(T)
         for t in terms:
-            total = total + t.coef / _modulus(t.material, T + t.offset)
+            total = total + t.coef / _modulus(t.material, self.part_T(t.T_part, T))
         return total
 
     def resiliences(self, T_service: float | np.ndarray) -> tuple[np.ndarray, np.ndarray]:
@@ -179,7 +190,7 @@ class TemperatureModel:
             return list(hit)
         out = []
         for (name, length), t in zip(self.bolt_segments, self.bolt_terms, strict=True):
-            T = self.T_assembly if T_service is None else T_service + t.offset
+            T = self.T_assembly if T_service is None else self.part_T(t.T_part, T_service)
             out.append((name, length, float(t.coef / _modulus(t.material, np.asarray(T)))))
         self._memo[("seg", T_service)] = tuple(out)  # type: ignore[assignment]
         return out
@@ -189,9 +200,9 @@ class TemperatureModel:
         """Temperature of bolt and of every layer for service temperature(s) [K]."""
         T = np.asarray(T_service, dtype=float)
         s = self.spec
-        out = {"bolt": T + (s.bolt.temperature - self.T_service)}
+        out = {"bolt": self.part_T(s.bolt.temperature, T)}
         for lay in s.layers:
-            out[lay.name] = T + (lay.temperature - self.T_service)
+            out[lay.name] = self.part_T(lay.temperature, T)
         return out
 
     def thermal(self, T_service: float | np.ndarray) -> tuple[np.ndarray, np.ndarray]:
@@ -209,14 +220,11 @@ class TemperatureModel:
         T0 = np.asarray(self.T_assembly)
         b = s.bolt
         lK = s.clamp_length
-        bolt = lK * (
-            _strain(b.material, T + (b.temperature - self.T_service)) - _strain(b.material, T0)
-        )
+        bolt = lK * (_strain(b.material, self.part_T(b.temperature, T)) - _strain(b.material, T0))
         clamp = np.zeros_like(T)
         for lay in s.layers:
             clamp = clamp + lay.thickness * (
-                _strain(lay.material, T + (lay.temperature - self.T_service))
-                - _strain(lay.material, T0)
+                _strain(lay.material, self.part_T(lay.temperature, T)) - _strain(lay.material, T0)
             )
         self._memo[key] = (bolt, clamp)
         return bolt, clamp
@@ -225,7 +233,7 @@ class TemperatureModel:
         """InputError if any part's temperature leaves its material's data (no extrapolation)."""
         T = np.asarray(T_service, dtype=float)
         for t in (*self.bolt_terms, *self.clamp_terms):
-            _modulus(t.material, T + t.offset)
+            _modulus(t.material, self.part_T(t.T_part, T))
         self.thermal(T)
 
 

@@ -256,9 +256,7 @@ def evaluate(chain: Chain, x: dict[str, np.ndarray], n: int) -> dict[str, np.nda
     if "temperature" in x:
         ratio_T = (
             np.asarray(
-                yield_at_temperature(
-                    s.bolt.grade, Ts + (s.bolt.temperature - s.service.temperature)
-                )[0]
+                yield_at_temperature(s.bolt.grade, prep.model.part_T(s.bolt.temperature, Ts))[0]
             )
             / s.bolt.grade.Rp02
         )

@@ -1,8 +1,8 @@
 """Temperature sweep: preload, clamp load, bolt stress and every check margin over a range.
 
 The joint's service temperature is scanned; parts with a temperature of their own
-keep their difference from the file's service temperature (a hot flange stays
-hotter than its bolt).  The states come from the closed form of the joint
+rise above the assembly temperature in proportion to the joint's (a hot flange
+stays hotter than its bolt; at the assembly temperature all parts are at it).  The states come from the closed form of the joint
 network (:func:`clampstack.joint.analysis.service_closed_form`, exact including
 separation and a slack bolt), vectorised over all temperature points; the
 checks from the same :func:`~clampstack.joint.analysis.evaluate_checks` that
@@ -174,7 +174,7 @@ def _evaluate(prep: Prepared, T: np.ndarray) -> dict[str, Any]:
             2 * s.bolt.thread.As
         )
         mean = 0.5 * np.maximum(hi_min[0] + lo_min[0], hi_max[0] + lo_max[0])
-    T_bolt = T + (s.bolt.temperature - srv.temperature)
+    T_bolt = prep.model.part_T(s.bolt.temperature, T)
     rows, _ = evaluate_checks(prep, T_bolt, bolt_max, amplitude, mean, residual, separation)
     m = margins(rows)
     return {
@@ -260,7 +260,7 @@ def _check_range(prep: Prepared, T: np.ndarray) -> None:
         from ..catalog import yield_at_temperature
 
         yield_at_temperature(
-            s.bolt.grade, np.array([T[0], T[-1]]) + (s.bolt.temperature - s.service.temperature)
+            s.bolt.grade, prep.model.part_T(s.bolt.temperature, np.array([T[0], T[-1]]))
         )
     except InputError as err:
         raise InputError(err.detail, key="--temperature") from None
