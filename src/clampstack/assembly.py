@@ -191,7 +191,8 @@ def _with_names(err: Exception, names: tuple[str, ...]) -> str:
         ids = [int(x) for x in m.group(1).split(", ")]
         return "nodes " + ", ".join(names[i] if 0 <= i < len(names) else str(i) for i in ids)
 
-    return re.sub(r"nodes (\d+(?:, \d+)*)", repl, str(err))
+    text = re.sub(r"nodes (\d+(?:, \d+)*)", repl, str(err))
+    return re.sub(r"carry a load of (-?[0-9.e+-]+) ", r"carry a load of \1 N ", text)
 
 
 def solve_assembly(asm: Assembly) -> AssemblyResult:

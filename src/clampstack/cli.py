@@ -69,6 +69,9 @@ class _Group(click.Group):
         try:
             rv = super().main(*args, **kwargs)
         except click.exceptions.UsageError as err:
+            if type(err).__name__ == "NoArgsIsHelpError" and err.ctx is not None:
+                click.echo(err.ctx.get_help())  # bare `clampstack`: the help, as usual
+                sys.exit(0)
             msg = " ".join(err.format_message().split())
             where = f"{err.ctx.info_name}: " if err.ctx is not None and err.ctx.info_name else ""
             click.echo(f"clampstack: error: {where}{msg} (see --help)", err=True)

@@ -68,6 +68,8 @@ class App2:
     Wm2: float
     Am: float
     Ab: float
+    P_eq: float = 0.0  # equivalent pressure with the external axial force and moment [Pa]
+    Wm1_eq: float = 0.0  # W_m1 at the equivalent pressure [N]
 
 
 def asme_app2(spec: FlangeSpec) -> App2:
@@ -86,9 +88,18 @@ def asme_app2(spec: FlangeSpec) -> App2:
     Hp = 2 * b * 3.14 * G * g.m * P
     Wm1 = H + Hp
     Wm2 = 3.14 * b * G * g.y
-    Am = max(Wm1 / spec.allowable_stress, Wm2 / spec.allowable_stress_ambient)
+    # external axial force and bending moment as an equivalent pressure on G (the usual
+    # equivalent-pressure rule, e.g. ASME B31.3 / Kellogg: P_eq = P + 4F/(pi G^2) +
+    # 16M/(pi G^3); from memory); App. 2 itself covers the pressure only
+    P_eq = (
+        P
+        + 4 * max(spec.axial_force, 0.0) / (math.pi * G**2)
+        + 16 * abs(spec.bending_moment) / (math.pi * G**3)
+    )
+    Wm1_eq = 0.785 * G**2 * P_eq + 2 * b * 3.14 * G * g.m * P_eq
+    Am = max(Wm1_eq / spec.allowable_stress, Wm2 / spec.allowable_stress_ambient)
     Ab = spec.bolt_count * math.pi / 4 * spec.thread.d3**2  # root area of the thread
-    return App2(b0, b, G, H, Hp, Wm1, Wm2, Am, Ab)
+    return App2(b0, b, G, H, Hp, Wm1, Wm2, Am, Ab, P_eq, Wm1_eq)
 
 
 # --------------------------------------------------------------------------- cross pattern
@@ -534,6 +545,8 @@ class FlangeResult:
                 "hydrostatic_end_force_N": a.H,
                 "gasket_load_operating_N": a.Hp,
                 "required_bolt_area_mm2": a.Am * 1e6,
+                "equivalent_pressure_MPa": a.P_eq * 1e-6,
+                "operating_equivalent_N": a.Wm1_eq,
                 "available_bolt_area_mm2": a.Ab * 1e6,
             },
             "gasket": {
@@ -747,7 +760,8 @@ def analyse_flange(spec: FlangeSpec, compensate: bool = True) -> FlangeResult:
             a.Am * 1e6,
             "mm2",
             ">=",
-            "ASME BPVC VIII-1 Appendix 2, 2-5 (A_m = max(W_m1/S_b, W_m2/S_a))",
+            "ASME BPVC VIII-1 Appendix 2, 2-5 (A_m = max(W_m1/S_b, W_m2/S_a)); external force "
+            "and moment as an equivalent pressure (from memory)",
             f"S_b = {spec.allowable_stress / 1e6:.4g} MPa, S_a = {spec.allowable_stress_ambient / 1e6:.4g} MPa",
         )
     )

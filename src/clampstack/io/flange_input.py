@@ -405,6 +405,19 @@ def flange_from_data(data: dict[str, Any]) -> FlangeSpec:
         raise InputError(
             "the bolt holes must lie within the flange ring", key="flange.outer_diameter"
         )
+    if ring_out < Dbc + dW * (1 - 1e-9):
+        raise InputError(
+            f"the nuts ({dW * 1e3:.4g} mm bearing face) overhang the flange: bolt circle "
+            f"{Dbc * 1e3:g} mm + nut > outer diameter {ring_out * 1e3:.4g} mm",
+            key="flange.outer_diameter",
+        )
+    chord = Dbc * math.sin(math.pi / n)
+    if chord < dW * (1 - 1e-9):
+        raise InputError(
+            f"{n} bolts do not fit on the {Dbc * 1e3:g} mm bolt circle: neighbouring nuts "
+            f"({dW * 1e3:.4g} mm) overlap ({chord * 1e3:.4g} mm apart)",
+            key="flange.bolt_count",
+        )
     bmat = _mat(b["material"] or grd.material_key, "bolt.material")
     if b["modulus"] is not None or b["expansion"] is not None:
         if b["modulus"] is None or b["expansion"] is None:

@@ -7,6 +7,7 @@ import math
 import numpy as np
 
 from ..flange.analysis import FlangeResult
+from .joint_text import check_value
 from .text import UNIT_SYSTEMS, table
 
 FLANGE_CAUTION = (
@@ -52,6 +53,11 @@ def flange_text(r: FlangeResult, units: str = "si") -> str:
         f"W_m1 (operating) = {u.fmt('force', a.Wm1)}, W_m2 (seating) = "
         f"{u.fmt('force', a.Wm2)} {F}"
     )
+    if a.P_eq > s.pressure * (1 + 1e-12):
+        out.append(
+            f"  external force and moment as an equivalent pressure "
+            f"{u.fmt('stress', a.P_eq)} {u.label('stress')}: W_m1 = {u.fmt('force', a.Wm1_eq)} {F}"
+        )
     out.append(
         f"  bolt area: required A_m = {u.fmt('area', a.Am)}, available A_b = "
         f"{u.fmt('area', a.Ab)} {u.label('area')}"
@@ -119,12 +125,13 @@ def flange_text(r: FlangeResult, units: str = "si") -> str:
     crow = []
     for c in r.checks:
         verdict = "pass" if c.passed else "FAIL"
+        value, limit = check_value(c, u)
         crow.append(
             [
                 c.name,
-                f"{c.value:.4g} {c.unit}",
+                value,
                 c.relation,
-                f"{c.limit:.4g} {c.unit}",
+                limit,
                 _margin(c),
                 verdict,
                 c.source,

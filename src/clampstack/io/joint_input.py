@@ -598,6 +598,8 @@ def joint_from_data(data: dict[str, Any]) -> JointSpec:
                     r["outer_diameter"] = od_w
                     defaults.append((f"{key}.outer_diameter", f"{od_w * 1e3:g} mm (ISO 7089)"))
             hole = r["inner_diameter"] or first_hole
+            if r["inner_diameter"] is None:
+                defaults.append((f"{key}.inner_diameter", f"{hole * 1e3:g} mm (the hole)"))
             if hole < thr.d * 0.999:
                 raise InputError(
                     f"inner diameter {hole * 1e3:g} mm is smaller than the bolt ({thr.d * 1e3:g} mm)",
@@ -620,6 +622,8 @@ def joint_from_data(data: dict[str, Any]) -> JointSpec:
                     )
                 hole = hole_default
             od = r["outer_diameter"]
+            if od is None and r.get("kind") != "sleeve":
+                defaults.append((f"{key}.outer_diameter", "wide enough for a full cone"))
             if od is not None and od <= hole:
                 raise InputError("outer diameter must exceed the hole", key=f"{key}.outer_diameter")
             if r["kind"] == "sleeve" and od is None:

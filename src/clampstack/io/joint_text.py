@@ -21,9 +21,14 @@ def _joint_line(r: JointResult) -> str:
     )
 
 
-def _check_value(c, u: DisplayUnits) -> tuple[str, str]:
+def check_value(c, u: DisplayUnits) -> tuple[str, str]:
     """Value and limit of a check in the chosen display units."""
-    conv = {"kN": ("force", 1e3), "MPa": ("stress", 1e6), "mm": ("length", 1e-3)}
+    conv = {
+        "kN": ("force", 1e3),
+        "MPa": ("stress", 1e6),
+        "mm": ("length", 1e-3),
+        "mm2": ("area", 1e-6),
+    }
     if c.unit in conv:
         kind, si = conv[c.unit]
         lab = u.label(kind)
@@ -141,7 +146,7 @@ def joint_text(r: JointResult, units: str = "si") -> str:
     out.append("")
     crow = []
     for c in r.checks:
-        v, lim = _check_value(c, u)
+        v, lim = check_value(c, u)
         verdict = "off" if c.skipped else ("pass" if c.passed else "FAIL")
         crow.append([c.name, v, c.relation, lim, _margin(c), verdict, c.source])
     out.append(

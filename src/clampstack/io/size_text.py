@@ -90,7 +90,7 @@ def flange_size_text(r: dict, units: str = "si") -> str:
     if not r["designs"]:
         out.append("RESULT: no candidate passes every check")
     else:
-        out.append(f"RESULT: {len(r['designs'])} passing boltings (fewest, smallest first)")
+        out.append(f"RESULT: {len(r['designs'])} passing boltings (fewest bolts first)")
         rows = [
             [
                 str(d["bolt_count"]),
@@ -121,6 +121,8 @@ def flange_size_text(r: dict, units: str = "si") -> str:
                 right=[True, False, False, False, True, True, False, True],
             )
         )
+    if r["designs"] and len(r["designs"]) > MAX_ROWS:
+        out.append(f"  ({MAX_ROWS} of {len(r['designs'])} shown; --json for all)")
     out.append("")
     out.append(
         "Pressure equipment: the applicable code and a qualified engineer govern; run "

@@ -14,7 +14,8 @@ import re
 from collections.abc import Callable, Iterable, Sequence
 from typing import Any
 
-from ..io.joint_text import _check_value, _margin
+from ..io.joint_text import _margin
+from ..io.joint_text import check_value as _check_value
 from ..io.text import DisplayUnits
 
 _CSS = """

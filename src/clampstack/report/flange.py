@@ -26,7 +26,8 @@ from .. import __version__
 from ..flange.analysis import INCH, FlangeResult
 from ..io.files import InputDocument
 from ..io.flange_text import FLANGE_CAUTION
-from ..io.joint_text import _check_value, _margin, _mu
+from ..io.joint_text import _margin, _mu
+from ..io.joint_text import check_value as _check_value
 from ..io.text import UNIT_SYSTEMS, DisplayUnits, fmt_number
 from ._common import (
     MARGIN_NOTE,

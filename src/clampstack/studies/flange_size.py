@@ -120,7 +120,7 @@ def size_flange(data: dict[str, Any]) -> dict[str, Any]:
         )
         if not dominated:
             keep.append(d)
-    keep.sort(key=lambda d: (d["_key"][0] * d["_key"][1], d["_key"][2]))
+    keep.sort(key=lambda d: (d["_key"][1], d["_key"][0], d["_key"][2]))  # fewest bolts first
     for d in keep:
         d.pop("_key")
     return {"title": base.title, "designs": keep, "screened": screened, "checked": checked}
