@@ -43,6 +43,7 @@ from ..components import (
     tightening_factor,
 )
 from ..errors import InputError
+from ..joint.analysis import torque_preload_range
 from ..joint.checks import Check
 from ..network import CURVE, LINEAR, TENSION, Network
 from ..network.core import _CurveTable
@@ -651,28 +652,19 @@ def analyse_flange(spec: FlangeSpec, compensate: bool = True) -> FlangeResult:
     hi_w, hi_reason = min((crush, "gasket crush limit"), (FMzul, "bolt permissible preload"))
 
     # --- target and tightening
-    single = muG_lo == muG_hi and muK_lo == muK_hi
     torque = None
     if spec.method == "torque":
-        if spec.torque is not None:
-            MA = spec.torque
-        elif spec.preload is not None:
-            MA = spec.preload * k_torque(0.5 * (muG_lo + muG_hi), 0.5 * (muK_lo + muK_hi))
-        else:
-            MA = hi_w * k_torque(muG_lo, muK_lo) / (1 + spec.torque_tolerance)
-        MA_min, MA_max = MA * (1 - spec.torque_tolerance), MA * (1 + spec.torque_tolerance)
-        torque = (MA, MA_min, MA_max)
-        FM_max = MA_max / k_torque(muG_lo, muK_lo)
-        if spec.scatter is not None:
-            alpha = spec.scatter
-            FM_min = FM_max / alpha
-        elif single:
-            alpha = tightening_factor("torque", friction_known=False, bound="lower")
-            FM_min = FM_max / alpha
-        else:
-            FM_min = MA_min / k_torque(muG_hi, muK_hi)
-            alpha = FM_max / FM_min
-        target = MA / k_torque(0.5 * (muG_lo + muG_hi), 0.5 * (muK_lo + muK_hi))
+        torque, FM_min, FM_max, alpha, _, _ = torque_preload_range(
+            spec.torque,
+            spec.preload,
+            hi_w,
+            k_torque,
+            spec.thread_friction,
+            spec.head_friction,
+            spec.torque_tolerance,
+            spec.scatter,
+        )
+        target = torque[0] / k_torque(0.5 * (muG_lo + muG_hi), 0.5 * (muK_lo + muK_hi))
     elif spec.method in ("yield", "angle"):
         # tightened to the yield point (VDI 2230-1; R_p0.2max = 1.2 R_p0.2min, from memory)
         from ..components import yield_controlled_preload_range

@@ -113,6 +113,58 @@ class Prepared:
     assumptions: tuple[str, ...]
 
 
+def torque_preload_range(
+    torque: float | None,
+    preload: float | None,
+    upper: float,
+    k_torque: Callable[[float, float], float],
+    thread_friction: tuple[float, float],
+    head_friction: tuple[float, float],
+    tolerance: float,
+    scatter: float | None,
+) -> tuple[tuple[float, float, float], float, float, float, str, str | None]:
+    """Torque specification and assembly preload range of torque tightening.
+
+    ``M_A = F_M k(mu_G, mu_K)`` (VDI 2230-1 R13, ISO 16047).  The nominal torque is the
+    given ``torque``, or the one that gives ``preload`` at the mean friction, or (neither
+    given) the one whose upper tolerance takes the bolt to ``upper`` at the lowest friction.
+    ``F_M,max`` = largest torque at the lowest friction; ``F_M,min`` = smallest torque at
+    the highest friction, or ``F_M,max / scatter`` when a tightening factor is given, or
+    ``F_M,max / 1.6`` (VDI 2230-1 Table A8, from memory) when the friction is one value.
+    Returns ``((M_A, M_A,min, M_A,max), F_M,min, F_M,max, alpha_A, basis, note)``.
+    """
+    muG_lo, muG_hi = thread_friction
+    muK_lo, muK_hi = head_friction
+    note = None
+    if torque is not None:
+        MA = torque
+    elif preload is not None:
+        MA = preload * k_torque(0.5 * (muG_lo + muG_hi), 0.5 * (muK_lo + muK_hi))
+    else:
+        MA = upper * k_torque(muG_lo, muK_lo) / (1 + tolerance)
+        note = (
+            "No torque or preload given: the torque is set so that the maximum preload "
+            "reaches the permissible preload (VDI 2230-1 R13)."
+        )
+    MA_min, MA_max = MA * (1 - tolerance), MA * (1 + tolerance)
+    FM_max = MA_max / k_torque(muG_lo, muK_lo)
+    if scatter is not None:
+        alpha, basis = scatter, "given"
+        FM_min = FM_max / alpha
+    elif muG_lo == muG_hi and muK_lo == muK_hi:
+        alpha = tightening_factor("torque", friction_known=False, bound="lower")
+        basis = (
+            f"VDI 2230-1 Table A8 default for torque tightening with one friction value "
+            f"({alpha:g}, from memory)"
+        )
+        FM_min = FM_max / alpha
+    else:
+        FM_min = MA_min / k_torque(muG_hi, muK_hi)
+        alpha = FM_max / FM_min
+        basis = f"from the friction range and the torque tolerance +-{tolerance:.0%}"
+    return (MA, MA_min, MA_max), FM_min, FM_max, alpha, basis, note
+
+
 def prepare(spec: JointSpec, model: TemperatureModel | None = None) -> Prepared:
     """Springs, tightening (VDI 2230-1 R7, R13; ISO 16047) and embedding (5.4.2)."""
     b, tr, srv = spec.bolt, spec.tightening, spec.service
@@ -156,35 +208,19 @@ def prepare(spec: JointSpec, model: TemperatureModel | None = None) -> Prepared:
     else:
         FMzul = float(permissible_preload(A0, d0, thr.d2, thr.P, Rp, muG_lo, tr.utilization))
     torque: tuple[float, float, float] | None = None
-    single_friction = muG_lo == muG_hi and muK_lo == muK_hi
     if tr.method == "torque":
-        if tr.torque is not None:
-            MA = tr.torque
-        elif tr.preload is not None:
-            MA = tr.preload * k_torque(0.5 * (muG_lo + muG_hi), 0.5 * (muK_lo + muK_hi))
-        else:
-            MA = FMzul * k_torque(muG_lo, muK_lo) / (1 + tr.torque_tolerance)
-            notes.append(
-                "No torque or preload given: the torque is set so that the maximum "
-                "preload reaches the permissible preload (VDI 2230-1 R13)."
-            )
-        MA_min, MA_max = MA * (1 - tr.torque_tolerance), MA * (1 + tr.torque_tolerance)
-        torque = (MA, MA_min, MA_max)
-        FM_max = MA_max / k_torque(muG_lo, muK_lo)
-        if tr.scatter is not None:
-            alpha, basis = tr.scatter, "given"
-            FM_min = FM_max / alpha
-        elif single_friction:
-            alpha = tightening_factor("torque", friction_known=False, bound="lower")
-            basis = (
-                f"VDI 2230-1 Table A8 default for torque tightening with one friction value "
-                f"({alpha:g}, from memory)"
-            )
-            FM_min = FM_max / alpha
-        else:
-            FM_min = MA_min / k_torque(muG_hi, muK_hi)
-            alpha = FM_max / FM_min
-            basis = f"from the friction range and the torque tolerance +-{tr.torque_tolerance:.0%}"
+        torque, FM_min, FM_max, alpha, basis, note = torque_preload_range(
+            tr.torque,
+            tr.preload,
+            FMzul,
+            k_torque,
+            tr.thread_friction,
+            tr.head_friction,
+            tr.torque_tolerance,
+            tr.scatter,
+        )
+        if note:
+            notes.append(note)
     elif tr.method in ("yield", "angle"):
         FM_min, FM_max = (
             float(x)
