@@ -25,7 +25,7 @@ from ..catalog import yield_at_temperature
 from ..errors import InputError
 from ..flange.analysis import analyse_flange
 from ..flange.model import FlangeSpec
-from .scatter import BLOCK, EXACT_LIMIT, accumulate, clopper_pearson
+from .scatter import BLOCK, EXACT_LIMIT, accumulate, event_probability
 
 QUANTS = ("assembly_preload", "residual_clamp_load")
 EVENTS = ("gasket_below_operating", "separation", "bolt_yield", "slip")
@@ -44,9 +44,8 @@ class FlangeScatterResult:
     exact: bool
 
     def probability(self, name: str) -> dict[str, float]:
-        k, n = self.counts[name], self.samples
-        lo, hi = clopper_pearson(k, n)
-        return {"estimate": k / n, "low": lo, "high": hi, "count": k}
+        """Estimate and 95 % interval of an event's probability."""
+        return event_probability(self.counts[name], self.samples)
 
     def to_dict(self) -> dict[str, Any]:
         return {

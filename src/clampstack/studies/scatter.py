@@ -299,9 +299,8 @@ class ScatterResult:
     exact: bool
 
     def probability(self, name: str) -> dict[str, float]:
-        k, n = self.counts[name], self.samples
-        lo, hi = clopper_pearson(k, n)
-        return {"estimate": k / n, "low": lo, "high": hi, "count": k}
+        """Estimate and 95 % interval of an event's probability."""
+        return event_probability(self.counts[name], self.samples)
 
     def to_dict(self) -> dict[str, Any]:
         return {
@@ -320,6 +319,12 @@ class ScatterResult:
         from ..io.html import scatter_repr_html
 
         return scatter_repr_html(self)
+
+
+def event_probability(k: int, n: int) -> dict[str, float]:
+    """``k`` events in ``n`` samples: estimate, Clopper-Pearson 95 % interval, count."""
+    lo, hi = clopper_pearson(k, n)
+    return {"estimate": k / n, "low": lo, "high": hi, "count": k}
 
 
 def clopper_pearson(k: int, n: int, level: float = 0.95) -> tuple[float, float]:
