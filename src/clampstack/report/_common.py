@@ -224,3 +224,25 @@ def _page(title: str, version: str, footer: str, body: str, extra_css: str = "")
         f"<title>{_e(title)} &mdash; calculation report</title><style>{css}</style></head>"
         f"<body>\n{body}\n</body></html>\n"
     )
+
+
+def verdict_html(checks: Any, gov: Any) -> str:
+    """The PASS / FAIL banner of a report: every active check, and the governing one."""
+    active = [c for c in checks if c.skipped is None]
+    failed = [c for c in checks if not c.passed]
+    if not failed:
+        return (
+            f'<div class="verdict ok"><b>PASS</b> &mdash; all {len(active)} checks pass'
+            + (
+                f"; governing check <b>{_e(gov.name)}</b> (margin {_e(_margin(gov))})"
+                if gov
+                else ""
+            )
+            + "</div>"
+        )
+    names = ", ".join(_e(c.name) for c in failed)
+    return (
+        f'<div class="verdict bad"><b>FAIL</b> &mdash; {names}'
+        + (f"; smallest margin: {_e(gov.name)} ({_e(_margin(gov))})" if gov else "")
+        + "</div>"
+    )

@@ -26,7 +26,7 @@ from .. import __version__
 from ..flange.analysis import INCH, FlangeResult
 from ..io.files import InputDocument
 from ..io.flange_text import FLANGE_CAUTION
-from ..io.joint_text import _margin, _mu
+from ..io.joint_text import _mu
 from ..io.joint_text import check_value as _check_value
 from ..io.text import UNIT_SYSTEMS, DisplayUnits, fmt_number
 from ._common import (
@@ -41,6 +41,7 @@ from ._common import (
     _page,
     _renumber,
     _table,
+    verdict_html,
 )
 
 C0 = 273.15
@@ -165,23 +166,7 @@ def _summary(r: FlangeResult, u: DisplayUnits) -> str:
     gov = _governing(r)
     active = [c for c in r.checks if c.skipped is None]
     at_limit = [c.name for c in active if c.name in _by_design(r)]
-    if r.ok:
-        verdict = (
-            f'<div class="verdict ok"><b>PASS</b> &mdash; all {len(active)} checks pass'
-            + (
-                f"; governing check <b>{_e(gov.name)}</b> (margin {_e(_margin(gov))})"
-                if gov
-                else ""
-            )
-            + "</div>"
-        )
-    else:
-        failed = ", ".join(_e(c.name) for c in r.checks if not c.passed)
-        verdict = (
-            f'<div class="verdict bad"><b>FAIL</b> &mdash; {failed}'
-            + (f"; smallest margin: {_e(gov.name)} ({_e(_margin(gov))})" if gov else "")
-            + "</div>"
-        )
+    verdict = verdict_html(r.checks, gov)
     fr = " / ".join(f"{100 * p:g}" for p in s.passes)
     passes = f"{len(s.passes)} pass{'es' if len(s.passes) != 1 else ''} ({fr} %)"
     if r.torque is not None:

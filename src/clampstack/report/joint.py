@@ -18,7 +18,7 @@ from typing import Any
 from .. import __version__
 from ..errors import InputError
 from ..io.files import InputDocument
-from ..io.joint_text import _margin, _mu, governing
+from ..io.joint_text import _mu, governing
 from ..io.text import CAUTION, UNIT_SYSTEMS, DisplayUnits, fmt_number
 from ..joint.analysis import JointResult
 from ._common import (
@@ -32,6 +32,7 @@ from ._common import (
     _page,
     _renumber,
     _table,
+    verdict_html,
 )
 from ._common import _checks_csv as _checks_csv_rows
 
@@ -91,24 +92,7 @@ def _summary(r: JointResult, u: DisplayUnits) -> str:
     s = r.spec
     tr = s.tightening
     gov = governing(r)
-    active = [c for c in r.checks if c.skipped is None]
-    if r.ok:
-        verdict = (
-            f'<div class="verdict ok"><b>PASS</b> &mdash; all {len(active)} checks pass'
-            + (
-                f"; governing check <b>{_e(gov.name)}</b> (margin {_e(_margin(gov))})"
-                if gov
-                else ""
-            )
-            + "</div>"
-        )
-    else:
-        failed = ", ".join(_e(c.name) for c in r.checks if not c.passed)
-        verdict = (
-            f'<div class="verdict bad"><b>FAIL</b> &mdash; {failed}'
-            + (f"; smallest margin: {_e(gov.name)} ({_e(_margin(gov))})" if gov else "")
-            + "</div>"
-        )
+    verdict = verdict_html(r.checks, gov)
     if r.torque is not None:
         t0, t1, t2 = r.torque
         spec = (
