@@ -14,6 +14,7 @@ from ..flange.model import FlangeSpec, GasketSpec
 from ..joint.model import ROOM, PartMaterial
 from ..units import parse_quantity
 from .files import InputDocument, load_toml
+from .joint_input import NUT as JOINT_NUT
 from .joint_input import TIGHTENING as JOINT_TIGHTENING
 from .joint_input import bearing_face_diameter
 from .schema import Key, Schema, read_table
@@ -122,26 +123,7 @@ BOLT = Schema(
     ),
 )
 
-NUT = Schema(
-    "nut",
-    "The nuts (as for a joint).",
-    (
-        Key("height", "length", "nut height", default="ISO 4032", positive=True),
-        Key(
-            "bearing_diameter",
-            "length",
-            "bearing face of the nut",
-            default="d_w,min",
-            positive=True,
-        ),
-        Key("material", "text", "catalog material of the nut", default="the bolt's"),
-        Key("modulus", "stress", "Young's modulus of the nut (overrides)", positive=True),
-        Key("expansion", "expansion", "thermal expansion of the nut (overrides)"),
-        Key("strength", "stress", "tensile strength of the nut material", positive=True),
-        Key("limiting_pressure", "stress", "limiting surface pressure under the nut"),
-        Key("temperature", "temperature", "nut temperature in operation"),
-    ),
-)
+NUT = JOINT_NUT  # the nuts of a flange take the keys of a joint's [nut]
 
 GASKET = Schema(
     "gasket",

@@ -97,7 +97,7 @@ NUT = Schema(
             "bearing_diameter",
             "length",
             "outer bearing diameter under the nut",
-            default="width across flats s",
+            default="bearing face d_w,min of the nut (ISO 4032)",
             positive=True,
         ),
         *_MATERIAL_KEYS,
