@@ -6,7 +6,7 @@ import time
 
 
 def spec96():
-    from clampstack.io.flange_input import flange_from_data
+    from clampstack.inputs.flange import flange_from_data
 
     return flange_from_data(
         {

@@ -20,9 +20,9 @@ def best_of(fn, repeat: int = 7) -> float:
 def main() -> None:
     import numpy as np
 
-    from clampstack.io.joint_input import read_joint_file
+    from clampstack.inputs.joint import read_joint_file
     from clampstack.joint import analyse
-    from clampstack.joint.analysis import prepare
+    from clampstack.joint.prepare import prepare
     from clampstack.studies.sweep import _evaluate, sweep
 
     _, spec = read_joint_file(str(ROOT / "examples" / "gearbox-cover-cold-to-hot.toml"))

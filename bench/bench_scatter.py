@@ -26,8 +26,8 @@ def best(fn, repeat=5):
 
 
 def main() -> None:
-    from clampstack.io.joint_input import read_joint_file
-    from clampstack.joint.analysis import service_closed_form
+    from clampstack.inputs.joint import read_joint_file
+    from clampstack.joint.prepare import service_closed_form
     from clampstack.studies.scatter import _draw, evaluate, make_chain, parse_distributions
 
     _, spec = read_joint_file(EXAMPLE)
@@ -91,7 +91,7 @@ def main() -> None:
     )
     t = time.perf_counter()
     code = (
-        "import resource;from clampstack.io.joint_input import read_joint_file;"
+        "import resource;from clampstack.inputs.joint import read_joint_file;"
         "from clampstack.studies.scatter import scatter, parse_distributions;"
         f"_, s = read_joint_file({EXAMPLE!r});"
         "scatter(s, parse_distributions(s.distributions), 10**8, seed=1);"

@@ -3,13 +3,13 @@
 from __future__ import annotations
 
 from clampstack.demo import DEMO_ASSEMBLY, DEMO_JOINT, demo_input_path
-from clampstack.io.docgen import input_reference
+from clampstack.inputs.docgen import input_reference
 from conftest import ROOT
 
 
 def test_input_reference_is_generated_from_schema():
     on_disk = (ROOT / "docs" / "input-reference.md").read_text(encoding="utf-8")
-    assert on_disk == input_reference(), "run: .venv/bin/python -m clampstack.io.docgen"
+    assert on_disk == input_reference(), "run: .venv/bin/python -m clampstack.inputs.docgen"
 
 
 def test_bundled_demo_matches_example_file():

@@ -6,7 +6,7 @@ import io
 
 import pytest
 
-from clampstack.io.progress import MIN_TOTAL, Progress, chunks, progress, should_show
+from clampstack.outputs.progress import MIN_TOTAL, Progress, chunks, progress, should_show
 
 
 class FakeTTY(io.StringIO):

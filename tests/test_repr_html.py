@@ -4,9 +4,9 @@ from __future__ import annotations
 
 from clampstack.assembly import solve_assembly
 from clampstack.flange import analyse_flange
-from clampstack.io.assembly_input import read_assembly_file
-from clampstack.io.flange_input import read_flange_file
-from clampstack.io.joint_input import read_joint_file
+from clampstack.inputs.assembly import read_assembly_file
+from clampstack.inputs.flange import read_flange_file
+from clampstack.inputs.joint import read_joint_file
 from clampstack.joint import analyse
 from clampstack.studies.scatter import parse_distributions, scatter
 from conftest import EXAMPLES

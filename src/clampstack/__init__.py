@@ -6,6 +6,12 @@ published design rules.  Results support, and do not replace, the judgement of
 a qualified engineer; applicable codes and regulations govern.
 """
 
-__version__ = "0.1.0"
+import importlib as _importlib
+
+from . import display as _display
+from ._version import __version__
+
+# a result shown in a notebook loads its HTML view from the presentation layer
+_display.set_loader(lambda: _importlib.import_module("clampstack.outputs.notebook"))
 
 __all__ = ["__version__"]

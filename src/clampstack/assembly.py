@@ -18,6 +18,7 @@ from typing import Any
 
 import numpy as np
 
+from .display import Shown
 from .errors import InputError
 from .network import BEHAVIOURS, CURVE, Curve, Network
 
@@ -120,7 +121,7 @@ class CaseResult:
 
 
 @dataclass(frozen=True)
-class AssemblyResult:
+class AssemblyResult(Shown):
     """All solved cases of an assembly; the first is the assembled state."""
 
     assembly: Assembly
@@ -129,11 +130,6 @@ class AssemblyResult:
     def to_dict(self) -> dict[str, Any]:
         """JSON form per DESIGN.md."""
         return {"title": self.assembly.title, "cases": [c.to_dict() for c in self.cases]}
-
-    def _repr_html_(self) -> str:
-        from .io.html import assembly_repr_html
-
-        return assembly_repr_html(self)
 
 
 ASSEMBLY_CASE = "assembly"

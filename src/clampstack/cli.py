@@ -16,7 +16,7 @@ from typing import Any
 
 import click
 
-from . import __version__
+from ._version import __version__
 
 EXIT_OK, EXIT_FAIL, EXIT_INPUT = 0, 1, 2
 
@@ -116,8 +116,8 @@ def main() -> None:
 def solve(file: str, as_json: bool, units: str) -> None:
     """Solve a generic axial assembly (parts between nodes) in FILE."""
     from .assembly import solve_assembly
-    from .io.assembly_input import read_assembly_file
-    from .io.report_text import assembly_text
+    from .inputs.assembly import read_assembly_file
+    from .outputs.assembly import assembly_text
 
     doc, asm = read_assembly_file(file)
     result = _in_file(doc.path, solve_assembly, asm)
@@ -135,9 +135,9 @@ def solve(file: str, as_json: bool, units: str) -> None:
 @handle_errors
 def check(file: str, as_json: bool, units: str) -> None:
     """Analyse and check a single-bolt joint in FILE (exit 1 if a check fails)."""
-    from .io.joint_input import read_joint_file
-    from .io.joint_text import joint_text
+    from .inputs.joint import read_joint_file
     from .joint import analyse
+    from .outputs.joint import joint_text
 
     doc, spec = read_joint_file(file)
     result = _in_file(doc.path, analyse, spec)
@@ -189,8 +189,8 @@ def sweep(
     import numpy as np
 
     from .errors import InputError
-    from .io.joint_input import read_joint_file
-    from .io.sweep_text import sweep_text
+    from .inputs.joint import read_joint_file
+    from .outputs.sweep import sweep_csv, sweep_text
     from .studies.sweep import sweep as run_sweep
 
     if as_json and as_csv:
@@ -209,7 +209,7 @@ def sweep(
     if as_json:
         _print_json(result.to_dict())
     elif as_csv:
-        click.echo(result.to_csv(), nl=False)
+        click.echo(sweep_csv(result), nl=False)
     else:
         click.echo(sweep_text(result, units))
     sys.exit(EXIT_OK if bool(np.all(result.ok)) else EXIT_FAIL)
@@ -223,8 +223,8 @@ def sweep(
 def flange(file: str, as_json: bool, units: str) -> None:
     """Analyse a gasketed flange in FILE: bolt loads, gasket window, passes (exit 1 on a fail)."""
     from .flange import analyse_flange
-    from .io.flange_input import read_flange_file
-    from .io.flange_text import flange_text
+    from .inputs.flange import read_flange_file
+    from .outputs.flange import flange_text
 
     doc, spec = read_flange_file(file)
     result = _in_file(doc.path, analyse_flange, spec)
@@ -247,8 +247,8 @@ def flange(file: str, as_json: bool, units: str) -> None:
 def scatter(file: str, samples: int, seed: int, as_json: bool, units: str) -> None:
     """Statistical assembly scatter of the joint in FILE (Monte Carlo)."""
     from .errors import InputError
-    from .io.joint_input import read_joint_file
-    from .io.scatter_text import scatter_text
+    from .inputs.joint import read_joint_file
+    from .outputs.scatter import scatter_text
     from .studies.scatter import parse_distributions
     from .studies.scatter import scatter as run_scatter
 
@@ -258,11 +258,11 @@ def scatter(file: str, samples: int, seed: int, as_json: bool, units: str) -> No
         )
     if seed < 0:
         raise InputError("the seed must not be negative", key="--seed")
-    from .io.files import load_toml
+    from .inputs.files import load_toml
 
     if "flange" in load_toml(file).data:  # a flange file: every bolt scatters
-        from .io.flange_input import read_flange_file
-        from .io.scatter_text import flange_scatter_text
+        from .inputs.flange import read_flange_file
+        from .outputs.scatter import flange_scatter_text
         from .studies.flange_scatter import flange_scatter
 
         fdoc, fspec = read_flange_file(file)
@@ -290,7 +290,7 @@ def _progress(total: int, quiet: bool, label: str):
 
     ``done`` counts the steps finished so far; ``f(None)`` closes the bar.
     """
-    from .io.progress import Progress, should_show
+    from .outputs.progress import Progress, should_show
 
     if not should_show(total, quiet=quiet):
         return None
@@ -312,13 +312,13 @@ def _progress(total: int, quiet: bool, label: str):
 @handle_errors
 def size(file: str, as_json: bool, units: str) -> None:
     """Smallest thread, grade and tightening method that pass every check for FILE."""
-    from .io.files import load_toml
-    from .io.size_text import size_text
+    from .inputs.files import load_toml
+    from .outputs.size import size_text
     from .studies.size import size as run_size
 
     doc = load_toml(file)
     if "flange" in doc.data:  # a flange file: bolts x grade x method x bolt count
-        from .io.size_text import flange_size_text
+        from .outputs.size import flange_size_text
         from .studies.flange_size import size_flange
 
         fres = _in_file(doc.path, size_flange, doc.data)
@@ -345,7 +345,7 @@ def size(file: str, as_json: bool, units: str) -> None:
 def catalog(what: str, as_json: bool) -> None:
     """List what the catalog holds (threads, grades, materials, gaskets), with sources."""
     from .catalog import listing
-    from .io.text import table
+    from .outputs.text import table
 
     headers, rows = listing(what)
     if as_json:
@@ -395,18 +395,19 @@ def demo(out_dir: str) -> None:
 def report(file: str, out_dir: str, units: str, as_json: bool) -> None:
     """HTML calculation report of the joint or flange in FILE, JSON and CSV beside it (exit 1 on a fail)."""
     from .errors import InputError
-    from .io.files import load_toml, write_files
+    from .inputs.files import load_toml
+    from .outputs.files import write_files
 
     if "flange" in load_toml(file).data:  # a flange file: the flange report
         from .flange import analyse_flange
-        from .io.flange_input import read_flange_file
+        from .inputs.flange import read_flange_file
         from .report import render_flange_report
 
         doc, spec = read_flange_file(file)
         result = _in_file(doc.path, analyse_flange, spec)
         files = _in_file(doc.path, render_flange_report, doc, result, units)  # all rendered first
     else:
-        from .io.joint_input import read_joint_file
+        from .inputs.joint import read_joint_file
         from .joint import analyse
         from .report import render_joint_report
 
@@ -432,7 +433,7 @@ def report(file: str, out_dir: str, units: str, as_json: bool) -> None:
 @handle_errors
 def verify(as_json: bool) -> None:
     """Run the bundled verification cases against published values (exit 1 if one fails)."""
-    from .io.text import CAUTION, table
+    from .outputs.text import CAUTION, table
     from .verify import HEADERS, rows, run_all, summary
 
     results = run_all()

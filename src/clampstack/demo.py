@@ -25,12 +25,12 @@ def run_demo(out_dir: str) -> list[str]:
     rendered before anything is written, and each file is replaced atomically.
     """
     from .assembly import solve_assembly
-    from .io.assembly_input import read_assembly_file
-    from .io.files import write_files
-    from .io.html import assembly_html
-    from .io.joint_input import read_joint_file
-    from .io.joint_text import joint_text
+    from .inputs.assembly import read_assembly_file
+    from .inputs.joint import read_joint_file
     from .joint import analyse
+    from .outputs.files import write_files
+    from .outputs.html import assembly_html
+    from .outputs.joint import joint_text
     from .report import render_joint_report, report_file_names
 
     jdoc, spec = read_joint_file(str(demo_input_path(DEMO_JOINT)))

@@ -19,7 +19,7 @@ from clampstack.flange.analysis import (
     simulate_passes,
     working_loads,
 )
-from clampstack.io.flange_input import flange_from_data
+from clampstack.inputs.flange import flange_from_data
 
 PSI = 6894.757293168361
 INCH = 0.0254

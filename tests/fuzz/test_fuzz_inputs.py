@@ -31,8 +31,8 @@ from hypothesis import strategies as st
 
 from clampstack.cli import main
 from clampstack.errors import InputError
-from clampstack.io.files import MAX_INPUT_BYTES, load_toml
-from clampstack.io.schema import MAX_DEPTH, MAX_ITEMS
+from clampstack.inputs.files import MAX_INPUT_BYTES, load_toml
+from clampstack.inputs.schema import MAX_DEPTH, MAX_ITEMS
 from conftest import EXAMPLES
 
 ASSEMBLIES = [

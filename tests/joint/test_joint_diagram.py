@@ -17,8 +17,9 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from clampstack.io.joint_input import joint_from_data
-from clampstack.joint.analysis import _joint_network, _solve, analyse
+from clampstack.inputs.joint import joint_from_data
+from clampstack.joint.analysis import analyse
+from clampstack.joint.prepare import joint_network, solve_service
 
 REL = 1e-9
 
@@ -44,8 +45,8 @@ def base(**over) -> dict:
 @pytest.mark.parametrize("FA", [0.0, 3e3, 12e3, -5e3])
 def test_network_reproduces_joint_diagram_while_clamped(n, FA):
     dS, dP, FV = 2.4e-9, 0.8e-9, 30e3
-    jn = _joint_network(dS, dP, n, -FV * (dS + dP), 0.0)
-    bolt, clamp = _solve(jn, FA)
+    jn = joint_network(dS, dP, n, -FV * (dS + dP), 0.0)
+    bolt, clamp = solve_service(jn, FA)
     phi = n * dP / (dS + dP)
     assert bolt == pytest.approx(FV + phi * FA, rel=REL)
     assert clamp == pytest.approx(FV - (1 - phi) * FA, rel=REL)
@@ -57,11 +58,11 @@ def test_separation_load_and_bolt_beyond_separation(n):
     dS, dP, FV = 2.4e-9, 0.8e-9, 30e3
     phi = n * dP / (dS + dP)
     F_sep = FV / (1 - phi)
-    jn = _joint_network(dS, dP, n, -FV * (dS + dP), 0.0)
-    bolt, clamp = _solve(jn, F_sep * (1 - 1e-9))
+    jn = joint_network(dS, dP, n, -FV * (dS + dP), 0.0)
+    bolt, clamp = solve_service(jn, F_sep * (1 - 1e-9))
     assert clamp == pytest.approx(0.0, abs=1e-6 * FV)
     for factor in (1.2, 2.0, 5.0):
-        bolt, clamp = _solve(jn, factor * F_sep)
+        bolt, clamp = solve_service(jn, factor * F_sep)
         assert clamp == 0.0  # the interface has opened: exactly zero
         assert bolt == pytest.approx(factor * F_sep, rel=REL)  # the bolt carries all of F_A
 

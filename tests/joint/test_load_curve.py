@@ -10,7 +10,7 @@ from __future__ import annotations
 import numpy as np
 import pytest
 
-from clampstack.io.joint_input import joint_from_data, read_joint_file
+from clampstack.inputs.joint import joint_from_data, read_joint_file
 from clampstack.joint import analyse
 from clampstack.joint.curves import load_curve
 

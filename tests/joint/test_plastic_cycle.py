@@ -12,10 +12,10 @@ from __future__ import annotations
 
 import pytest
 
-from clampstack.io.joint_input import joint_from_data
+from clampstack.inputs.joint import joint_from_data
 from clampstack.joint import analyse
-from clampstack.joint.analysis import prepare
 from clampstack.joint.plastic import permanent_loss_cycle
+from clampstack.joint.prepare import prepare
 
 
 def joint(T_service: str, preload: str = "22 kN") -> dict:

@@ -11,9 +11,9 @@ from hypothesis import given, settings
 from hypothesis import strategies as st
 
 from clampstack.cli import main
-from clampstack.io.joint_input import joint_from_data, read_joint_file
+from clampstack.inputs.joint import joint_from_data, read_joint_file
 from clampstack.joint import analyse
-from clampstack.joint.analysis import _joint_network, _solve, service_closed_form
+from clampstack.joint.prepare import joint_network, service_closed_form, solve_service
 from clampstack.studies.sweep import _evaluate, sweep
 
 C0 = 273.15
@@ -42,8 +42,8 @@ def test_closed_form_equals_network_including_separation(FV, n, FA):
     # the sweep's closed form (exact piecewise) against the joint network it stands for
     dS, dP = 3.1e-9, 0.9e-9
     phi = n * dP / (dS + dP)
-    jn = _joint_network(dS, dP, n, -FV * (dS + dP), 0.0)
-    bolt, clamp = _solve(jn, FA)
+    jn = joint_network(dS, dP, n, -FV * (dS + dP), 0.0)
+    bolt, clamp = solve_service(jn, FA)
     FS, FK = service_closed_form(np.array(FV), np.array(phi), FA)
     scale = max(abs(FV), abs(FA), 1.0)
     assert float(FS) == pytest.approx(bolt, abs=1e-9 * scale)
@@ -83,7 +83,7 @@ def test_limits_by_root_finding_agree_with_a_fine_grid():
 
 
 def _prep(spec):
-    from clampstack.joint.analysis import prepare
+    from clampstack.joint.prepare import prepare
 
     return prepare(spec)
 

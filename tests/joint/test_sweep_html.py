@@ -4,7 +4,7 @@ from __future__ import annotations
 
 import re
 
-from clampstack.io.joint_input import read_joint_file
+from clampstack.inputs.joint import read_joint_file
 from clampstack.studies.sweep import sweep
 
 C0 = 273.15

@@ -9,10 +9,10 @@ import sys
 import numpy as np
 import pytest
 
-from clampstack.io.joint_input import read_joint_file
-from clampstack.io.text import fmt_number
+from clampstack.inputs.joint import read_joint_file
 from clampstack.joint import analyse
 from clampstack.joint.curves import load_curve
+from clampstack.outputs.text import fmt_number
 from clampstack.plots import (
     bolt_load_plot,
     figure_png,

@@ -16,9 +16,9 @@ from click.testing import CliRunner
 from clampstack import __version__
 from clampstack.cli import main
 from clampstack.flange import analyse_flange
-from clampstack.io.flange_input import read_flange_file
-from clampstack.io.flange_text import FLANGE_CAUTION
-from clampstack.io.text import SI, fmt_number
+from clampstack.inputs.flange import read_flange_file
+from clampstack.outputs.flange import FLANGE_CAUTION
+from clampstack.outputs.text import SI, fmt_number
 from clampstack.report import flange_report_file_names, render_flange_report
 from conftest import EXAMPLES
 

@@ -13,7 +13,7 @@ from click.testing import CliRunner
 from test_report_pdf import CHROMIUM, PDFTOTEXT, flat, page_count, pdf_text, print_pdf
 
 from clampstack.cli import main
-from clampstack.io.text import fmt_number
+from clampstack.outputs.text import fmt_number
 from conftest import EXAMPLES
 
 pytestmark = pytest.mark.skipif(

@@ -13,9 +13,9 @@ from click.testing import CliRunner
 
 from clampstack import __version__
 from clampstack.cli import main
-from clampstack.io.joint_input import read_joint_file
-from clampstack.io.text import CAUTION, fmt_number
+from clampstack.inputs.joint import read_joint_file
 from clampstack.joint import analyse
+from clampstack.outputs.text import CAUTION, fmt_number
 from clampstack.report import render_joint_report, report_file_names
 from clampstack.report.joint import report_sweep
 

@@ -18,7 +18,7 @@ import pytest
 from click.testing import CliRunner
 
 from clampstack.cli import main
-from clampstack.io.text import fmt_number
+from clampstack.outputs.text import fmt_number
 
 CHROMIUM = shutil.which("chromium") or (
     "/usr/bin/chromium" if Path("/usr/bin/chromium").exists() else None

@@ -9,9 +9,9 @@ from datetime import UTC, datetime
 import numpy as np
 import pytest
 
-from clampstack.io.joint_input import read_joint_file
-from clampstack.io.text import fmt_number
+from clampstack.inputs.joint import read_joint_file
 from clampstack.joint import analyse
+from clampstack.outputs.text import fmt_number
 from clampstack.plots import binned_histogram
 from clampstack.report import render_joint_report
 from clampstack.report.joint import SCATTER_SAMPLES, report_scatter

@@ -8,7 +8,7 @@ import tomllib
 from clampstack.catalog import threads
 from clampstack.errors import InputError
 from clampstack.flange.analysis import analyse_flange
-from clampstack.io.flange_input import flange_from_data
+from clampstack.inputs.flange import flange_from_data
 from clampstack.studies.flange_size import flange_candidate_data, size_flange
 
 

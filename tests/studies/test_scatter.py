@@ -10,7 +10,7 @@ from click.testing import CliRunner
 from scipy import integrate
 
 from clampstack.cli import main
-from clampstack.io.joint_input import joint_from_data
+from clampstack.inputs.joint import joint_from_data
 from clampstack.studies.scatter import clopper_pearson, parse_distributions, scatter
 
 BASE = {
@@ -39,7 +39,7 @@ def test_uniform_friction_preload_bounds_and_mean():
     # bounds T/(a + b hi) .. T/(a + b lo); mean = T ln((a + b hi)/(a + b lo)) / (b (hi - lo)).
     s = spec()
     r = scatter(s, {}, 400_000, seed=5)
-    from clampstack.joint.analysis import prepare
+    from clampstack.joint.prepare import prepare
 
     p = prepare(s)
     thr = s.bolt.thread
@@ -60,7 +60,7 @@ def test_separation_probability_against_exact_integral():
     d = {"axial_load": {"uniform": ["20 kN", "40 kN"]}}
     s = spec(distributions=d)
     r = scatter(s, parse_distributions(d), 200_000, seed=11)
-    from clampstack.joint.analysis import prepare
+    from clampstack.joint.prepare import prepare
 
     p = prepare(s)
     thr = s.bolt.thread
@@ -170,7 +170,7 @@ torque = "70 N*m"
 
 
 def test_flange_scatter_cli_and_reproducibility(examples_dir):
-    from clampstack.io.flange_input import read_flange_file
+    from clampstack.inputs.flange import read_flange_file
     from clampstack.studies.flange_scatter import flange_scatter
 
     f = str(examples_dir / "pump-outlet-flange-8-bolts.toml")

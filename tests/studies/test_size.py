@@ -12,7 +12,7 @@ from click.testing import CliRunner
 from clampstack.catalog import grade as catalog_grade
 from clampstack.cli import main
 from clampstack.errors import InputError
-from clampstack.io.joint_input import joint_from_data
+from clampstack.inputs.joint import joint_from_data
 from clampstack.joint import analyse
 from clampstack.studies.size import (
     METHODS,

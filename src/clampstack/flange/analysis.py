@@ -42,9 +42,10 @@ from ..components import (
     permissible_preload,
     tightening_factor,
 )
+from ..display import Shown
 from ..errors import InputError
-from ..joint.analysis import torque_preload_range
 from ..joint.checks import Check
+from ..joint.prepare import torque_preload_range
 from ..network import CURVE, LINEAR, TENSION, Network
 from ..network.core import _CurveTable
 from .model import FlangeSpec
@@ -499,7 +500,7 @@ def _sensitivity(ring: Ring, u: np.ndarray) -> np.ndarray:
 
 
 @dataclass(frozen=True)
-class FlangeResult:
+class FlangeResult(Shown):
     """Everything ``clampstack flange`` reports (SI floats)."""
 
     spec: FlangeSpec
@@ -597,11 +598,6 @@ class FlangeResult:
             "notes": list(self.notes),
             "defaults": dict(self.defaults),
         }
-
-    def _repr_html_(self) -> str:
-        from ..io.html import flange_repr_html
-
-        return flange_repr_html(self)
 
 
 def _spread(f: np.ndarray) -> float:

@@ -23,7 +23,8 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from .analysis import JointResult, _joint_network, _solve
+from .analysis import JointResult
+from .prepare import joint_network, solve_service
 from .thermal import TemperatureModel
 
 
@@ -82,8 +83,8 @@ def load_curve(
         FM, fz = result.assembly_max, 0.0
     # the 'hot' network of analyse(): preload misfit, thermal free elongations, embedding
     misfit = -FM * (dSa + dPa)
-    jn = _joint_network(dSs, dPs, n, misfit + th_bolt, th_clamp - fz)
-    FV = _solve(jn, 0.0)[1]  # clamp load at F_A = 0 (the preload at service temperature)
+    jn = joint_network(dSs, dPs, n, misfit + th_bolt, th_clamp - fz)
+    FV = solve_service(jn, 0.0)[1]  # clamp load at F_A = 0 (the preload at service temperature)
     phi = result.load_factor_service
     if branch == "min":
         sep = result.separation_load
@@ -100,5 +101,5 @@ def load_curve(
     bolt = np.empty_like(FA)
     clamp = np.empty_like(FA)
     for i, f in enumerate(FA):
-        bolt[i], clamp[i] = _solve(jn, float(f))
+        bolt[i], clamp[i] = solve_service(jn, float(f))
     return LoadCurve(branch, FA, bolt, clamp, FV, sep, srv.temperature)

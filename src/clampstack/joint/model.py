@@ -1,6 +1,6 @@
 """A single-bolt joint after validation: everything in SI floats, every default resolved.
 
-The input layer (:mod:`clampstack.io.joint_input`) builds these objects from a
+The input layer (:mod:`clampstack.inputs.joint`) builds these objects from a
 TOML file; :func:`clampstack.joint.analysis.analyse` turns them into results.
 Each default that was applied is recorded in :attr:`JointSpec.defaults` so that
 the readable output and the report can print it.

@@ -26,7 +26,7 @@ import numpy as np
 
 from ..catalog import yield_at_temperature
 from ..network import CURVE, elastic_plastic_curve, update_plastic
-from .analysis import Prepared, _joint_network
+from .prepare import Prepared, joint_network
 
 STEPS = 12  # temperature sub-steps each way (monotonic ramps: exact at every step)
 
@@ -95,7 +95,7 @@ def permanent_loss_cycle(
         for T, F in zip(path_T, path_F, strict=True):
             dS, dP = (float(x) for x in model.resiliences(T))
             thb, thc = (float(x) for x in model.thermal(T))
-            jn = _joint_network(dS, dP, n, misfit + thb, thc - fz)
+            jn = joint_network(dS, dP, n, misfit + thb, thc - fz)
             net = jn.net
             Yt = (
                 yield_ratio

@@ -25,8 +25,8 @@ import numpy as np
 from matplotlib.figure import Figure
 from matplotlib.patches import FancyArrowPatch, Rectangle
 
-from ..io.text import UNIT_SYSTEMS, fmt_number
 from ..joint.analysis import JointResult
+from ..outputs.text import UNIT_SYSTEMS, fmt_number
 from ._style import (
     BOLT,
     BOLT_LIGHT,

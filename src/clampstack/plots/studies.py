@@ -11,7 +11,7 @@ from collections.abc import Mapping, Sequence
 import numpy as np
 from matplotlib.figure import Figure
 
-from ..io.text import UNIT_SYSTEMS, fmt_number
+from ..outputs.text import UNIT_SYSTEMS, fmt_number
 from ..studies.sweep import C0, SweepResult
 from ._style import (
     BOLT,

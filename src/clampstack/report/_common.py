@@ -14,9 +14,9 @@ import re
 from collections.abc import Callable, Iterable, Sequence
 from typing import Any
 
-from ..io.joint_text import _margin
-from ..io.joint_text import check_value as _check_value
-from ..io.text import DisplayUnits
+from ..outputs.joint import _margin
+from ..outputs.joint import check_value as _check_value
+from ..outputs.text import DisplayUnits
 
 _CSS = """
 :root{--ink:#1e2b33;--muted:#5d6b73;--rule:#d6dde1;--accent:#1b6c8f;--accent-bg:#eaf2f6;

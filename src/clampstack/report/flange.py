@@ -6,8 +6,8 @@ It shows the torque per bolt and the target preload, the input as entered with
 the defaults applied, the ASME BPVC VIII-1 Appendix 2 bolt loads, the gasket
 stress window, every bolt after every tightening pass and in service, the
 checks with their sources and margins, the notes, the references and the
-pressure-equipment caution (:data:`clampstack.io.flange_text.FLANGE_CAUTION`).
-Everything is rendered in memory; :func:`clampstack.io.files.write_files`
+pressure-equipment caution (:data:`clampstack.outputs.flange.FLANGE_CAUTION`).
+Everything is rendered in memory; :func:`clampstack.inputs.files.write_files`
 writes it.
 """
 
@@ -22,13 +22,13 @@ from typing import Any
 
 import numpy as np
 
-from .. import __version__
+from .._version import __version__
 from ..flange.analysis import INCH, FlangeResult
-from ..io.files import InputDocument
-from ..io.flange_text import FLANGE_CAUTION
-from ..io.joint_text import _mu
-from ..io.joint_text import check_value as _check_value
-from ..io.text import UNIT_SYSTEMS, DisplayUnits, fmt_number
+from ..inputs.files import InputDocument
+from ..outputs.flange import FLANGE_CAUTION
+from ..outputs.joint import _mu
+from ..outputs.joint import check_value as _check_value
+from ..outputs.text import UNIT_SYSTEMS, DisplayUnits, fmt_number
 from ._common import (
     MARGIN_NOTE,
     _checks_csv,

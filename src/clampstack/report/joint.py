@@ -15,12 +15,12 @@ from datetime import UTC, datetime
 from pathlib import Path
 from typing import Any
 
-from .. import __version__
+from .._version import __version__
 from ..errors import InputError
-from ..io.files import InputDocument
-from ..io.joint_text import _mu, governing
-from ..io.text import CAUTION, UNIT_SYSTEMS, DisplayUnits, fmt_number
+from ..inputs.files import InputDocument
 from ..joint.analysis import JointResult
+from ..outputs.joint import _mu, governing
+from ..outputs.text import CAUTION, UNIT_SYSTEMS, DisplayUnits, fmt_number
 from ._common import (
     MARGIN_NOTE,
     _checks_table,

@@ -22,6 +22,7 @@ from typing import Any
 import numpy as np
 
 from ..catalog import yield_at_temperature
+from ..display import Shown
 from ..errors import InputError
 from ..flange.analysis import analyse_flange
 from ..flange.model import FlangeSpec
@@ -32,7 +33,7 @@ EVENTS = ("gasket_below_operating", "separation", "bolt_yield", "slip")
 
 
 @dataclass(frozen=True)
-class FlangeScatterResult:
+class FlangeScatterResult(Shown):
     spec: FlangeSpec
     samples: int
     seed: int
@@ -63,11 +64,6 @@ class FlangeScatterResult:
                 "slip does not apply to an axially loaded gasketed flange",
             ],
         }
-
-    def _repr_html_(self) -> str:
-        from ..io.html import scatter_repr_html
-
-        return scatter_repr_html(self)
 
 
 def flange_scatter(

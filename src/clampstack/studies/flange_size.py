@@ -22,7 +22,7 @@ from typing import Any
 from ..catalog import grades, threads
 from ..errors import InputError
 from ..flange.analysis import analyse_flange, asme_app2
-from ..io.flange_input import flange_from_data
+from ..inputs.flange import flange_from_data
 from .size import METRIC_GRADES, UNIFIED_GRADES
 
 FLANGE_METHODS = ("torque", "tension")

@@ -30,9 +30,11 @@ import numpy as np
 
 from ..catalog import yield_at_temperature
 from ..components import permissible_preload
+from ..display import Shown
 from ..errors import InputError
-from ..joint.analysis import Prepared, analyse, prepare, service_closed_form
+from ..joint.analysis import analyse
 from ..joint.model import JointSpec
+from ..joint.prepare import Prepared, prepare, service_closed_form
 from ..units import parse_quantity
 
 BLOCK = 1 << 16
@@ -284,7 +286,7 @@ def evaluate(chain: Chain, x: dict[str, np.ndarray], n: int) -> dict[str, np.nda
 
 
 @dataclass(frozen=True)
-class ScatterResult:
+class ScatterResult(Shown):
     """Percentiles, probabilities and the deterministic comparisons."""
 
     spec: JointSpec
@@ -314,11 +316,6 @@ class ScatterResult:
             "deterministic": self.deterministic,
             "nasa_std_5020": self.nasa,
         }
-
-    def _repr_html_(self) -> str:
-        from ..io.html import scatter_repr_html
-
-        return scatter_repr_html(self)
 
 
 def event_probability(k: int, n: int) -> dict[str, float]:

@@ -27,9 +27,9 @@ from ..catalog import Thread, grades, threads
 from ..catalog import grade as catalog_grade
 from ..catalog import material as catalog_material
 from ..errors import InputError
-from ..io.joint_input import joint_from_data
-from ..joint.analysis import prepare
+from ..inputs.joint import joint_from_data
 from ..joint.model import PartMaterial
+from ..joint.prepare import prepare
 from ..joint.thermal import TemperatureModel
 from .sweep import _evaluate
 

@@ -19,9 +19,11 @@ from typing import Any
 
 import numpy as np
 
+from ..display import Shown
 from ..errors import InputError, SolveError
-from ..joint.analysis import Prepared, evaluate_checks, margins, prepare, service_closed_form
+from ..joint.analysis import evaluate_checks, margins
 from ..joint.model import JointSpec
+from ..joint.prepare import Prepared, prepare, service_closed_form
 
 C0 = 273.15
 CHUNK = 20_000  # temperature points per piece when a progress bar is drawn
@@ -37,7 +39,7 @@ class Limit:
 
 
 @dataclass(frozen=True)
-class SweepResult:
+class SweepResult(Shown):
     """Arrays over the temperature points (SI) and the limits found."""
 
     spec: JointSpec
@@ -100,40 +102,6 @@ class SweepResult:
         if self.cycle is not None:
             out["cycle"] = self.cycle
         return out
-
-    def to_csv(self) -> str:
-        """One row per temperature point, margins as columns."""
-        names = list(self.margins)
-        head = [
-            "temperature_degC",
-            "preload_min_N",
-            "preload_max_N",
-            "residual_clamp_load_min_N",
-            "bolt_load_max_N",
-            "bolt_stress_max_MPa",
-            "ok",
-            *(f"margin_{n}" for n in names),
-        ]
-        lines = [",".join(head)]
-        for i, T in enumerate(self.temperature):
-            vals = [
-                T - C0,
-                self.preload_min[i],
-                self.preload_max[i],
-                self.residual_min[i],
-                self.bolt_load_max[i],
-                self.bolt_stress_max[i] * 1e-6,
-            ]
-            row = [f"{v:.6g}" for v in vals] + [str(bool(self.ok[i])).lower()]
-            row += [f"{self.margins[n][i]:.6g}" for n in names]
-            lines.append(",".join(row))
-        return "\n".join(lines) + "\n"
-
-    def _repr_html_(self) -> str:
-        """Jupyter: verdict, limits and a table of a thinned set of the points."""
-        from ..io.sweep_text import sweep_html_table
-
-        return sweep_html_table(self)
 
 
 def _finite(x: float) -> float | None:

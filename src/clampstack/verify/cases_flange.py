@@ -42,7 +42,7 @@ def _data(**over: Any) -> dict[str, Any]:
 @cache
 def _app2():
     from ..flange.analysis import asme_app2
-    from ..io.flange_input import flange_from_data
+    from ..inputs.flange import flange_from_data
 
     return asme_app2(flange_from_data(_data()))
 
@@ -83,7 +83,7 @@ def app2_Wm2() -> Outcome:
 def app2_narrow() -> Outcome:
     # b0 = (120 - 100)/4 = 5 mm <= 1/4 in: b = b0 and G = (100 + 120)/2 = 110 mm
     from ..flange.analysis import asme_app2
-    from ..io.flange_input import flange_from_data
+    from ..inputs.flange import flange_from_data
 
     spec = flange_from_data(
         _data(
@@ -108,7 +108,7 @@ def _rigid_interaction() -> tuple[Any, Any]:
     import numpy as np
 
     from ..flange.analysis import build_ring, cross_order, simulate_passes
-    from ..io.flange_input import flange_from_data
+    from ..inputs.flange import flange_from_data
 
     spec = flange_from_data(
         _data(
@@ -179,7 +179,7 @@ def moment_loading() -> Outcome:
     # 16 kN/8 + 4 x 4 kN*m/(8 x 0.160 m)
     #     = 2 kN + 12.5 kN = 14.5 kN (moment equilibrium of a rigid bolt circle)
     from ..flange.analysis import working_loads
-    from ..io.flange_input import flange_from_data
+    from ..inputs.flange import flange_from_data
 
     spec = flange_from_data(
         _data(loading={"pressure": "0 bar", "axial_force": "16 kN", "bending_moment": "4 kN*m"})

@@ -39,7 +39,7 @@ def _data(axial_load: str) -> dict[str, Any]:
 
 @cache
 def _result(axial_load: str = "0..15 kN"):
-    from ..io.joint_input import joint_from_data
+    from ..inputs.joint import joint_from_data
     from ..joint import analyse
 
     return analyse(joint_from_data(_data(axial_load)))

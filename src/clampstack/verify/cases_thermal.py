@@ -75,7 +75,7 @@ def _joint(**over: Any) -> dict[str, Any]:
 
 
 def _analyse(data: dict[str, Any]):
-    from ..io.joint_input import joint_from_data
+    from ..inputs.joint import joint_from_data
     from ..joint import analyse
 
     return analyse(joint_from_data(data))

@@ -145,3 +145,32 @@ def sweep_html_table(r: SweepResult, max_rows: int = MAX_ROWS) -> str:
         "<th>bolt stress max [MPa]</th><th>smallest margin</th><th></th></tr>"
         f"{''.join(rows)}</table><p><small>{e(CAUTION)}</small></p></div>"
     )
+
+
+def sweep_csv(result: SweepResult) -> str:
+    """One row per temperature point, margins as columns."""
+    names = list(result.margins)
+    head = [
+        "temperature_degC",
+        "preload_min_N",
+        "preload_max_N",
+        "residual_clamp_load_min_N",
+        "bolt_load_max_N",
+        "bolt_stress_max_MPa",
+        "ok",
+        *(f"margin_{n}" for n in names),
+    ]
+    lines = [",".join(head)]
+    for i, T in enumerate(result.temperature):
+        vals = [
+            T - C0,
+            result.preload_min[i],
+            result.preload_max[i],
+            result.residual_min[i],
+            result.bolt_load_max[i],
+            result.bolt_stress_max[i] * 1e-6,
+        ]
+        row = [f"{v:.6g}" for v in vals] + [str(bool(result.ok[i])).lower()]
+        row += [f"{result.margins[n][i]:.6g}" for n in names]
+        lines.append(",".join(row))
+    return "\n".join(lines) + "\n"

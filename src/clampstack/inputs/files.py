@@ -1,9 +1,8 @@
-"""Reading input files and writing output files safely.
+"""Reading input files safely.
 
 Every input path goes through :func:`load_toml` (one validator: exists, is a
-file, not too large, UTF-8, valid TOML); every output goes through
-:func:`write_files`, which renders everything first and then replaces each
-file atomically, so a failure never leaves a half-written result behind.
+file, not too large, UTF-8, valid TOML). Writing is the other end of the flow:
+:mod:`clampstack.outputs.files`.
 """
 
 from __future__ import annotations
@@ -11,7 +10,6 @@ from __future__ import annotations
 import hashlib
 import os
 import stat as statmod
-import tempfile
 import tomllib
 from dataclasses import dataclass
 from pathlib import Path
@@ -101,38 +99,3 @@ def load_toml(path: str | os.PathLike[str]) -> InputDocument:
         detail = " ".join(str(err).split())[:120]
         raise InputError(f"not valid TOML: {detail}", source=name) from None
     return InputDocument(text_name, text, data, hashlib.sha256(raw).hexdigest())
-
-
-def atomic_write(path: Path, content: str | bytes) -> None:
-    """Write ``content`` to ``path`` through a temporary file and an atomic rename."""
-    path.parent.mkdir(parents=True, exist_ok=True)
-    data = content.encode("utf-8") if isinstance(content, str) else content
-    fd, tmp = tempfile.mkstemp(prefix=f".{path.name}.", suffix=".tmp", dir=path.parent)
-    try:
-        with os.fdopen(fd, "wb") as fh:
-            fh.write(data)
-            fh.flush()
-            os.fsync(fh.fileno())
-        umask = os.umask(0)
-        os.umask(umask)
-        os.chmod(tmp, 0o666 & ~umask)  # mkstemp makes 0600; a result file is an ordinary file
-        os.replace(tmp, path)
-    except BaseException:
-        try:
-            os.unlink(tmp)
-        except OSError:
-            pass
-        raise
-
-
-def write_files(directory: str | os.PathLike[str], files: dict[str, str | bytes]) -> list[Path]:
-    """Write already-rendered ``files`` (name -> content) into ``directory`` atomically each."""
-    out = Path(directory)
-    if out.exists() and not out.is_dir():
-        raise InputError("output path exists and is not a folder", source=str(directory))
-    written = []
-    for name, content in files.items():
-        target = out / name
-        atomic_write(target, content)
-        written.append(target)
-    return written

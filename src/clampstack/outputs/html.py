@@ -5,7 +5,7 @@ from __future__ import annotations
 import html
 from datetime import UTC, datetime
 
-from .. import __version__
+from .._version import __version__
 from ..assembly import AssemblyResult
 from .text import CAUTION, SI
 
@@ -49,7 +49,7 @@ def _meta(source_name: str, sha256: str) -> str:
 
 def joint_html(result, source_name: str = "", sha256: str = "") -> str:
     """A single page with the joint's verdict, states and checks (inline CSS)."""
-    from .joint_text import joint_html_tables
+    from .joint import joint_html_tables
 
     body = f"<h1>{_e(result.spec.title)}</h1>{_meta(source_name, sha256)}"
     body += joint_html_tables(result)

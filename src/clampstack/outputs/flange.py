@@ -7,7 +7,7 @@ import math
 import numpy as np
 
 from ..flange.analysis import FlangeResult
-from .joint_text import check_value
+from .joint import check_value
 from .text import UNIT_SYSTEMS, table
 
 FLANGE_CAUTION = (

@@ -14,9 +14,9 @@ from ..flange.model import FlangeSpec, GasketSpec
 from ..joint.model import ROOM, PartMaterial
 from ..units import parse_quantity
 from .files import InputDocument, load_toml
-from .joint_input import NUT as JOINT_NUT
-from .joint_input import TIGHTENING as JOINT_TIGHTENING
-from .joint_input import bearing_face_diameter
+from .joint import NUT as JOINT_NUT
+from .joint import TIGHTENING as JOINT_TIGHTENING
+from .joint import bearing_face_diameter
 from .schema import Key, Schema, read_table
 
 PSI = 6894.757293168361

@@ -1,1 +1,0 @@
-"""Input (TOML -> validated model objects) and output (JSON, CSV, text, files)."""
