@@ -2,10 +2,15 @@
 
 from __future__ import annotations
 
+import math
 from dataclasses import dataclass, field
 
 from ..catalog import Grade, Thread
+from ..errors import InputError
+from ..joint.geometry import check_temperature
 from ..joint.model import PartMaterial
+
+PSI = 6894.757293168361  # Pa per psi
 
 
 @dataclass(frozen=True)
@@ -76,3 +81,88 @@ class FlangeSpec:
     shank_diameter: float | None = None
     nut_material: PartMaterial | None = None  # None: the bolt's
     unused: tuple[str, ...] = ()  # keys accepted for a joint that the flange model does not use
+    bolt_length: float | None = None  # given nominal length (checked to reach through the joint)
+    given: frozenset[str] = frozenset()  # key paths the file set ("flange.outer_diameter", ...)
+
+
+def bolt_allowable_stress(grade: Grade, thread: Thread) -> tuple[float, str]:
+    """Default allowable bolt stress S_b [Pa] for ASME VIII-1 App. 2, with its note.
+
+    SA-193 B7 up to 2.5 in: 25 ksi (ASME II-D Table 3, from memory); other grades:
+    min(R_m/5, R_p0.2/4), the bolting design factors of ASME II-D (from memory).
+    """
+    if grade.name == "ASTM A193 B7" and thread.d <= 2.5 * 0.0254:
+        return 25000 * PSI, "172.4 MPa (25 ksi, ASME II-D Table 3, SA-193 B7, from memory)"
+    Sb = min(grade.Rm / 5, grade.Rp02 / 4)
+    return Sb, f"{Sb / 1e6:.4g} MPa (min(R_m/5, R_p0.2/4), bolting design factors, from memory)"
+
+
+def ring_outer_diameter(bolt_circle: float, hole: float) -> float:
+    """Default outer diameter of the flange ring [m]: bolt circle + 2.5 holes (common practice, no source)."""
+    return bolt_circle + 2.5 * hole
+
+
+def check_fit(spec: FlangeSpec) -> None:
+    """The bolts, nuts, gasket and rings of a flange must fit together (InputError names the key).
+
+    Bolt holes inside the ring and outside the gasket, nuts not overlapping each
+    other or overhanging the ring, bearing faces wider than the holes, the bolt
+    long enough for the grip and the nuts, the plain shank inside the grip, and the
+    materials' temperature data at the assembly and service temperatures.
+    """
+    n, Dbc, hole, dW = spec.bolt_count, spec.bolt_circle, spec.hole, spec.bearing_diameter
+    if dW <= hole:
+        key = (
+            "nut.bearing_diameter"
+            if "nut.bearing_diameter" in spec.given
+            else "bolt.bearing_diameter"
+        )
+        raise InputError("bearing diameter must exceed the bolt hole", key=key)
+    chord = Dbc * math.sin(math.pi / n)  # distance between neighbouring bolt axes
+    if chord < dW:
+        raise InputError(
+            f"{n} bolts do not fit on a {Dbc * 1e3:.4g} mm bolt circle: neighbouring bolts "
+            f"are {chord * 1e3:.3g} mm apart, less than the nut bearing diameter "
+            f"{dW * 1e3:.3g} mm",
+            key="flange.bolt_count",
+        )
+    go = spec.gasket.outer_diameter
+    if go > Dbc - hole:
+        raise InputError(
+            f"gasket outer diameter {go * 1e3:g} mm reaches the bolt holes (bolt circle "
+            f"{Dbc * 1e3:g} mm minus hole {hole * 1e3:g} mm); a ring gasket lies inside the bolts",
+            key="gasket.outer_diameter",
+        )
+    ring_in, ring_out = spec.ring_inner_diameter, spec.ring_outer_diameter
+    if not ring_in < Dbc - hole or not ring_out > Dbc + hole:
+        raise InputError(
+            "the bolt holes must lie within the flange ring", key="flange.outer_diameter"
+        )
+    if ring_out < Dbc + dW * (1 - 1e-9):
+        raise InputError(
+            f"the nuts ({dW * 1e3:.4g} mm bearing face) overhang the flange: bolt circle "
+            f"{Dbc * 1e3:g} mm + nut > outer diameter {ring_out * 1e3:.4g} mm",
+            key="flange.outer_diameter",
+        )
+    pair = spec.mating == "flange"
+    grip = (2 if pair else 1) * spec.thickness + spec.gasket.thickness
+    need = grip + (2 if pair else 1) * spec.nut_height
+    if spec.bolt_length is not None and spec.bolt_length < need * (1 - 1e-9):
+        raise InputError(
+            f"bolt length {spec.bolt_length * 1e3:g} mm does not reach through the joint "
+            f"({need * 1e3:.4g} mm with {'both nuts' if pair else 'the nut'})",
+            key="bolt.length",
+        )
+    if spec.shank_length > grip:
+        raise InputError("the plain shank is longer than the grip", key="bolt.shank_length")
+    if spec.shank_diameter is not None and spec.shank_diameter >= spec.thread.d:
+        raise InputError(
+            "a reduced shank must be thinner than the thread", key="bolt.shank_diameter"
+        )
+    for pm, T, key in (
+        (spec.material, spec.T_flange, "loading.temperature"),
+        (spec.material, spec.T_assembly, "loading.assembly_temperature"),
+        (spec.bolt_material, spec.T_bolt, "loading.bolt_temperature"),
+        (spec.bolt_material, spec.T_assembly, "loading.assembly_temperature"),
+    ):
+        check_temperature(pm, T, key)

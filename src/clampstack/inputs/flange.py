@@ -6,20 +6,24 @@ import math
 from typing import Any
 
 from ..catalog import gasket as catalog_gasket
-from ..catalog import grade as catalog_grade
 from ..catalog import material as catalog_material
-from ..catalog import thread as catalog_thread
+from ..catalog.parts import bearing_face_diameter
 from ..errors import InputError
-from ..flange.model import FlangeSpec, GasketSpec
+from ..flange.model import (
+    FlangeSpec,
+    GasketSpec,
+    bolt_allowable_stress,
+    check_fit,
+    ring_outer_diameter,
+)
+from ..joint.geometry import clearance_hole
 from ..joint.model import ROOM, PartMaterial
 from ..units import parse_quantity
 from .files import InputDocument, load_toml
 from .joint import NUT as JOINT_NUT
 from .joint import TIGHTENING as JOINT_TIGHTENING
-from .joint import bearing_face_diameter
 from .schema import Key, Schema, read_table
-
-PSI = 6894.757293168361
+from .tables import Defaults, empty, given_keys, thread_and_grade, tightening
 
 FLANGE = Schema(
     "flange",
@@ -227,16 +231,6 @@ def _mat(key: str, where: str) -> PartMaterial:
     return PartMaterial(m.key, m)
 
 
-def _temp_ok(pm: PartMaterial, T: float, key: str) -> None:
-    lo, hi = pm.material.valid_range()
-    if not lo - 1e-9 <= T <= hi + 1e-9:
-        raise InputError(
-            f"{T - 273.15:g} degC is outside the data of material "
-            f"{pm.material.key!r} ({lo - 273.15:g} to {hi - 273.15:g} degC)",
-            key=key,
-        )
-
-
 def _nut_material(nut_raw: dict[str, Any]) -> PartMaterial | None:
     """The nut's material when the file gives one (modulus and expansion, or a catalog key)."""
     if nut_raw.get("modulus") is not None:
@@ -249,10 +243,99 @@ def _nut_material(nut_raw: dict[str, Any]) -> PartMaterial | None:
 
 
 def flange_from_data(data: dict[str, Any]) -> FlangeSpec:
-    """Validate a flange file's TOML data and resolve every default."""
+    """Validate a flange file's TOML data, resolve every default and check that the parts fit.
+
+    One reader per table: ``[flange]`` (bolt count, ring), ``[bolt]`` (thread, grade,
+    holes, allowable stresses), ``[nut]``, ``[gasket]``, ``[loading]``, ``[tightening]``
+    (shared with joint files) and its pass sequence.
+    """
     raw = read_table(FLANGE_FILE, data)
-    defaults: list[tuple[str, str]] = []
-    f, b, g = raw["flange"], raw["bolt"], raw["gasket"]
+    rec = Defaults()
+    f, b = raw["flange"], raw["bolt"]
+    n = bolt_count(f)
+    thr, grd = thread_and_grade(b)
+    hole = b["hole"]
+    if hole is None:
+        hole, note = clearance_hole(thr, "bolt")
+        rec.note("bolt.hole", note)
+    nut_raw = raw["nut"] or {}
+    dW = (
+        nut_raw.get("bearing_diameter")
+        or b["bearing_diameter"]
+        or bearing_face_diameter(thr.head_across_flats)
+    )
+    gasket = gasket_table(raw["gasket"], rec)
+    fmat = _mat(f["material"] or "steel", "flange.material")
+    if f["material"] is None:
+        rec.note("flange.material", "steel")
+    ring_out = f["outer_diameter"] or ring_outer_diameter(f["bolt_circle"], hole)
+    if f["outer_diameter"] is None:
+        rec.note("flange.outer_diameter", f"{ring_out * 1e3:.4g} mm")
+    bmat = bolt_material(b, grd)
+    Sb = b["allowable_stress"]
+    if Sb is None:
+        Sb, note = bolt_allowable_stress(grd, thr)
+        rec.note("bolt.allowable_stress", note)
+    loads = loading(raw["loading"] or empty(LOADING), b)
+    tr = raw["tightening"] or empty(TIGHTENING)
+    tight = tightening(tr, thr, grd, Defaults())
+    passes, patterns, order = pass_sequence(tr, n, rec)
+    mating = f["mating"] or "flange"
+    spec = FlangeSpec(
+        title=raw["title"] or "untitled flange",
+        bolt_count=n,
+        bolt_circle=f["bolt_circle"],
+        thickness=f["thickness"],
+        ring_inner_diameter=f["inner_diameter"] or gasket.inner_diameter,
+        ring_outer_diameter=ring_out,
+        material=fmat,
+        mating=mating,
+        thread=thr,
+        grade=grd,
+        bolt_material=bmat,
+        nut_height=nut_raw.get("height") or thr.nut_height,
+        nut_material=_nut_material(nut_raw),
+        unused=tuple(
+            f"nut.{k}"
+            for k in ("strength", "limiting_pressure", "temperature")
+            if nut_raw.get(k) is not None
+        )
+        + (("bolt.rolled",) if b["rolled"] is not None else ()),
+        head=b["head"] or ("stud" if mating == "flange" else "hex"),
+        shank_length=b["shank_length"] or 0.0,
+        shank_diameter=b["shank_diameter"],
+        bearing_diameter=dW,
+        hole=hole,
+        allowable_stress=Sb,
+        allowable_stress_ambient=b["allowable_stress_ambient"] or Sb,
+        gasket=gasket,
+        **loads,
+        method=tight.method,
+        torque=tight.torque,
+        preload=tight.preload,
+        thread_friction=tight.thread_friction,
+        head_friction=tight.head_friction,
+        scatter=tight.scatter,
+        utilization=tight.utilization,
+        torque_tolerance=tight.torque_tolerance,
+        passes=passes,
+        patterns=patterns,
+        order=order,
+        defaults=rec.as_tuple(),
+        bolt_length=b["length"],
+        given=given_keys(raw),
+    )
+    if b["bearing_diameter"] is not None and nut_raw.get("bearing_diameter") is not None:
+        if b["bearing_diameter"] <= hole:
+            raise InputError(
+                "bearing diameter must exceed the bolt hole", key="bolt.bearing_diameter"
+            )
+    check_fit(spec)
+    return spec
+
+
+def bolt_count(f: dict[str, Any]) -> int:
+    """``[flange] bolt_count``: 3 to 1000 bolts."""
     n = f["bolt_count"]
     if n < 3:
         raise InputError(f"a flange needs at least 3 bolts, got {n}", key="flange.bolt_count")
@@ -260,40 +343,61 @@ def flange_from_data(data: dict[str, Any]) -> FlangeSpec:
         raise InputError(
             f"{n} bolts is more than this tool models (at most 1000)", key="flange.bolt_count"
         )
-    try:
-        thr = catalog_thread(b["thread"])
-    except InputError as err:
-        raise InputError(err.detail, key="bolt.thread") from None
-    try:
-        grd = catalog_grade(b["grade"], thr.d)
-    except InputError as err:
-        raise InputError(err.detail, key="bolt.grade") from None
-    hole = b["hole"] or thr.hole_medium
-    if b["hole"] is None:
-        defaults.append(("bolt.hole", f"{hole * 1e3:g} mm (ISO 273 medium)"))
-    dW = b["bearing_diameter"] or bearing_face_diameter(thr.head_across_flats)
-    if dW <= hole:
-        raise InputError("bearing diameter must exceed the bolt hole", key="bolt.bearing_diameter")
-    Dbc = f["bolt_circle"]
-    chord = Dbc * math.sin(math.pi / n)  # distance between neighbouring bolt axes
-    if chord < dW:
+    return n
+
+
+def bolt_material(b: dict[str, Any], grd: Any) -> PartMaterial:
+    """The bolt's catalog material (the grade's steel by default), or a constant modulus and expansion."""
+    bmat = _mat(b["material"] or grd.material_key, "bolt.material")
+    if b["modulus"] is not None or b["expansion"] is not None:
+        if b["modulus"] is None or b["expansion"] is None:
+            raise InputError("give the bolt's modulus and expansion together", key="bolt.modulus")
+        bmat = PartMaterial("user bolt", bmat.material, b["modulus"], b["expansion"])
+    return bmat
+
+
+def gasket_curve(points: list[Any]) -> tuple[tuple[float, ...], tuple[float, ...]]:
+    """``[gasket] curve``: loading curve points (strain, stress), from the origin, rising."""
+    strains, stresses = [0.0], [0.0]
+    for k, pt in enumerate(points):
+        key = f"gasket.curve[{k + 1}]"
+        e = parse_quantity(pt[0], "dimensionless", key)
+        st = parse_quantity(pt[1], "stress", key)
+        if e == 0.0 and st == 0.0 and k == 0:
+            continue  # the origin, given explicitly
+        if not (0 < e < 1):
+            raise InputError("strain must lie between 0 and 1", key=key)
+        strains.append(e)
+        stresses.append(st)
+    if (
+        len(strains) < 2
+        or any(b2 <= a2 for a2, b2 in zip(strains, strains[1:], strict=False))
+        or any(b2 < a2 for a2, b2 in zip(stresses, stresses[1:], strict=False))
+    ):
         raise InputError(
-            f"{n} bolts do not fit on a {Dbc * 1e3:.4g} mm bolt circle: neighbouring bolts "
-            f"are {chord * 1e3:.3g} mm apart, less than the nut bearing diameter "
-            f"{dW * 1e3:.3g} mm",
-            key="flange.bolt_count",
+            "curve points must rise in strain and must not fall in stress", key="gasket.curve"
         )
-    # --- gasket
+    return tuple(strains), tuple(stresses)
+
+
+def _nearest_type(m: float, y: float) -> Any:
+    """The catalog gasket type nearest in (m, y): its loading behaviour stands in."""
+    from ..catalog import gaskets as catalog_gaskets
+
+    return min(
+        catalog_gaskets(),
+        key=lambda t: (
+            abs(math.log((t.m + 0.1) / (m + 0.1))) + abs(math.log((t.y + 1e5) / (y + 1e5)))
+        ),
+    )
+
+
+def gasket_table(g: dict[str, Any], rec: Defaults) -> GasketSpec:
+    """``[gasket]``: a catalog type, or m and y (ASME VIII-1 App. 2) and optionally a curve."""
     gi, go, gt = g["inner_diameter"], g["outer_diameter"], g["thickness"]
     if gi >= go:
         raise InputError(
             "gasket inner diameter must be below its outer diameter", key="gasket.inner_diameter"
-        )
-    if go > Dbc - hole:
-        raise InputError(
-            f"gasket outer diameter {go * 1e3:g} mm reaches the bolt holes (bolt circle "
-            f"{Dbc * 1e3:g} mm minus hole {hole * 1e3:g} mm); a ring gasket lies inside the bolts",
-            key="gasket.outer_diameter",
         )
     cat = None
     if g["type"] is not None:
@@ -309,60 +413,25 @@ def flange_from_data(data: dict[str, Any]) -> FlangeSpec:
             "they set the seating and operating loads)",
             key="gasket.m",
         )
-    curve = None
-    if g["curve"] is not None:
-        strains, stresses = [0.0], [0.0]
-        for k, pt in enumerate(g["curve"]):
-            key = f"gasket.curve[{k + 1}]"
-            e = parse_quantity(pt[0], "dimensionless", key)
-            st = parse_quantity(pt[1], "stress", key)
-            if e == 0.0 and st == 0.0 and k == 0:
-                continue  # the origin, given explicitly
-            if not (0 < e < 1):
-                raise InputError("strain must lie between 0 and 1", key=key)
-            strains.append(e)
-            stresses.append(st)
-        if (
-            len(strains) < 2
-            or any(b2 <= a2 for a2, b2 in zip(strains, strains[1:], strict=False))
-            or any(b2 < a2 for a2, b2 in zip(stresses, stresses[1:], strict=False))
-        ):
-            raise InputError(
-                "curve points must rise in strain and must not fall in stress", key="gasket.curve"
-            )
-        curve = (tuple(strains), tuple(stresses))
+    curve = gasket_curve(g["curve"]) if g["curve"] is not None else None
     like = cat
     if cat is None and curve is None:
-        # m and y only: the loading behaviour of the catalog type nearest in (m, y)
-        import math as _m
-
-        from ..catalog import gaskets as catalog_gaskets
-
-        like = min(
-            catalog_gaskets(),
-            key=lambda t: (
-                abs(_m.log((t.m + 0.1) / (m + 0.1))) + abs(_m.log((t.y + 1e5) / (y + 1e5)))
-            ),
-        )
-        defaults.append(
-            ("gasket.curve", f"typical curve of catalog type {like.key!r} (nearest m and y)")
-        )
+        like = _nearest_type(m, y)
+        rec.note("gasket.curve", f"typical curve of catalog type {like.key!r} (nearest m and y)")
     if curve is None:
         assert like is not None
         curve = (like.curve_strain, like.curve_stress)
     max_stress = g["max_stress"] or (like.max_stress if like else None)
     if max_stress is None:
         max_stress = curve[1][-1]
-        defaults.append(("gasket.max_stress", f"{max_stress / 1e6:.4g} MPa (top of the curve)"))
+        rec.note("gasket.max_stress", f"{max_stress / 1e6:.4g} MPa (top of the curve)")
     unload = g["unload_modulus"] or (like.unload_modulus if like else None)
     if unload is None:
         unload = (curve[1][-1] - curve[1][-2]) / (curve[0][-1] - curve[0][-2])
-        defaults.append(
-            ("gasket.unload_modulus", f"{unload / 1e6:.4g} MPa (last slope of the curve)")
-        )
+        rec.note("gasket.unload_modulus", f"{unload / 1e6:.4g} MPa (last slope of the curve)")
     if not unload > 0:
         raise InputError("the unloading modulus must be positive", key="gasket.unload_modulus")
-    gasket = GasketSpec(
+    return GasketSpec(
         name=cat.key if cat else "user gasket",
         inner_diameter=gi,
         outer_diameter=go,
@@ -375,83 +444,10 @@ def flange_from_data(data: dict[str, Any]) -> FlangeSpec:
         curve_stress=curve[1],
         source=cat.source if cat else ("user m, y; curve of " + like.key if like else "user data"),
     )
-    # --- flange ring
-    fmat = _mat(f["material"] or "steel", "flange.material")
-    if f["material"] is None:
-        defaults.append(("flange.material", "steel"))
-    ring_in = f["inner_diameter"] or gi
-    ring_out = f["outer_diameter"] or (Dbc + 2.5 * hole)
-    if f["outer_diameter"] is None:
-        defaults.append(("flange.outer_diameter", f"{ring_out * 1e3:.4g} mm"))
-    if not ring_in < Dbc - hole or not ring_out > Dbc + hole:
-        raise InputError(
-            "the bolt holes must lie within the flange ring", key="flange.outer_diameter"
-        )
-    if ring_out < Dbc + dW * (1 - 1e-9):
-        raise InputError(
-            f"the nuts ({dW * 1e3:.4g} mm bearing face) overhang the flange: bolt circle "
-            f"{Dbc * 1e3:g} mm + nut > outer diameter {ring_out * 1e3:.4g} mm",
-            key="flange.outer_diameter",
-        )
-    chord = Dbc * math.sin(math.pi / n)
-    if chord < dW * (1 - 1e-9):
-        raise InputError(
-            f"{n} bolts do not fit on the {Dbc * 1e3:g} mm bolt circle: neighbouring nuts "
-            f"({dW * 1e3:.4g} mm) overlap ({chord * 1e3:.4g} mm apart)",
-            key="flange.bolt_count",
-        )
-    bmat = _mat(b["material"] or grd.material_key, "bolt.material")
-    if b["modulus"] is not None or b["expansion"] is not None:
-        if b["modulus"] is None or b["expansion"] is None:
-            raise InputError("give the bolt's modulus and expansion together", key="bolt.modulus")
-        bmat = PartMaterial("user bolt", bmat.material, b["modulus"], b["expansion"])
-    nut_raw = raw["nut"] or {}
-    if nut_raw.get("bearing_diameter") is not None:
-        dW = nut_raw["bearing_diameter"]
-        if dW <= hole:
-            raise InputError(
-                "bearing diameter must exceed the bolt hole", key="nut.bearing_diameter"
-            )
-    # --- allowable bolt stresses (ASME App. 2)
-    Sb = b["allowable_stress"]
-    if Sb is None:
-        if grd.name == "ASTM A193 B7" and thr.d <= 2.5 * 0.0254:
-            Sb = 25000 * PSI
-            defaults.append(
-                (
-                    "bolt.allowable_stress",
-                    "172.4 MPa (25 ksi, ASME II-D Table 3, SA-193 B7, from memory)",
-                )
-            )
-        else:
-            Sb = min(grd.Rm / 5, grd.Rp02 / 4)
-            defaults.append(
-                (
-                    "bolt.allowable_stress",
-                    f"{Sb / 1e6:.4g} MPa (min(R_m/5, "
-                    "R_p0.2/4), bolting design factors, from memory)",
-                )
-            )
-    Sa = b["allowable_stress_ambient"] or Sb
-    # --- the bolt must reach through both flanges (or one and the rigid part), gasket and nuts
-    pair = (f["mating"] or "flange") == "flange"
-    grip = (2 if pair else 1) * f["thickness"] + gt
-    need = grip + (2 if pair else 1) * (nut_raw.get("height") or thr.nut_height)
-    if b["length"] is not None and b["length"] < need * (1 - 1e-9):
-        raise InputError(
-            f"bolt length {b['length'] * 1e3:g} mm does not reach through the joint "
-            f"({need * 1e3:.4g} mm with {'both nuts' if pair else 'the nut'})",
-            key="bolt.length",
-        )
-    if (b["shank_length"] or 0.0) > grip:
-        raise InputError("the plain shank is longer than the grip", key="bolt.shank_length")
-    if b["shank_diameter"] is not None and b["shank_diameter"] >= thr.d:
-        raise InputError(
-            "a reduced shank must be thinner than the thread", key="bolt.shank_diameter"
-        )
 
-    # --- loading
-    ld = raw["loading"] or {k.name: None for k in LOADING.keys}
+
+def loading(ld: dict[str, Any], b: dict[str, Any]) -> dict[str, float]:
+    """``[loading]``: pressure, external force and moment, assembly/flange/bolt temperatures."""
     T_asm = ld["assembly_temperature"] if ld["assembly_temperature"] is not None else ROOM
     if ld.get("flange_temperature") is not None:
         if ld["temperature"] is not None and ld["temperature"] != ld["flange_temperature"]:
@@ -463,46 +459,47 @@ def flange_from_data(data: dict[str, Any]) -> FlangeSpec:
     T_b = ld["bolt_temperature"] if ld["bolt_temperature"] is not None else T_fl
     if b["temperature"] is not None:
         T_b = b["temperature"]
-    for pm, T, key in (
-        (fmat, T_fl, "loading.temperature"),
-        (fmat, T_asm, "loading.assembly_temperature"),
-        (bmat, T_b, "loading.bolt_temperature"),
-        (bmat, T_asm, "loading.assembly_temperature"),
-    ):
-        _temp_ok(pm, T, key)
-    # --- tightening
-    tr = raw["tightening"] or {k.name: None for k in TIGHTENING.keys}
-    method = tr["method"] or "torque"
-    if tr["torque"] is not None and tr["preload"] is not None:
-        raise InputError("give torque or preload, not both", key="tightening.preload")
-    if method in ("yield", "angle") and (tr["torque"] is not None or tr["preload"] is not None):
-        raise InputError(
-            f"method {method!r} tightens to the yield point; remove torque and preload",
-            key="tightening.method",
+    return {
+        "pressure": ld["pressure"] or 0.0,
+        "axial_force": ld["axial_force"] or 0.0,
+        "bending_moment": ld["bending_moment"] or 0.0,
+        "T_assembly": T_asm,
+        "T_flange": T_fl,
+        "T_bolt": T_b,
+    }
+
+
+def _percentages(passes: Any, rec: Defaults) -> list[Any]:
+    """Pass targets as percentages: "30 %" strings and fractions (0.3) converted."""
+    if not isinstance(passes, list):
+        return passes
+    conv = []
+    for k, p in enumerate(passes):
+        if isinstance(p, str):  # "30 %"
+            p = parse_quantity(p, "dimensionless", f"tightening.passes[{k + 1}]") * 100
+        conv.append(p)
+    if (
+        conv
+        and all(
+            isinstance(p, int | float) and not isinstance(p, bool) and 0 < p <= 1.0 for p in conv
         )
-    if method == "tension" and tr["torque"] is not None:
-        raise InputError("a tensioner sets a preload, not a torque", key="tightening.torque")
-    muG = tr["thread_friction"] or (0.10, 0.16)
-    muK = tr["head_friction"] or muG
-    passes = tr["passes"] if tr["passes"] is not None else [30, 70, 100, 100]
-    if isinstance(passes, list):
-        conv = []
-        for k, p in enumerate(passes):
-            if isinstance(p, str):  # "30 %"
-                p = parse_quantity(p, "dimensionless", f"tightening.passes[{k + 1}]") * 100
-            conv.append(p)
-        passes = conv
-        if (
-            passes
-            and all(
-                isinstance(p, int | float) and not isinstance(p, bool) and 0 < p <= 1.0
-                for p in passes
-            )
-            and max(passes) <= 1.0
-            and any(p < 1.0 for p in passes)
-        ):
-            passes = [100 * p for p in passes]  # given as fractions: 0.3 means 30 %
-            defaults.append(("tightening.passes", "read as fractions of the target"))
+        and max(conv) <= 1.0
+        and any(p < 1.0 for p in conv)
+    ):
+        rec.note("tightening.passes", "read as fractions of the target")
+        return [100 * p for p in conv]  # given as fractions: 0.3 means 30 %
+    return conv
+
+
+def pass_sequence(
+    tr: dict[str, Any], n: int, rec: Defaults
+) -> tuple[tuple[float, ...], tuple[str, ...], tuple[int, ...] | None]:
+    """Passes (fractions of the target), a pattern per pass and a custom bolt order (0-based).
+
+    Default: 30, 70, 100, 100 % (ASME PCC-1 legacy practice, from memory), cross
+    pattern with the last pass circular.
+    """
+    passes = _percentages(tr["passes"] if tr["passes"] is not None else [30, 70, 100, 100], rec)
     seq = tr.get("sequence")
     if seq is not None:
         if isinstance(seq, str) and tr["pattern"] is None:
@@ -553,50 +550,4 @@ def flange_from_data(data: dict[str, Any]) -> FlangeSpec:
         order = tuple(v - 1 for v in o)
         if tr["pattern"] is None:
             pats = ["custom"] * len(passes)
-    return FlangeSpec(
-        title=raw["title"] or "untitled flange",
-        bolt_count=n,
-        bolt_circle=Dbc,
-        thickness=f["thickness"],
-        ring_inner_diameter=ring_in,
-        ring_outer_diameter=ring_out,
-        material=fmat,
-        mating=f["mating"] or "flange",
-        thread=thr,
-        grade=grd,
-        bolt_material=bmat,
-        nut_height=nut_raw.get("height") or thr.nut_height,
-        nut_material=_nut_material(nut_raw),
-        unused=tuple(
-            f"nut.{k}"
-            for k in ("strength", "limiting_pressure", "temperature")
-            if nut_raw.get(k) is not None
-        )
-        + (("bolt.rolled",) if b["rolled"] is not None else ()),
-        head=b["head"] or ("stud" if (f["mating"] or "flange") == "flange" else "hex"),
-        shank_length=b["shank_length"] or 0.0,
-        shank_diameter=b["shank_diameter"],
-        bearing_diameter=dW,
-        hole=hole,
-        allowable_stress=Sb,
-        allowable_stress_ambient=Sa,
-        gasket=gasket,
-        pressure=ld["pressure"] or 0.0,
-        axial_force=ld["axial_force"] or 0.0,
-        bending_moment=ld["bending_moment"] or 0.0,
-        T_assembly=T_asm,
-        T_flange=T_fl,
-        T_bolt=T_b,
-        method=method,
-        torque=tr["torque"],
-        preload=tr["preload"],
-        thread_friction=muG,
-        head_friction=muK,
-        scatter=tr["scatter"],
-        utilization=tr["utilization"] if tr["utilization"] is not None else 0.9,
-        torque_tolerance=tr["torque_tolerance"] if tr["torque_tolerance"] is not None else 0.06,
-        passes=tuple(p / 100.0 for p in passes),
-        patterns=tuple(pats),
-        order=order,
-        defaults=tuple(defaults),
-    )
+    return tuple(p / 100.0 for p in passes), tuple(pats), order

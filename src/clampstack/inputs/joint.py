@@ -6,13 +6,11 @@ Schema per ../shared/DESIGN.md, and the reader that resolves every default
 
 from __future__ import annotations
 
+from dataclasses import replace
 from typing import Any
 
-from ..catalog import grade as catalog_grade
-from ..catalog import material as catalog_material
-from ..catalog import thread as catalog_thread
-from ..components import default_shank_length
 from ..errors import InputError
+from ..joint import geometry
 from ..joint.checks import CHECK_NAMES
 from ..joint.model import (
     ROOM,
@@ -24,10 +22,10 @@ from ..joint.model import (
     RequirementSpec,
     ServiceSpec,
     TappedHoleSpec,
-    TighteningSpec,
 )
 from .files import InputDocument, load_toml
 from .schema import Key, Schema, read_table
+from .tables import Defaults, empty, given_keys, part_material, thread_and_grade, tightening
 
 _MATERIAL_KEYS = (
     Key("material", "text", "catalog material key (`clampstack catalog materials`)"),
@@ -380,70 +378,6 @@ JOINT = Schema(
 )
 
 
-#: Bearing face diameter d_w,min of hexagon heads and nuts by width across flats s [mm]:
-#: ISO 4014 / ISO 4032 product grade A (from memory).  Other sizes: 0.93 s (an
-#: approximation of the same tables, common practice, no source).
-_DW_MIN_MM = {
-    5.5: 4.57,
-    7.0: 5.88,
-    8.0: 6.88,
-    10.0: 8.88,
-    13.0: 11.63,
-    16.0: 14.63,
-    18.0: 16.63,
-    21.0: 19.37,
-    24.0: 22.49,
-    27.0: 25.34,
-    30.0: 28.19,
-    34.0: 31.71,
-    36.0: 33.61,
-    41.0: 38.0,
-    46.0: 42.75,
-    50.0: 46.55,
-    55.0: 51.11,
-}
-
-
-def bearing_face_diameter(s: float) -> float:
-    """Default outer bearing diameter d_w of a hexagon head or nut of width ``s`` [m]."""
-    key = round(s * 1e3, 2)
-    if key in _DW_MIN_MM:
-        return _DW_MIN_MM[key] * 1e-3
-    return 0.93 * s
-
-
-#: ISO 7089 plain washers, normal series: nominal d [mm] -> (thickness h, outer d2) [mm]
-#: (from memory).  Other sizes: h = 0.16 d, d2 = 2 d (common practice, no source).
-_ISO7089 = {
-    3: (0.5, 7),
-    4: (0.8, 9),
-    5: (1, 10),
-    6: (1.6, 12),
-    8: (1.6, 16),
-    10: (2, 20),
-    12: (2.5, 24),
-    14: (2.5, 28),
-    16: (3, 30),
-    20: (3, 37),
-    24: (4, 44),
-    30: (4, 56),
-    36: (5, 66),
-    42: (8, 78),
-    48: (8, 92),
-    56: (10, 105),
-    64: (10, 115),
-}
-
-
-def washer_default(d: float) -> tuple[float, float]:
-    """Default plain washer (thickness, outer diameter) [m] for a bolt of diameter d [m]."""
-    key = round(d * 1e3, 3)
-    if key in _ISO7089:
-        h, od = _ISO7089[key]  # type: ignore[index]
-        return h * 1e-3, od * 1e-3
-    return 0.16 * d, 2.0 * d
-
-
 def read_joint_file(path: str) -> tuple[InputDocument, JointSpec]:
     """Load and validate a joint file (InputError names the file and the key)."""
     doc = load_toml(path)
@@ -451,6 +385,94 @@ def read_joint_file(path: str) -> tuple[InputDocument, JointSpec]:
         return doc, joint_from_data(doc.data)
     except InputError as err:
         raise err.with_source(doc.path) from None
+
+
+def joint_from_data(data: dict[str, Any]) -> JointSpec:
+    """Validate a joint file's TOML data, resolve every default and check that the parts fit.
+
+    One reader per table below, in the order the defaults depend on each other:
+    temperatures, bolt, clamped parts and washers, nut or tapped hole, plain shank,
+    embedding, tightening, service, requirements, skipped checks, distributions.
+    """
+    raw = read_table(JOINT, data)
+    rec = Defaults()
+    srv = raw["service"] or empty(SERVICE)
+    T_asm, T_srv = service_temperatures(srv, rec)
+    b = raw["bolt"]
+    thr, grd = thread_and_grade(b)
+    head = rec.pick("bolt.head", b["head"], "hex", "hex")
+    bolt_mat = bolt_material(b, grd, rec)
+    dW = b["bearing_diameter"]
+    if dW is None:
+        dW, note = geometry.head_bearing_diameter(thr, head)
+        rec.note("bolt.bearing_diameter", note)
+    if raw["nut"] is not None and raw["tapped_hole"] is not None:
+        raise InputError("give [nut] or [tapped_hole], not both", key="tapped_hole")
+    layers = stack(raw, thr, T_srv, rec)
+    lK = sum(layer.thickness for layer in layers)
+    nut = tapped = None
+    T_bolt = b["temperature"] if b["temperature"] is not None else T_srv
+    if raw["tapped_hole"] is not None:
+        tapped = tapped_hole(raw["tapped_hole"], b["length"] - lK, T_srv, rec)
+    else:
+        nut = nut_table(raw["nut"], thr, grd, bolt_mat, T_bolt, rec)
+    bolt = BoltSpec(
+        thr,
+        grd,
+        b["length"],
+        0.0,
+        b["shank_diameter"],
+        head,
+        dW,
+        bolt_mat,
+        T_bolt,
+        b["rolled"] or "before",
+    )
+    bolt = replace(bolt, shank_length=shank(b, bolt, lK, rec))
+    rough, amount = embedding(raw["embedding"], rec)
+    tight = tightening(raw["tightening"] or empty(TIGHTENING), thr, grd, rec)
+    service = service_loads(srv, T_srv, T_asm, rec)
+    requirements = requirement_table(raw["requirements"], service, rec)
+    skips = skipped_checks(raw["skip"])
+    from ..studies.scatter import parse_distributions
+
+    parse_distributions(raw["distributions"])  # validated here, used by scatter
+    given = given_keys(raw)
+    spec = JointSpec(
+        title=raw["title"] or "untitled joint",
+        bolt=bolt,
+        nut=nut,
+        tapped_hole=tapped,
+        layers=layers,
+        embedding_amount=amount,
+        roughness=rough,
+        tightening=tight,
+        service=service,
+        requirements=requirements,
+        clamp_model=raw["clamp_model"] or "vdi2230",
+        skips=skips,
+        defaults=rec.as_tuple(),
+        distributions=raw["distributions"],
+        given=given,
+    )
+    geometry.check_fit(spec, given)
+    return spec
+
+
+def service_temperatures(srv: dict[str, Any], rec: Defaults) -> tuple[float, float]:
+    """Assembly and service temperature [K] (``[service]``); the parts default to them."""
+    T_asm = rec.pick("service.assembly_temperature", srv["assembly_temperature"], ROOM, "20 degC")
+    T_srv = rec.pick("service.temperature", srv["temperature"], T_asm, "assembly temperature")
+    return T_asm, T_srv
+
+
+def bolt_material(b: dict[str, Any], grd: Any, rec: Defaults) -> PartMaterial:
+    """The bolt's material: given, or the grade's own steel (its catalog temperature tables)."""
+    pm = part_material(b, "bolt", grd.material_key, Defaults())
+    if b["material"] is None and b["modulus"] is None:
+        rec.note("bolt.material", f"{grd.material_key} (from grade {grd.name})")
+        return PartMaterial(f"{grd.material_key} (grade {grd.name})", pm.material)
+    return pm
 
 
 def _family(key: str) -> str:
@@ -469,444 +491,193 @@ def _family(key: str) -> str:
     return "general"
 
 
-def _material(raw: dict[str, Any], key: str, default: str | None, defaults: list) -> PartMaterial:
-    name = raw.get("material")
-    mat = None
-    if name is None and raw.get("modulus") is None:
-        if default is None:
-            raise InputError(
-                "required key is missing (give material, or modulus and expansion)",
-                key=f"{key}.material",
-            )
-        name = default
-        defaults.append((f"{key}.material", default))
-    if name is not None:
-        try:
-            mat = catalog_material(name)
-        except InputError as err:
-            raise InputError(err.detail, key=f"{key}.material") from None
-    if mat is None and raw.get("expansion") is None:
-        if default is None:
-            raise InputError(
-                "a part given by modulus needs its expansion too (or a material)",
-                key=f"{key}.expansion",
-            )
-        mat = catalog_material(default)  # the modulus overrides; expansion from the default
-        defaults.append((f"{key}.expansion", f"from {default}"))
-    label = mat.key if mat is not None else "user modulus"
-    return PartMaterial(label, mat, raw.get("modulus"), raw.get("expansion"))
-
-
-def _check_temperature(pm: PartMaterial, T: float, key: str) -> None:
-    """The catalog tables must cover ``T``: no silent extrapolation."""
-    if pm.material is None or (pm.modulus is not None and pm.expansion is not None):
-        return
-    lo, hi = pm.material.valid_range()
-    if not lo - 1e-9 <= T <= hi + 1e-9:
-        raise InputError(
-            f"{T - 273.15:g} degC is outside the data of material {pm.material.key!r} "
-            f"({lo - 273.15:g} to {hi - 273.15:g} degC)",
-            key=key,
-        )
-
-
-def joint_from_data(data: dict[str, Any]) -> JointSpec:
-    """Validate a joint file's TOML data and resolve every default."""
-    raw = read_table(JOINT, data)
-    defaults: list[tuple[str, str]] = []
-
-    def dflt(key: str, text: str) -> None:
-        defaults.append((key, text))
-
-    # --- service temperatures first: parts default to them
-    srv = raw["service"] or {k.name: None for k in SERVICE.keys}
-    T_asm = srv["assembly_temperature"]
-    if T_asm is None:
-        T_asm = ROOM
-        dflt("service.assembly_temperature", "20 degC")
-    T_srv = srv["temperature"]
-    if T_srv is None:
-        T_srv = T_asm
-        dflt("service.temperature", "assembly temperature")
-
-    # --- bolt
-    b = raw["bolt"]
-    try:
-        thr = catalog_thread(b["thread"])
-    except InputError as err:
-        raise InputError(err.detail, key="bolt.thread") from None
-    try:
-        grd = catalog_grade(b["grade"], thr.d)
-    except InputError as err:
-        raise InputError(err.detail, key="bolt.grade") from None
-    head = b["head"] or "hex"
-    if b["head"] is None:
-        dflt("bolt.head", "hex")
-    bolt_mat_raw = dict(b)
-    bolt_mat = _material(bolt_mat_raw, "bolt", grd.material_key, [])
-    if b["material"] is None and b["modulus"] is None:
-        # the grade's own steel: its modulus and expansion at 20 degC, temperature tables
-        # from the grade's catalog material
-        bolt_mat = PartMaterial(f"{grd.material_key} (grade {grd.name})", bolt_mat.material)
-        dflt("bolt.material", f"{grd.material_key} (from grade {grd.name})")
-    T_bolt = b["temperature"] if b["temperature"] is not None else T_srv
-
-    if b["bearing_diameter"] is not None:
-        dW = b["bearing_diameter"]
-    elif head == "socket":
-        if thr.socket_head_diameter is None:
-            raise InputError(
-                f"no standard socket head for {thr.designation}; give bearing_diameter",
-                key="bolt.bearing_diameter",
-            )
-        dW = thr.socket_head_diameter
-        dflt("bolt.bearing_diameter", f"{dW * 1e3:g} mm (socket head d_k, ISO 4762)")
-    else:
-        dW = bearing_face_diameter(thr.head_across_flats)
-        dflt("bolt.bearing_diameter", f"{dW * 1e3:.4g} mm (bearing face d_w,min of the hex head)")
-
-    # --- nut or tapped hole
-    if raw["nut"] is not None and raw["tapped_hole"] is not None:
-        raise InputError("give [nut] or [tapped_hole], not both", key="tapped_hole")
-    nut = tapped = None
-    layers_raw = raw["clamped"]
-    if not layers_raw:
+def stack(raw: dict[str, Any], thr: Any, T_srv: float, rec: Defaults) -> tuple[LayerSpec, ...]:
+    """Head-side washers, the ``[[clamped]]`` parts, nut-side washers, head side first."""
+    clamped, washers = raw["clamped"], raw["washer"] or []
+    if not clamped:
         raise InputError("at least one clamped part is needed", key="clamped")
-
-    # --- layers: head-side washers, clamped parts, nut-side washers
-    washers = raw["washer"] or []
-    hole_default = thr.hole_medium
-    first_hole = layers_raw[0]["hole"] or hole_default
+    first_hole = clamped[0]["hole"]
     if first_hole is None:
-        raise InputError(
-            f"no standard clearance hole for {thr.designation}; give hole", key="clamped[1].hole"
-        )
-    layers: list[LayerSpec] = []
-
-    def layer_from(r: dict[str, Any], key: str, kind: str, name: str) -> LayerSpec:
-        mat = _material(r, key, "steel" if kind == "washer" else None, defaults)
-        T = r.get("temperature")
-        T = T_srv if T is None else T
-        if kind == "washer":
-            if r["thickness"] is None or r["outer_diameter"] is None:
-                h_w, od_w = washer_default(thr.d)
-                r = dict(r)
-                if r["thickness"] is None:
-                    r["thickness"] = h_w
-                    defaults.append((f"{key}.thickness", f"{h_w * 1e3:g} mm (ISO 7089)"))
-                if r["outer_diameter"] is None:
-                    r["outer_diameter"] = od_w
-                    defaults.append((f"{key}.outer_diameter", f"{od_w * 1e3:g} mm (ISO 7089)"))
-            hole = r["inner_diameter"] or first_hole
-            if r["inner_diameter"] is None:
-                defaults.append((f"{key}.inner_diameter", f"{hole * 1e3:g} mm (the hole)"))
-            if hole < thr.d * 0.999:
-                raise InputError(
-                    f"inner diameter {hole * 1e3:g} mm is smaller than the bolt ({thr.d * 1e3:g} mm)",
-                    key=f"{key}.inner_diameter",
-                )
-            od = r["outer_diameter"]
-            if od <= hole:
-                raise InputError(
-                    "outer diameter must exceed the inner diameter", key=f"{key}.outer_diameter"
-                )
-        else:
-            hole = r["hole"]
-            if hole is None and hole_default is not None:
-                defaults.append((f"{key}.hole", f"{hole_default * 1e3:g} mm (ISO 273 medium)"))
-            if hole is None:
-                if hole_default is None:
-                    raise InputError(
-                        f"no standard clearance hole for {thr.designation}; give hole",
-                        key=f"{key}.hole",
-                    )
-                hole = hole_default
-            od = r["outer_diameter"]
-            if od is None and r.get("kind") != "sleeve":
-                defaults.append((f"{key}.outer_diameter", "wide enough for a full cone"))
-            if od is not None and od <= hole:
-                raise InputError("outer diameter must exceed the hole", key=f"{key}.outer_diameter")
-            if r["kind"] == "sleeve" and od is None:
-                raise InputError("a sleeve needs its outer_diameter", key=f"{key}.outer_diameter")
-        if hole <= thr.d * 0.999 and kind != "washer":
-            raise InputError(
-                f"hole {hole * 1e3:g} mm is smaller than the bolt ({thr.d * 1e3:g} mm)",
-                key=f"{key}.hole",
-            )
-        pG = r.get("limiting_pressure")
-        if pG is None and mat.material is not None and mat.material.pG is not None:
-            pG = mat.material.pG
-        return LayerSpec(
-            name,
-            kind if kind == "washer" else (r["kind"] or "plate"),
-            r["thickness"],
-            hole,
-            od,
-            mat,
-            T,
-            pG,
-            _family(mat.material.key) if mat.material else "general",
-        )
-
+        first_hole = geometry.clearance_hole(thr, "clamped[1]")[0]
+    out: list[LayerSpec] = []
     for n, w in enumerate(washers):
         if (w["side"] or "head") == "head":
-            layers.append(layer_from(w, f"washer[{n + 1}]", "washer", f"washer {n + 1}"))
-    for n, c in enumerate(layers_raw):
-        layers.append(layer_from(c, f"clamped[{n + 1}]", "plate", c["name"] or f"part {n + 1}"))
+            out.append(washer(w, n + 1, thr, first_hole, T_srv, rec))
+    for n, c in enumerate(clamped):
+        out.append(clamped_part(c, n + 1, thr, T_srv, rec))
     for n, w in enumerate(washers):
         if w["side"] == "nut":
             if raw["tapped_hole"] is not None:
                 raise InputError(
                     "a tapped joint has no nut-side washer", key=f"washer[{n + 1}].side"
                 )
-            layers.append(layer_from(w, f"washer[{n + 1}]", "washer", f"washer {n + 1}"))
-    lK = sum(layer.thickness for layer in layers)
+            out.append(washer(w, n + 1, thr, first_hole, T_srv, rec))
+    return tuple(out)
 
-    if raw["tapped_hole"] is not None:
-        t = raw["tapped_hole"]
-        mat = _material(t, "tapped_hole", None, defaults)
-        engagement = t["engagement"]
-        available = b["length"] - lK
-        if engagement is None:
-            engagement = available
-            dflt("tapped_hole.engagement", f"{engagement * 1e3:g} mm (bolt length - clamp length)")
-        if available <= 0:
-            raise InputError(
-                f"bolt length {b['length'] * 1e3:g} mm does not reach through the clamp length "
-                f"{lK * 1e3:g} mm",
-                key="bolt.length",
-            )
-        if engagement > available * (1 + 1e-9):
-            raise InputError(
-                f"engagement {engagement * 1e3:g} mm is longer than the bolt reaches "
-                f"({available * 1e3:g} mm beyond the clamp length)",
-                key="tapped_hole.engagement",
-            )
-        if engagement < 2 * thr.P:
-            raise InputError(
-                f"engagement {engagement * 1e3:g} mm is less than two threads",
-                key="tapped_hole.engagement",
-            )
-        Rm = t["strength"]
-        if Rm is None:
-            if mat.material is None or mat.material.Rm is None:
-                raise InputError(
-                    "give the strength of the tapped material", key="tapped_hole.strength"
-                )
-            Rm = mat.material.Rm
-        T = t["temperature"] if t["temperature"] is not None else T_srv
-        tapped = TappedHoleSpec(
-            mat, engagement, Rm, mat.material.shear_ratio if mat.material else 0.6, T
-        )
-        _check_temperature(mat, T, "tapped_hole.temperature")
-        _check_temperature(mat, T_asm, "service.assembly_temperature")
-    else:
-        nraw = raw["nut"] or {k.name: None for k in NUT.keys}
-        if raw["nut"] is None:
-            dflt("nut", "ISO 4032 hex nut matched to the bolt")
-        if nraw["material"] is None and nraw["modulus"] is None:
-            mat = bolt_mat  # a nut of the bolt's steel unless told otherwise
-        else:
-            mat = _material(nraw, "nut", None, defaults)
-        height = nraw["height"] or thr.nut_height
-        if nraw["height"] is None:
-            dflt("nut.height", f"{height * 1e3:g} mm (ISO 4032)")
-        dWn = nraw["bearing_diameter"] or bearing_face_diameter(thr.head_across_flats)
-        Rm = nraw["strength"] or grd.Rm
-        if head != "stud" and b["length"] < lK + height * (1 - 1e-9):
-            raise InputError(
-                f"bolt length {b['length'] * 1e3:g} mm is shorter than clamp length plus nut "
-                f"({(lK + height) * 1e3:g} mm)",
-                key="bolt.length",
-            )
-        T_nut = nraw["temperature"] if nraw["temperature"] is not None else T_bolt
-        _check_temperature(mat, T_nut, "nut.temperature")
-        _check_temperature(mat, T_asm, "service.assembly_temperature")
-        nut = NutSpec(
-            height,
-            dWn,
-            mat,
-            Rm,
-            mat.material.shear_ratio if mat.material else 0.6,
-            nraw["limiting_pressure"],
-            T_nut,
-        )
 
-    # --- plain shank
-    if b["shank_length"] is not None:
-        shank = b["shank_length"]
-    elif head == "stud":
-        shank = 0.0
-        dflt("bolt.shank_length", "0 (stud threaded through the clamp length)")
-    else:
-        if head == "socket":
-            # ISO 4762 reference thread length b = 2 d + 12 mm (from memory)
-            shank = max(0.0, b["length"] - (2 * thr.d + 12e-3))
-            dflt("bolt.shank_length", f"{shank * 1e3:g} mm (ISO 4762 thread length 2d + 12 mm)")
-        else:
-            shank = float(default_shank_length(thr.d, b["length"]))
-            dflt("bolt.shank_length", f"{shank * 1e3:g} mm (ISO 4014 thread length)")
-    if shank > lK * (1 + 1e-9):
-        raise InputError(
-            f"the plain shank ({shank * 1e3:g} mm) is longer than the clamp length "
-            f"({lK * 1e3:g} mm): the thread would not reach the "
-            f"{'tapped hole' if tapped else 'nut'}; choose a shorter bolt or give shank_length",
-            key="bolt.length" if b["shank_length"] is None else "bolt.shank_length",
-        )
-    if b["shank_diameter"] is not None and b["shank_diameter"] >= thr.d:
-        raise InputError(
-            "a reduced shank must be thinner than the thread", key="bolt.shank_diameter"
-        )
-    if b["shank_diameter"] is not None and shank <= 0:
-        raise InputError("a reduced shank needs shank_length", key="bolt.shank_length")
-
-    # bearing faces must be wider than the holes they sit on
-    if dW <= layers[0].hole:
-        raise InputError(
-            f"bearing diameter {dW * 1e3:.4g} mm is not larger than the hole "
-            f"{layers[0].hole * 1e3:.4g} mm under the head",
-            key="bolt.bearing_diameter",
-        )
-    if nut is not None and nut.bearing_diameter <= layers[-1].hole:
-        raise InputError(
-            f"bearing diameter {nut.bearing_diameter * 1e3:.4g} mm is not larger than the hole "
-            f"{layers[-1].hole * 1e3:.4g} mm under the nut",
-            key="nut.bearing_diameter",
-        )
-
-    bolt = BoltSpec(
-        thr,
-        grd,
-        b["length"],
-        min(shank, lK),
-        b["shank_diameter"],
-        head,
-        dW,
-        bolt_mat,
-        T_bolt,
-        b["rolled"] or "before",
+def _layer(
+    r: dict[str, Any], key: str, kind: str, name: str, hole: float, od: Any, mat, T_srv: float
+) -> LayerSpec:
+    pG = r.get("limiting_pressure")
+    if pG is None and mat.material is not None and mat.material.pG is not None:
+        pG = mat.material.pG
+    T = r.get("temperature")
+    return LayerSpec(
+        name,
+        kind,
+        r["thickness"],
+        hole,
+        od,
+        mat,
+        T_srv if T is None else T,
+        pG,
+        _family(mat.material.key) if mat.material else "general",
+        key,
     )
 
-    # --- embedding
-    emb = raw["embedding"] or {"roughness": None, "amount": None}
+
+def washer(
+    w: dict[str, Any], n: int, thr: Any, first_hole: float, T_srv: float, rec: Defaults
+) -> LayerSpec:
+    """One ``[[washer]]``: ISO 7089 thickness and outer diameter, the hole inside by default."""
+    key = f"washer[{n}]"
+    mat = part_material(w, key, "steel", rec)
+    h_w, od_w = geometry.plain_washer(thr.d)
+    w = dict(w)
+    w["thickness"] = rec.pick(
+        f"{key}.thickness", w["thickness"], h_w, f"{h_w * 1e3:g} mm (ISO 7089)"
+    )
+    od = rec.pick(
+        f"{key}.outer_diameter", w["outer_diameter"], od_w, f"{od_w * 1e3:g} mm (ISO 7089)"
+    )
+    hole = w["inner_diameter"] or first_hole
+    if w["inner_diameter"] is None:
+        rec.note(f"{key}.inner_diameter", f"{hole * 1e3:g} mm (the hole)")
+    return _layer(w, key, "washer", f"washer {n}", hole, od, mat, T_srv)
+
+
+def clamped_part(c: dict[str, Any], n: int, thr: Any, T_srv: float, rec: Defaults) -> LayerSpec:
+    """One ``[[clamped]]`` plate or sleeve: ISO 273 medium hole, a full cone by default."""
+    key = f"clamped[{n}]"
+    mat = part_material(c, key, None, rec)
+    hole = c["hole"]
+    if hole is None:
+        hole, note = geometry.clearance_hole(thr, key)
+        rec.note(f"{key}.hole", note)
+    od = c["outer_diameter"]
+    if od is None and c["kind"] != "sleeve":
+        rec.note(f"{key}.outer_diameter", "wide enough for a full cone")
+    return _layer(c, key, c["kind"] or "plate", c["name"] or f"part {n}", hole, od, mat, T_srv)
+
+
+def tapped_hole(t: dict[str, Any], available: float, T_srv: float, rec: Defaults) -> TappedHoleSpec:
+    """The ``[tapped_hole]``: material, engagement (all the bolt reaches by default), strength."""
+    mat = part_material(t, "tapped_hole", None, rec)
+    engagement = t["engagement"]
+    if engagement is None:
+        engagement = available
+        rec.note("tapped_hole.engagement", f"{engagement * 1e3:g} mm (bolt length - clamp length)")
+    Rm = t["strength"]
+    if Rm is None:
+        if mat.material is None or mat.material.Rm is None:
+            raise InputError("give the strength of the tapped material", key="tapped_hole.strength")
+        Rm = mat.material.Rm
+    T = t["temperature"] if t["temperature"] is not None else T_srv
+    return TappedHoleSpec(mat, engagement, Rm, mat.material.shear_ratio if mat.material else 0.6, T)
+
+
+def nut_table(
+    nraw: dict[str, Any] | None,
+    thr: Any,
+    grd: Any,
+    bolt_mat: PartMaterial,
+    T_bolt: float,
+    rec: Defaults,
+) -> NutSpec:
+    """The ``[nut]``: an ISO 4032 nut of the bolt's steel and strength unless told otherwise."""
+    if nraw is None:
+        rec.note("nut", "ISO 4032 hex nut matched to the bolt")
+        nraw = empty(NUT)
+    if nraw["material"] is None and nraw["modulus"] is None:
+        mat = bolt_mat
+    else:
+        mat = part_material(nraw, "nut", None, rec)
+    height = nraw["height"] or thr.nut_height
+    if nraw["height"] is None:
+        rec.note("nut.height", f"{height * 1e3:g} mm (ISO 4032)")
+    return NutSpec(
+        height,
+        nraw["bearing_diameter"] or geometry.nut_bearing_diameter(thr),
+        mat,
+        nraw["strength"] or grd.Rm,
+        mat.material.shear_ratio if mat.material else 0.6,
+        nraw["limiting_pressure"],
+        nraw["temperature"] if nraw["temperature"] is not None else T_bolt,
+    )
+
+
+def shank(b: dict[str, Any], bolt: BoltSpec, lK: float, rec: Defaults) -> float:
+    """Plain shank inside the clamp length [m]: given, or the head standard's thread length."""
+    if b["shank_length"] is not None:
+        value = b["shank_length"]
+    else:
+        value, note = geometry.plain_shank(bolt.thread, bolt.length, bolt.head)
+        rec.note("bolt.shank_length", note)
+    if value > lK * (1 + 1e-9):
+        return value  # check_fit names it
+    return min(value, lK)
+
+
+def embedding(emb: dict[str, Any] | None, rec: Defaults) -> tuple[float, float | None]:
+    """``[embedding]``: roughness R_z (6.3 um) or an amount f_Z given directly [m]."""
+    emb = emb or empty(EMBEDDING)
     rough = emb["roughness"]
     if rough is None:
         rough = 6.3e-6
         if emb["amount"] is None:
-            dflt("embedding.roughness", "6.3 um")
+            rec.note("embedding.roughness", "6.3 um")
     if rough >= 160e-6:
         raise InputError(
             "roughness of 160 um or more is outside the VDI 2230-1 table", key="embedding.roughness"
         )
+    return rough, emb["amount"]
 
-    # --- tightening
-    tr = raw["tightening"] or {k.name: None for k in TIGHTENING.keys}
-    method = tr["method"] or "torque"
-    if tr["method"] is None:
-        dflt("tightening.method", "torque")
-    if tr["torque"] is not None and tr["preload"] is not None:
-        raise InputError("give torque or preload, not both", key="tightening.preload")
-    if method in ("angle", "yield") and (tr["torque"] is not None or tr["preload"] is not None):
-        raise InputError(
-            f"method {method!r} tightens to the yield point; remove torque and "
-            'preload, or use method "torque"',
-            key="tightening.method",
-        )
-    if method == "tension" and tr["torque"] is not None:
-        raise InputError(
-            "a tensioner sets a preload, not a torque; give preload", key="tightening.torque"
-        )
-    muG = tr["thread_friction"]
-    if muG is None:
-        muG = (0.10, 0.16)
-        dflt("tightening.thread_friction", "0.10..0.16")
-    muK = tr["head_friction"]
-    if muK is None:
-        muK = muG
-        dflt("tightening.head_friction", "as thread friction")
-    for name, mu in (("thread_friction", muG), ("head_friction", muK)):
-        if mu[1] > 1.0:
-            raise InputError(
-                f"friction coefficient {mu[1]:g} is not plausible (above 1)",
-                key=f"tightening.{name}",
-            )
-    nu = tr["utilization"] if tr["utilization"] is not None else 0.9
-    if tr["utilization"] is None:
-        dflt("tightening.utilization", "0.9")
-    if nu > 1.0:
-        raise InputError("utilization must not exceed 1", key="tightening.utilization")
-    tol = tr["torque_tolerance"] if tr["torque_tolerance"] is not None else 0.06
-    if tr["torque_tolerance"] is None and method == "torque":
-        dflt("tightening.torque_tolerance", "+-6 %")
-    if tol >= 0.5:
-        raise InputError("torque tolerance must be below 0.5", key="tightening.torque_tolerance")
-    if tr["preload"] is not None:
-        capacity = thr.As * grd.Rm
-        if tr["preload"] > capacity:
-            raise InputError(
-                f"preload {tr['preload'] / 1e3:g} kN is above the bolt's tensile strength "
-                f"(As x Rm = {capacity / 1e3:.4g} kN)",
-                key="tightening.preload",
-            )
-    tightening = TighteningSpec(
-        method, tr["torque"], tr["preload"], muG, muK, tr["scatter"], nu, tol
-    )
 
-    # --- service
+def service_loads(srv: dict[str, Any], T_srv: float, T_asm: float, rec: Defaults) -> ServiceSpec:
+    """``[service]``: axial load range, shear load, load introduction factor n (0.5)."""
     FA = srv["axial_load"] if srv["axial_load"] is not None else (0.0, 0.0)
-    n = srv["load_height"] if srv["load_height"] is not None else 0.5
-    if srv["load_height"] is None:
-        dflt("service.load_height", "0.5")
+    n = rec.pick("service.load_height", srv["load_height"], 0.5, "0.5")
     if n > 1.0:
         raise InputError("load_height n must lie in (0, 1]", key="service.load_height")
-    service = ServiceSpec(FA, srv["shear_load"] or 0.0, n, T_srv, T_asm)
+    return ServiceSpec(FA, srv["shear_load"] or 0.0, n, T_srv, T_asm)
 
-    # --- requirements
-    rq = raw["requirements"] or {k.name: None for k in REQUIREMENTS.keys}
-    alternating = FA[1] != FA[0]
+
+def requirement_table(
+    rq: dict[str, Any] | None, service: ServiceSpec, rec: Defaults
+) -> RequirementSpec:
+    """``[requirements]``: residual clamp load, slip friction and safety, fatigue safety."""
+    rq = rq or empty(REQUIREMENTS)
+    alternating = service.axial_load[1] != service.axial_load[0]
     slip_safety = rq["slip_safety"] or (1.8 if alternating else 1.2)
     if service.shear_load > 0 and rq["slip_safety"] is None:
-        dflt("requirements.slip_safety", f"{slip_safety:g}")
+        rec.note("requirements.slip_safety", f"{slip_safety:g}")
     if service.shear_load > 0 and rq["slip_friction"] is None:
-        dflt("requirements.slip_friction", "0.15")
-    requirements = RequirementSpec(
+        rec.note("requirements.slip_friction", "0.15")
+    return RequirementSpec(
         rq["residual_clamp_load"] or 0.0,
         rq["slip_friction"] or 0.15,
         slip_safety,
         rq["fatigue_safety"] or 1.2,
     )
 
-    # --- temperatures inside the catalog data
-    _check_temperature(bolt.material, T_bolt, "bolt.temperature")
-    _check_temperature(bolt.material, T_asm, "service.assembly_temperature")
-    for layer in layers:
-        _check_temperature(layer.material, layer.temperature, f"layer {layer.name!r} temperature")
-        _check_temperature(layer.material, T_asm, "service.assembly_temperature")
 
-    skips = []
-    for n_s, s in enumerate(raw["skip"] or []):
+def skipped_checks(rows: list[dict[str, Any]] | None) -> tuple[tuple[str, str], ...]:
+    """``[[skip]]``: checks switched off, each once and with a reason."""
+    skips: list[tuple[str, str]] = []
+    for n, s in enumerate(rows or []):
         if not s["reason"].strip():
-            raise InputError("a skipped check needs a reason", key=f"skip[{n_s + 1}].reason")
+            raise InputError("a skipped check needs a reason", key=f"skip[{n + 1}].reason")
         if any(s["check"] == x for x, _ in skips):
-            raise InputError(f"check {s['check']!r} is skipped twice", key=f"skip[{n_s + 1}].check")
+            raise InputError(f"check {s['check']!r} is skipped twice", key=f"skip[{n + 1}].check")
         skips.append((s["check"], s["reason"].strip()))
-
-    from ..studies.scatter import parse_distributions
-
-    parse_distributions(raw["distributions"])  # validated here, used by scatter
-    return JointSpec(
-        title=raw["title"] or "untitled joint",
-        bolt=bolt,
-        nut=nut,
-        tapped_hole=tapped,
-        layers=tuple(layers),
-        embedding_amount=emb["amount"],
-        roughness=rough,
-        tightening=tightening,
-        service=service,
-        requirements=requirements,
-        clamp_model=raw["clamp_model"] or "vdi2230",
-        skips=tuple(skips),
-        defaults=tuple(defaults),
-        distributions=raw["distributions"],
-    )
+    return tuple(skips)

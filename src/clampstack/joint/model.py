@@ -93,6 +93,7 @@ class LayerSpec:
     temperature: float
     limiting_pressure: float | None
     family: str  # material family for the Wileman fit
+    key: str = ""  # where it came from in the file ("clamped[2]", "washer[1]"), for errors
 
 
 @dataclass(frozen=True)
@@ -142,6 +143,7 @@ class JointSpec:
     skips: tuple[tuple[str, str], ...] = ()
     defaults: tuple[tuple[str, str], ...] = field(default=())
     distributions: dict | None = None  # validated [distributions] table (scatter studies)
+    given: frozenset[str] = frozenset()  # key paths the file set ("bolt.shank_length", ...)
 
     @property
     def clamp_length(self) -> float:
