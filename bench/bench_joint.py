@@ -33,13 +33,12 @@ def main() -> None:
     prep = prepare(spec)
     T = np.linspace(lo, hi, 1000)
     t_chain = best_of(lambda: _evaluate(prep, T))
-    import tomllib
-
+    from clampstack.inputs.joint import read_joint_file
     from clampstack.studies.size import size
 
-    data = tomllib.loads((ROOT / "examples" / "m16-through-bolt-alternating.toml").read_text())
-    t_size = best_of(lambda: size(data), 3)
-    res = size(data)
+    _, base = read_joint_file(str(ROOT / "examples" / "m16-through-bolt-alternating.toml"))
+    t_size = best_of(lambda: size(base), 3)
+    res = size(base)
     print("\njoint")
     print(f"  check of one joint (network states, checks, heat cycle)  {t_check * 1e3:8.2f} ms")
     print(

@@ -318,17 +318,22 @@ def size(file: str, as_json: bool, units: str) -> None:
 
     doc = load_toml(file)
     if "flange" in doc.data:  # a flange file: bolts x grade x method x bolt count
+        from .inputs.flange import flange_from_data
         from .outputs.size import flange_size_text
         from .studies.flange_size import size_flange
 
-        fres = _in_file(doc.path, size_flange, doc.data)
+        fspec = _in_file(doc.path, flange_from_data, doc.data)
+        fres = _in_file(doc.path, size_flange, fspec)
         if as_json:
             _print_json(fres)
         else:
             click.echo(flange_size_text(fres, units))
         sys.exit(EXIT_OK if fres["designs"] else EXIT_FAIL)
+    from .inputs.joint import joint_from_data
+
+    spec = _in_file(doc.path, joint_from_data, doc.data)
     progress = _progress(2000, as_json, "size")  # candidates: shown only on a terminal
-    result = _in_file(doc.path, run_size, doc.data, progress)
+    result = _in_file(doc.path, run_size, spec, progress)
     if progress is not None:
         progress(None)
     if as_json:

@@ -8,6 +8,7 @@ import tomllib
 
 import pytest
 from click.testing import CliRunner
+from reference_candidates import candidate_data
 
 from clampstack.catalog import grade as catalog_grade
 from clampstack.cli import main
@@ -17,7 +18,6 @@ from clampstack.joint import analyse
 from clampstack.studies.size import (
     METHODS,
     METRIC_GRADES,
-    candidate_data,
     candidate_threads,
     size,
 )
@@ -35,7 +35,7 @@ def _ok(data, base, thr, g, method):
 @pytest.mark.parametrize("example", ["m16-through-bolt-alternating.toml"])
 def test_every_design_passes_check_and_smaller_fails(examples_dir, example):
     data = tomllib.loads((examples_dir / example).read_text())
-    result = size(data)
+    result = size(joint_from_data(data))
     assert result.designs
     base = joint_from_data(data)
     sizes = candidate_threads(base.bolt.thread)

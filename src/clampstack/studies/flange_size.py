@@ -15,47 +15,88 @@ the fewest bolts of the smallest size.
 
 from __future__ import annotations
 
-import copy
 import math
+from dataclasses import replace
 from typing import Any
 
-from ..catalog import grades, threads
+from ..catalog import Thread, grades, threads
+from ..catalog import grade as catalog_grade
+from ..catalog import material as catalog_material
+from ..catalog.parts import bearing_face_diameter
 from ..errors import InputError
 from ..flange.analysis import analyse_flange, asme_app2
-from ..inputs.flange import flange_from_data
+from ..flange.model import FlangeSpec, bolt_allowable_stress, check_fit, ring_outer_diameter
+from ..joint.geometry import clearance_hole
+from ..joint.model import PartMaterial
 from .size import METRIC_GRADES, UNIFIED_GRADES
 
 FLANGE_METHODS = ("torque", "tension")
 
 
-def flange_candidate_data(
-    data: dict[str, Any], thread: str, grade: str, method: str, count: int
-) -> dict[str, Any]:
-    """The flange file's data with the bolts replaced by one candidate."""
-    d = copy.deepcopy(data)
-    b = d.setdefault("bolt", {})
-    for k in ("hole", "bearing_diameter"):
-        b.pop(k, None)
-    b["thread"] = thread
-    b["grade"] = grade
-    d["flange"] = dict(d["flange"])
-    d["flange"]["bolt_count"] = count
-    tr = dict(d.get("tightening") or {})
-    for k in ("torque", "preload", "order"):
-        tr.pop(k, None)
-    if tr.get("pattern") == "custom" or (
-        isinstance(tr.get("pattern"), list) and "custom" in tr["pattern"]
-    ):
-        tr.pop("pattern")
-    tr["method"] = method
-    d["tightening"] = tr
-    d.pop("nut", None)
-    return d
+def flange_candidate_spec(
+    base: FlangeSpec, thread: Thread, grade: str, method: str, count: int
+) -> FlangeSpec:
+    """The validated flange ``base`` with its bolts replaced by one candidate.
+
+    Kept: the flange, gasket, loads, passes and what the file gave for the bolts'
+    material, allowable stresses, length and shank.  Taken anew for the candidate's
+    size with the reader's rules: the ISO 273 medium hole, the bearing face and
+    height of an ISO 4032 nut (a nut table of the file is not carried over), the
+    ring's default outer diameter, the default allowable stress; the torque,
+    preload and a custom bolt order are left open.  InputError if it does not fit
+    (:func:`~clampstack.flange.model.check_fit`).
+    """
+    given = base.given
+    grd = catalog_grade(grade, thread.d)
+    hole, hole_note = clearance_hole(thread, "bolt")
+    notes = {"bolt.hole": hole_note}
+    if "bolt.material" in given or "bolt.modulus" in given:
+        bmat = base.bolt_material
+    else:
+        m = catalog_material(grd.material_key)
+        bmat = PartMaterial(m.key, m)
+    ring_out = base.ring_outer_diameter
+    if "flange.outer_diameter" not in given:
+        ring_out = ring_outer_diameter(base.bolt_circle, hole)
+        notes["flange.outer_diameter"] = f"{ring_out * 1e3:.4g} mm"
+    Sb = base.allowable_stress
+    if "bolt.allowable_stress" not in given:
+        Sb, notes["bolt.allowable_stress"] = bolt_allowable_stress(grd, thread)
+    Sa = base.allowable_stress_ambient if "bolt.allowable_stress_ambient" in given else Sb
+    patterns, order = base.patterns, base.order
+    if "custom" in patterns:
+        n_p = len(base.passes)
+        patterns = ("cross",) * (n_p - 1) + ("circular" if n_p >= 3 else "cross",)
+    order = None
+    spec = replace(
+        base,
+        thread=thread,
+        grade=grd,
+        bolt_count=count,
+        bolt_material=bmat,
+        hole=hole,
+        bearing_diameter=bearing_face_diameter(thread.head_across_flats),
+        nut_height=thread.nut_height,
+        nut_material=None,
+        unused=tuple(k for k in base.unused if not k.startswith("nut.")),
+        ring_outer_diameter=ring_out,
+        allowable_stress=Sb,
+        allowable_stress_ambient=Sa,
+        method=method,
+        torque=None,
+        preload=None,
+        patterns=patterns,
+        order=order,
+        given=frozenset(k for k in given if not k.startswith("nut"))
+        - {"bolt.hole", "bolt.bearing_diameter", "tightening.torque", "tightening.preload"},
+    )
+    check_fit(spec)
+    kept = tuple((k, v) for k, v in spec.defaults if k not in notes)
+    return replace(spec, defaults=kept + tuple(notes.items()))
 
 
-def size_flange(data: dict[str, Any]) -> dict[str, Any]:
-    """Search the catalog for the smallest passing flange bolting (JSON-ready dict)."""
-    base = flange_from_data(data)
+def size_flange(base: FlangeSpec) -> dict[str, Any]:
+    """Search the catalog for the smallest passing flange bolting of ``base`` (JSON-ready dict)."""
     series = [
         t for t in threads() if t.system == base.thread.system and t.series == base.thread.series
     ]
@@ -75,9 +116,7 @@ def size_flange(data: dict[str, Any]) -> dict[str, Any]:
                     if math.pi * base.bolt_circle / n < 2 * thr.d:
                         break  # no room for the wrench between bolts
                     try:
-                        spec = flange_from_data(
-                            flange_candidate_data(data, thr.designation, g, method, n)
-                        )
+                        spec = flange_candidate_spec(base, thr, g, method, n)
                     except InputError:
                         continue
                     screened += 1

@@ -1,7 +1,8 @@
 """Automatic sizing: the smallest thread, grade and tightening method that pass every check.
 
 Every candidate (thread of the file's series x grade that covers the size x
-tightening method) is built from the input file with the bolt replaced: the bolt
+tightening method) is the validated joint with its bolt replaced
+(:func:`candidate_spec`, by ``dataclasses.replace``, never from the file): the bolt
 length follows the clamp length (plus nut height and two pitches of protrusion,
 or plus the engagement scaled with the diameter for a tapped hole), size-specific
 defaults (head bearing face, nut height, clearance holes not given in the file)
@@ -16,7 +17,6 @@ of the same size and method, both fail.
 
 from __future__ import annotations
 
-import copy
 import math
 from dataclasses import dataclass, replace
 from typing import Any
@@ -27,23 +27,13 @@ from ..catalog import Thread, grades, threads
 from ..catalog import grade as catalog_grade
 from ..catalog import material as catalog_material
 from ..errors import InputError
-from ..inputs.joint import joint_from_data
-from ..joint.model import PartMaterial
+from ..joint import geometry
+from ..joint.model import JointSpec, LayerSpec, PartMaterial
 from ..joint.prepare import prepare
 from ..joint.thermal import TemperatureModel
 from .sweep import _evaluate
 
 METHODS = ("torque", "yield", "tension")
-
-
-def _check_temps(pm: PartMaterial, spec) -> None:
-    """The swapped bolt material must cover the joint's temperatures (InputError if not)."""
-    lo, hi = pm.material.valid_range()
-    for T in (spec.bolt.temperature, spec.service.assembly_temperature):
-        if not lo - 1e-9 <= T <= hi + 1e-9:
-            raise InputError(
-                f"bolt material {pm.material.key!r} has no data at {T - 273.15:g} degC"
-            )
 
 
 METRIC_GRADES = (
@@ -119,45 +109,107 @@ def candidate_threads(base: Thread) -> list[Thread]:
     return sorted(out, key=lambda t: (t.d, -t.P))
 
 
-def candidate_data(
-    data: dict[str, Any], base_spec, thread: Thread, grade: str, method: str
-) -> dict[str, Any]:
-    """The input file's data with the bolt replaced by one candidate (see module doc)."""
-    d = copy.deepcopy(data)
-    bolt = d.setdefault("bolt", {})
-    for k in ("shank_length", "shank_diameter", "bearing_diameter"):
-        bolt.pop(k, None)
-    bolt["thread"] = thread.designation
-    bolt["grade"] = grade
-    lK = base_spec.clamp_length
-    if base_spec.tapped_hole is not None:
-        ratio = base_spec.tapped_hole.engagement / base_spec.bolt.thread.d
-        engagement = ratio * thread.d
-        d["tapped_hole"] = dict(d.get("tapped_hole") or {})
-        d["tapped_hole"]["engagement"] = f"{engagement * 1e3:.6g} mm"
-        length = lK + engagement
+def _layer(layer: LayerSpec, thr: Thread, first_hole: float, given: frozenset[str]) -> LayerSpec:
+    """A layer of the base joint on the candidate bolt: size defaults taken anew."""
+    key = layer.key
+    if layer.kind == "washer":
+        h_w, od_w = geometry.plain_washer(thr.d)
+        return replace(
+            layer,
+            thickness=layer.thickness if f"{key}.thickness" in given else h_w,
+            outer_diameter=layer.outer_diameter if f"{key}.outer_diameter" in given else od_w,
+            hole=layer.hole if f"{key}.inner_diameter" in given else first_hole,
+        )
+    if f"{key}.hole" in given:
+        return layer
+    return replace(layer, hole=geometry.clearance_hole(thr, key)[0])
+
+
+def candidate_spec(base: JointSpec, thr: Thread, grade: str, method: str) -> JointSpec:
+    """The validated joint ``base`` with its bolt replaced by one candidate (see module doc).
+
+    What the file gave is kept; what followed from the bolt's size (bearing face,
+    plain shank, nut height, clearance holes and washers not given) is taken anew
+    for the candidate with the rules of the input reader (:mod:`clampstack.joint.geometry`),
+    the torque or preload is left open, and the candidate is checked to fit
+    (:func:`~clampstack.joint.geometry.check_fit`); InputError if it does not.
+    """
+    given = base.given
+    grd = catalog_grade(grade, thr.d)
+    b = base.bolt
+    notes: dict[str, str] = {}
+    if "bolt.material" in given or "bolt.modulus" in given:
+        bolt_mat = b.material
     else:
-        d["nut"] = {k: v for k, v in (d.get("nut") or {}).items() if k != "height"}
-        length = lK + thread.nut_height + 2 * thread.P
-    bolt["length"] = f"{math.ceil(length * 1e3 - 1e-9):d} mm"
-    tr = dict(d.get("tightening") or {})
-    tr.pop("torque", None)
-    tr.pop("preload", None)
-    tr["method"] = method
-    d["tightening"] = tr
-    return d
+        bolt_mat = PartMaterial(
+            f"{grd.material_key} (grade {grd.name})", catalog_material(grd.material_key)
+        )
+        notes["bolt.material"] = f"{grd.material_key} (from grade {grd.name})"
+    clamped = [x for x in base.layers if x.kind != "washer"]
+    first_hole = clamped[0].hole if "clamped[1].hole" in given else None
+    if first_hole is None:
+        first_hole = geometry.clearance_hole(thr, "clamped[1]")[0]
+    layers = tuple(_layer(x, thr, first_hole, given) for x in base.layers)
+    lK0 = base.clamp_length  # the bolt length follows the base joint's clamp length
+    nut, tapped = base.nut, base.tapped_hole
+    if tapped is not None:
+        engagement = tapped.engagement / b.thread.d * thr.d
+        tapped = replace(tapped, engagement=engagement)
+        length = lK0 + engagement
+    else:
+        assert nut is not None
+        own_mat = "nut.material" in given or "nut.modulus" in given
+        mat = nut.material if own_mat else bolt_mat
+        nut = replace(
+            nut,
+            height=thr.nut_height,
+            bearing_diameter=nut.bearing_diameter
+            if "nut.bearing_diameter" in given
+            else geometry.nut_bearing_diameter(thr),
+            material=mat,
+            Rm=nut.Rm if "nut.strength" in given else grd.Rm,
+            shear_ratio=mat.material.shear_ratio if mat.material else 0.6,
+        )
+        notes["nut.height"] = f"{thr.nut_height * 1e3:g} mm (ISO 4032)"
+        length = lK0 + thr.nut_height + 2 * thr.P
+    length = math.ceil(length * 1e3 - 1e-9) * 1e-3  # a whole number of mm
+    dW, notes["bolt.bearing_diameter"] = geometry.head_bearing_diameter(thr, b.head)
+    shank, notes["bolt.shank_length"] = geometry.plain_shank(thr, length, b.head)
+    lK = sum(x.thickness for x in layers)
+    bolt = replace(
+        b,
+        thread=thr,
+        grade=grd,
+        length=length,
+        shank_length=shank if shank > lK * (1 + 1e-9) else min(shank, lK),
+        shank_diameter=None,
+        bearing_diameter=dW,
+        material=bolt_mat,
+    )
+    tightening = replace(base.tightening, method=method, torque=None, preload=None)
+    dropped = {"bolt.shank_length", "bolt.shank_diameter", "bolt.bearing_diameter", "nut.height"}
+    keys = (given - dropped) | {"bolt.thread", "bolt.grade", "bolt.length", "tightening.method"}
+    spec = replace(
+        base,
+        bolt=bolt,
+        nut=nut,
+        tapped_hole=tapped,
+        layers=layers,
+        tightening=tightening,
+        given=keys | ({"tapped_hole.engagement"} if tapped is not None else set()),
+    )
+    geometry.check_fit(spec, spec.given)
+    return geometry.with_defaults(spec, notes)
 
 
-def size(data: dict[str, Any], progress: Any = None) -> SizeResult:
-    """Search threads x grades x methods for the Pareto-smallest passing designs."""
-    base = joint_from_data(data)
+def size(base: JointSpec, progress: Any = None) -> SizeResult:
+    """Search threads x grades x methods for the Pareto-smallest passing designs of ``base``."""
     sizes = candidate_threads(base.bolt.thread)
     grade_names = METRIC_GRADES if base.bolt.thread.system == "metric" else UNIFIED_GRADES
     known = {g.name for g in grades()}
     grade_names = tuple(g for g in grade_names if g in known)
     skipped = {name for name, _ in base.skips}
     T = np.array([base.service.temperature])
-    base_grade = base.bolt.grade.name
     strength = {}
     for g in grade_names:
         rows = [x for x in grades() if x.name == g]
@@ -173,42 +225,7 @@ def size(data: dict[str, Any], progress: Any = None) -> SizeResult:
     )
     evaluated = 0
 
-    parsed: dict[int, Any] = {}
     models: dict[tuple[int, str, str], TemperatureModel] = {}
-    own_bolt_material = any(k in (data.get("bolt") or {}) for k in ("material", "modulus"))
-    nut_raw = data.get("nut") or {}
-    own_nut_material = any(k in nut_raw for k in ("material", "modulus"))
-
-    def variant(i: int, g: str, method: str):
-        """The candidate spec: the file parsed once per size, then grade and method swapped
-        (the same result as parsing candidate_data(...), which the tests check)."""
-        if i not in parsed:
-            try:
-                parsed[i] = joint_from_data(
-                    candidate_data(data, base, sizes[i], base_grade, "torque")
-                )
-            except InputError as err:
-                parsed[i] = err
-        spec = parsed[i]
-        if isinstance(spec, InputError):
-            raise spec
-        grd = catalog_grade(g, sizes[i].d)
-        bolt_mat = spec.bolt.material
-        if not own_bolt_material:
-            bolt_mat = PartMaterial(
-                f"{grd.material_key} (grade {grd.name})", catalog_material(grd.material_key)
-            )
-        bolt = replace(spec.bolt, grade=grd, material=bolt_mat)
-        nut = spec.nut
-        if nut is not None:
-            nut = replace(
-                nut,
-                material=nut.material if own_nut_material else bolt_mat,
-                Rm=nut.Rm if "strength" in nut_raw else grd.Rm,
-            )
-        if not own_bolt_material:
-            _check_temps(bolt_mat, spec)
-        return replace(spec, bolt=bolt, nut=nut, tightening=replace(spec.tightening, method=method))
 
     def cell(i: int, g: str, method: str) -> Design | None:
         """The design at (size i, grade, method) if it passes, else None (memoised)."""
@@ -232,7 +249,7 @@ def size(data: dict[str, Any], progress: Any = None) -> SizeResult:
         memo[key] = None
         thr = sizes[i]
         try:
-            spec = variant(i, g, method)
+            spec = candidate_spec(base, thr, g, method)
             # the springs depend on the size and the materials, not on grade or method
             mkey = (i, spec.bolt.material.name, spec.nut.material.name if spec.nut else "")
             if mkey not in models:
