@@ -28,10 +28,10 @@ def best(fn, repeat=5):
 def main() -> None:
     from clampstack.inputs.joint import read_joint_file
     from clampstack.joint.prepare import service_closed_form
-    from clampstack.studies.scatter import _draw, evaluate, make_chain, parse_distributions
+    from clampstack.studies.scatter import _draw, evaluate, make_chain
 
     _, spec = read_joint_file(EXAMPLE)
-    chain = make_chain(spec, parse_distributions(spec.distributions))
+    chain = make_chain(spec, spec.distributions or {})
     n = 10**6
     rng = np.random.default_rng(1)
     x = _draw(chain, rng, n)
@@ -92,9 +92,9 @@ def main() -> None:
     t = time.perf_counter()
     code = (
         "import resource;from clampstack.inputs.joint import read_joint_file;"
-        "from clampstack.studies.scatter import scatter, parse_distributions;"
+        "from clampstack.studies.scatter import scatter;"
         f"_, s = read_joint_file({EXAMPLE!r});"
-        "scatter(s, parse_distributions(s.distributions), 10**8, seed=1);"
+        "scatter(s, s.distributions or {}, 10**8, seed=1);"
         "print(resource.getrusage(resource.RUSAGE_SELF).ru_maxrss)"
     )
     rss = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, check=True)

@@ -249,7 +249,6 @@ def scatter(file: str, samples: int, seed: int, as_json: bool, units: str) -> No
     from .errors import InputError
     from .inputs.joint import read_joint_file
     from .outputs.scatter import scatter_text
-    from .studies.scatter import parse_distributions
     from .studies.scatter import scatter as run_scatter
 
     if samples < 1:
@@ -273,7 +272,7 @@ def scatter(file: str, samples: int, seed: int, as_json: bool, units: str) -> No
             click.echo(flange_scatter_text(fres, units))
         sys.exit(EXIT_OK if fres.deterministic["ok"] else EXIT_FAIL)
     doc, spec = read_joint_file(file)
-    dists = _in_file(doc.path, parse_distributions, spec.distributions)
+    dists = spec.distributions or {}
     progress = _progress(samples, as_json, "scatter")
     result = _in_file(doc.path, run_scatter, spec, dists, samples, seed, 4, progress)
     if progress is not None:

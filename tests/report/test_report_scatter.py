@@ -15,7 +15,7 @@ from clampstack.outputs.text import fmt_number
 from clampstack.plots import binned_histogram
 from clampstack.report import render_joint_report
 from clampstack.report.joint import SCATTER_SAMPLES, report_scatter
-from clampstack.studies.scatter import parse_distributions, scatter
+from clampstack.studies.scatter import scatter
 from conftest import EXAMPLES
 
 NOW = datetime(2025, 3, 4, 5, 6, tzinfo=UTC)
@@ -50,7 +50,7 @@ def scattered(tmp_path_factory):
         files = render_joint_report(doc, r, now=NOW)
     finally:
         mp.undo()
-    sr = scatter(spec, parse_distributions(spec.distributions), 100_000, seed=0)
+    sr = scatter(spec, spec.distributions, 100_000, seed=0)
     return doc, r, files, drawn, sr
 
 

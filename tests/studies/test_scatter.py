@@ -10,8 +10,9 @@ from click.testing import CliRunner
 from scipy import integrate
 
 from clampstack.cli import main
+from clampstack.inputs.distributions import parse_distributions
 from clampstack.inputs.joint import joint_from_data
-from clampstack.studies.scatter import clopper_pearson, parse_distributions, scatter
+from clampstack.studies.scatter import clopper_pearson, scatter
 
 BASE = {
     "bolt": {"thread": "M12", "grade": "8.8", "length": "60 mm"},

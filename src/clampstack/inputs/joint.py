@@ -23,6 +23,7 @@ from ..joint.model import (
     ServiceSpec,
     TappedHoleSpec,
 )
+from .distributions import parse_distributions
 from .files import InputDocument, load_toml
 from .schema import Key, Schema, read_table
 from .tables import Defaults, empty, given_keys, part_material, thread_and_grade, tightening
@@ -434,9 +435,6 @@ def joint_from_data(data: dict[str, Any]) -> JointSpec:
     service = service_loads(srv, T_srv, T_asm, rec)
     requirements = requirement_table(raw["requirements"], service, rec)
     skips = skipped_checks(raw["skip"])
-    from ..studies.scatter import parse_distributions
-
-    parse_distributions(raw["distributions"])  # validated here, used by scatter
     given = given_keys(raw)
     spec = JointSpec(
         title=raw["title"] or "untitled joint",
@@ -452,7 +450,9 @@ def joint_from_data(data: dict[str, Any]) -> JointSpec:
         clamp_model=raw["clamp_model"] or "vdi2230",
         skips=skips,
         defaults=rec.as_tuple(),
-        distributions=raw["distributions"],
+        distributions=None
+        if raw["distributions"] is None
+        else parse_distributions(raw["distributions"]),
         given=given,
     )
     geometry.check_fit(spec, given)

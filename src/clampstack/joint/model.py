@@ -8,11 +8,68 @@ the readable output and the report can print it.
 
 from __future__ import annotations
 
+import math
 from dataclasses import dataclass, field
+
+import numpy as np
 
 from ..catalog import Grade, Material, Thread
 
 ROOM = 293.15  # K, 20 degC: the reference temperature of the catalog
+
+#: the quantities of a joint that a scatter study may vary ([distributions] keys) -> quantity kind (for units) and meaning
+DIST_KEYS: dict[str, tuple[str, str]] = {
+    "thread_friction": ("dimensionless", "thread friction mu_G"),
+    "head_friction": ("dimensionless", "head friction mu_K"),
+    "torque": ("torque", "tightening torque"),
+    "torque_factor": ("dimensionless", "torque-tool accuracy: applied / set torque"),
+    "preload": ("force", "assembly preload (tensioner)"),
+    "embedding": ("length", "embedding amount f_Z"),
+    "temperature": ("temperature", "service temperature"),
+    "axial_load": ("force", "largest axial working load"),
+    "yield_strength": ("stress", "bolt yield strength R_p0.2"),
+    "slip_friction": ("dimensionless", "interface friction mu_T"),
+}
+
+
+@dataclass(frozen=True)
+class Dist:
+    """A distribution: kind uniform | normal | lognormal | fixed, two parameters (SI)."""
+
+    kind: str
+    a: float
+    b: float = 0.0
+
+    def sample(self, rng: np.random.Generator, n: int) -> np.ndarray:
+        if self.kind == "uniform":
+            return rng.uniform(self.a, self.b, n)
+        if self.kind == "normal":
+            return rng.normal(self.a, self.b, n)
+        if self.kind == "lognormal":
+            # mean a and standard deviation b of the variable itself
+            s2 = math.log(1 + (self.b / self.a) ** 2)
+            return rng.lognormal(math.log(self.a) - 0.5 * s2, math.sqrt(s2), n)
+        return np.full(n, self.a)
+
+    def describe(
+        self,
+        unit: str = "",
+        factor: float = 1.0,
+        offset: float = 0.0,
+        spread_unit: str | None = None,
+    ) -> str:
+        """Text in a display unit: value = SI / factor - offset (a spread: SI / factor)."""
+        u = f" {unit}" if unit else ""
+        su = f" {spread_unit if spread_unit is not None else unit}".rstrip()
+
+        def v(x: float) -> float:
+            return x / factor - offset
+
+        if self.kind == "uniform":
+            return f"uniform {v(self.a):.4g}..{v(self.b):.4g}{u}"
+        if self.kind in ("normal", "lognormal"):
+            return f"{self.kind} mean {v(self.a):.4g}{u}, std {self.b / factor:.4g}{su}"
+        return f"fixed {v(self.a):.4g}{u}"
 
 
 @dataclass(frozen=True)
@@ -142,7 +199,7 @@ class JointSpec:
     clamp_model: str
     skips: tuple[tuple[str, str], ...] = ()
     defaults: tuple[tuple[str, str], ...] = field(default=())
-    distributions: dict | None = None  # validated [distributions] table (scatter studies)
+    distributions: dict[str, Dist] | None = None  # [distributions] (scatter); None: no table
     given: frozenset[str] = frozenset()  # key paths the file set ("bolt.shank_length", ...)
 
     @property

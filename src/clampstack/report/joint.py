@@ -454,15 +454,13 @@ def report_scatter(result: JointResult) -> tuple[Any, str]:
     :data:`SCATTER_SAMPLES` samples with seed :data:`SCATTER_SEED`, the same
     study as ``clampstack scatter FILE --samples 100000 --seed 0``.
     """
-    from ..studies.scatter import parse_distributions, scatter
+    from ..studies.scatter import scatter
 
     spec = result.spec
     if spec.distributions is None:
         return None, "The input has no [distributions] table: no scatter study."
     try:
-        sr = scatter(
-            spec, parse_distributions(spec.distributions), SCATTER_SAMPLES, seed=SCATTER_SEED
-        )
+        sr = scatter(spec, spec.distributions, SCATTER_SAMPLES, seed=SCATTER_SEED)
     except InputError as err:
         return None, f"No scatter study: {err.detail}"
     return sr, ""
@@ -470,14 +468,12 @@ def report_scatter(result: JointResult) -> tuple[Any, str]:
 
 def _given_distributions(spec: Any) -> dict[str, Any]:
     """The distributions the input gives (``Dist`` objects), by key."""
-    from ..studies.scatter import parse_distributions
-
-    return parse_distributions(spec.distributions)
+    return dict(spec.distributions or {})
 
 
 def _dist_text(d: Any, key: str, u: DisplayUnits) -> str:
     """A distribution in display units: ``normal, mean 48.00 N&middot;m, std 1.500 N&middot;m``."""
-    from ..studies.scatter import DIST_KEYS
+    from ..joint.model import DIST_KEYS
 
     kind = DIST_KEYS[key][0]
     if kind == "temperature":

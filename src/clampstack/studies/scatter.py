@@ -33,128 +33,13 @@ from ..components import permissible_preload
 from ..display import Shown
 from ..errors import InputError
 from ..joint.analysis import analyse
-from ..joint.model import JointSpec
+from ..joint.model import DIST_KEYS, Dist, JointSpec
 from ..joint.prepare import Prepared, prepare, service_closed_form
-from ..units import parse_quantity
 
 BLOCK = 1 << 16
 EXACT_LIMIT = 2_000_000
 BINS = 1 << 17
 QUANTILES = {"p01": 1.0, "p05": 5.0, "p50": 50.0, "p95": 95.0, "p99": 99.0}
-
-#: distribution keys -> quantity kind (for units) and meaning
-DIST_KEYS: dict[str, tuple[str, str]] = {
-    "thread_friction": ("dimensionless", "thread friction mu_G"),
-    "head_friction": ("dimensionless", "head friction mu_K"),
-    "torque": ("torque", "tightening torque"),
-    "torque_factor": ("dimensionless", "torque-tool accuracy: applied / set torque"),
-    "preload": ("force", "assembly preload (tensioner)"),
-    "embedding": ("length", "embedding amount f_Z"),
-    "temperature": ("temperature", "service temperature"),
-    "axial_load": ("force", "largest axial working load"),
-    "yield_strength": ("stress", "bolt yield strength R_p0.2"),
-    "slip_friction": ("dimensionless", "interface friction mu_T"),
-}
-
-
-@dataclass(frozen=True)
-class Dist:
-    """A distribution: kind uniform | normal | lognormal | fixed, two parameters (SI)."""
-
-    kind: str
-    a: float
-    b: float = 0.0
-
-    def sample(self, rng: np.random.Generator, n: int) -> np.ndarray:
-        if self.kind == "uniform":
-            return rng.uniform(self.a, self.b, n)
-        if self.kind == "normal":
-            return rng.normal(self.a, self.b, n)
-        if self.kind == "lognormal":
-            # mean a and standard deviation b of the variable itself
-            s2 = math.log(1 + (self.b / self.a) ** 2)
-            return rng.lognormal(math.log(self.a) - 0.5 * s2, math.sqrt(s2), n)
-        return np.full(n, self.a)
-
-    def describe(
-        self,
-        unit: str = "",
-        factor: float = 1.0,
-        offset: float = 0.0,
-        spread_unit: str | None = None,
-    ) -> str:
-        """Text in a display unit: value = SI / factor - offset (a spread: SI / factor)."""
-        u = f" {unit}" if unit else ""
-        su = f" {spread_unit if spread_unit is not None else unit}".rstrip()
-
-        def v(x: float) -> float:
-            return x / factor - offset
-
-        if self.kind == "uniform":
-            return f"uniform {v(self.a):.4g}..{v(self.b):.4g}{u}"
-        if self.kind in ("normal", "lognormal"):
-            return f"{self.kind} mean {v(self.a):.4g}{u}, std {self.b / factor:.4g}{su}"
-        return f"fixed {v(self.a):.4g}{u}"
-
-
-def parse_distributions(raw: Any) -> dict[str, Dist]:
-    """The ``[distributions]`` table -> {key: Dist}; InputError naming the key."""
-    if raw is None:
-        return {}
-    if not isinstance(raw, dict):
-        raise InputError("expected a table", key="distributions")
-    out = {}
-    for name, spec in raw.items():
-        key = f"distributions.{name}"
-        if name not in DIST_KEYS:
-            import difflib
-
-            near = difflib.get_close_matches(str(name), DIST_KEYS, n=2)
-            hint = (
-                f" (did you mean {', '.join(near)}?)"
-                if near
-                else (f" (known: {', '.join(DIST_KEYS)})")
-            )
-            raise InputError(f"unknown key{hint}", key=key)
-        kind = DIST_KEYS[name][0]
-        out[name] = _parse_one(spec, kind, key, name == "temperature")
-    if "torque" in out and "torque_factor" in out:
-        raise InputError("give torque or torque_factor, not both", key="distributions.torque")
-    return out
-
-
-def _parse_one(spec: Any, kind: str, key: str, absolute_temperature: bool) -> Dist:
-    if isinstance(spec, str) and ".." in spec:
-        from ..units import parse_range
-
-        lo, hi = parse_range(spec, kind, key)
-        return Dist("uniform", lo, hi)
-    if not isinstance(spec, dict) or len(spec) != 1:
-        raise InputError(
-            'expected "low..high" or one of {uniform = [lo, hi]}, '
-            "{normal = [mean, std]}, {lognormal = [mean, std]}",
-            key=key,
-        )
-    ((form, params),) = spec.items()
-    if form not in ("uniform", "normal", "lognormal"):
-        raise InputError(f"unknown distribution {form!r} (uniform, normal, lognormal)", key=key)
-    if not isinstance(params, list) or len(params) != 2:
-        raise InputError(f"{form} takes two values, e.g. {form} = [a, b]", key=f"{key}.{form}")
-    a = parse_quantity(params[0], kind, f"{key}.{form}")
-    second_kind = kind
-    if form != "uniform" and absolute_temperature:
-        second_kind = "temperature_difference"  # a spread of temperature is a difference
-    b = parse_quantity(params[1], second_kind, f"{key}.{form}")
-    if form == "uniform" and a > b:
-        raise InputError(
-            f"uniform range has its low end above its high end ({a:g} > {b:g})", key=f"{key}.{form}"
-        )
-    if form != "uniform" and b < 0:
-        raise InputError("standard deviation must not be negative", key=f"{key}.{form}")
-    if form == "lognormal" and a <= 0:
-        raise InputError("a lognormal variable needs a positive mean", key=f"{key}.{form}")
-    return Dist(form, a, b)
-
 
 # --------------------------------------------------------------------------- the chain
 
