@@ -124,22 +124,17 @@ def read_assembly_file(path: str) -> tuple[InputDocument, Assembly]:
         raise err.with_source(doc.path) from None
 
 
-def _part(raw: dict[str, Any], key: str) -> PartSpec:
-    from ..catalog import material as catalog_material
-
+def _ends(raw: dict[str, Any], key: str) -> tuple[str, str]:
     ends = raw["ends"]
     if len(ends) != 2:
         raise InputError(f"expected two node names, got {len(ends)}", key=f"{key}.ends")
     if ends[0] == ends[1]:
         raise InputError(f"a part cannot join node {ends[0]!r} to itself", key=f"{key}.ends")
-    mat = None
-    if raw["material"] is not None:
-        try:
-            mat = catalog_material(raw["material"])
-        except InputError as err:
-            raise InputError(err.detail, key=f"{key}.material") from None
-    modulus = raw["modulus"] if raw["modulus"] is not None else (mat.E20 if mat else None)
-    expansion = raw["expansion"] if raw["expansion"] is not None else (mat.alpha20 if mat else None)
+    return ends[0], ends[1]
+
+
+def _area(raw: dict[str, Any], key: str) -> float | None:
+    """Cross-section [m^2]: given, or from outer and inner diameter."""
     area = raw["area"]
     if raw["outer_diameter"] is not None:
         if area is not None:
@@ -152,44 +147,70 @@ def _part(raw: dict[str, Any], key: str) -> PartSpec:
         area = math.pi / 4 * (raw["outer_diameter"] ** 2 - inner**2)
     elif raw["inner_diameter"] is not None:
         raise InputError("inner_diameter needs outer_diameter", key=f"{key}.inner_diameter")
-    length = raw["length"]
-    behaviour = raw["contact"] or "linear"
-    curve = None
-    if raw["curve"] is not None:
-        if raw["contact"] is not None:
-            raise InputError(
-                "a curve part takes no contact key (shape the curve instead)", key=f"{key}.contact"
-            )
-        xs = [parse_quantity(p[0], "length", f"{key}.curve") for p in raw["curve"]]
-        fs = [parse_quantity(p[1], "force", f"{key}.curve") for p in raw["curve"]]
-        try:
-            curve = Curve.make(xs, fs)
-        except InputError as err:
-            raise InputError(err.detail, key=f"{key}.curve") from None
-        behaviour = "curve"
-        stiffness = float(
-            max((fs[n + 1] - fs[n]) / (xs[n + 1] - xs[n]) for n in range(len(xs) - 1))
+    return area
+
+
+def _curve(raw: dict[str, Any], key: str) -> tuple[Curve, float]:
+    """A force-elongation curve and its steepest slope [N/m] (the part's stiffness)."""
+    if raw["contact"] is not None:
+        raise InputError(
+            "a curve part takes no contact key (shape the curve instead)", key=f"{key}.contact"
         )
-        for k in ("stiffness", "area", "outer_diameter", "modulus"):
-            if raw[k] is not None:
-                raise InputError(f"a curve part takes no {k}", key=f"{key}.{k}")
-    elif raw["stiffness"] is not None:
-        stiffness = raw["stiffness"]
+    xs = [parse_quantity(p[0], "length", f"{key}.curve") for p in raw["curve"]]
+    fs = [parse_quantity(p[1], "force", f"{key}.curve") for p in raw["curve"]]
+    try:
+        curve = Curve.make(xs, fs)
+    except InputError as err:
+        raise InputError(err.detail, key=f"{key}.curve") from None
+    for k in ("stiffness", "area", "outer_diameter", "modulus"):
+        if raw[k] is not None:
+            raise InputError(f"a curve part takes no {k}", key=f"{key}.{k}")
+    slope = max((fs[n + 1] - fs[n]) / (xs[n + 1] - xs[n]) for n in range(len(xs) - 1))
+    return curve, float(slope)
+
+
+def _axial_stiffness(
+    raw: dict[str, Any], key: str, area: float | None, modulus: float | None
+) -> float:
+    """Stiffness [N/m]: given, or E A / L."""
+    if raw["stiffness"] is not None:
         if raw["modulus"] is not None:
             raise InputError("give stiffness or modulus, not both", key=f"{key}.modulus")
+        return raw["stiffness"]
+    if raw["length"] is None:
+        raise InputError("required key is missing (or give stiffness)", key=f"{key}.length")
+    if area is None:
+        raise InputError(
+            "required key is missing (or give outer_diameter, or stiffness)", key=f"{key}.area"
+        )
+    if modulus is None:
+        raise InputError(
+            "required key is missing (give material or modulus, or stiffness)",
+            key=f"{key}.material",
+        )
+    return modulus * area / raw["length"]
+
+
+def part(raw: dict[str, Any], key: str) -> PartSpec:
+    """One ``[[part]]``: ends, material or modulus, section, stiffness or curve, contact, gap."""
+    from ..catalog import material as catalog_material
+
+    ends = _ends(raw, key)
+    mat = None
+    if raw["material"] is not None:
+        try:
+            mat = catalog_material(raw["material"])
+        except InputError as err:
+            raise InputError(err.detail, key=f"{key}.material") from None
+    modulus = raw["modulus"] if raw["modulus"] is not None else (mat.E20 if mat else None)
+    expansion = raw["expansion"] if raw["expansion"] is not None else (mat.alpha20 if mat else None)
+    area = _area(raw, key)
+    behaviour, curve = raw["contact"] or "linear", None
+    if raw["curve"] is not None:
+        curve, stiffness = _curve(raw, key)
+        behaviour = "curve"
     else:
-        if length is None:
-            raise InputError("required key is missing (or give stiffness)", key=f"{key}.length")
-        if area is None:
-            raise InputError(
-                "required key is missing (or give outer_diameter, or stiffness)", key=f"{key}.area"
-            )
-        if modulus is None:
-            raise InputError(
-                "required key is missing (give material or modulus, or stiffness)",
-                key=f"{key}.material",
-            )
-        stiffness = modulus * area / length
+        stiffness = _axial_stiffness(raw, key, area, modulus)
     if not (math.isfinite(stiffness) and stiffness > 0):
         raise InputError(f"stiffness comes out as {stiffness!r}", key=key)
     if raw["gap"] and behaviour == "linear":
@@ -198,9 +219,9 @@ def _part(raw: dict[str, Any], key: str) -> PartSpec:
         raise InputError("a curve part takes no gap (shift the curve instead)", key=f"{key}.gap")
     return PartSpec(
         name=raw["name"],
-        ends=(ends[0], ends[1]),
+        ends=ends,
         stiffness=stiffness,
-        length=length,
+        length=raw["length"],
         area=area,
         modulus=modulus,
         expansion=expansion,
@@ -218,45 +239,54 @@ def _loads(items: list[dict[str, Any]] | None) -> tuple[tuple[str, float], ...]:
     return tuple((it["node"], it["force"]) for it in items or [])
 
 
-def assembly_from_data(data: dict[str, Any]) -> Assembly:
-    """Validate the TOML data of a ``solve`` file and build the :class:`Assembly`."""
-    raw = read_table(ASSEMBLY, data)
-    parts = []
+def parts_table(rows: list[dict[str, Any]]) -> tuple[PartSpec, ...]:
+    """Every ``[[part]]``, with unique names."""
+    parts: list[PartSpec] = []
     names: set[str] = set()
-    for n, praw in enumerate(raw["part"]):
+    for n, praw in enumerate(rows):
         key = f"part[{n + 1}]"
-        part = _part(praw, key)
-        if part.name in names:
-            raise InputError(f"duplicate part name {part.name!r}", key=f"{key}.name")
-        names.add(part.name)
-        parts.append(part)
+        p = part(praw, key)
+        if p.name in names:
+            raise InputError(f"duplicate part name {p.name!r}", key=f"{key}.name")
+        names.add(p.name)
+        parts.append(p)
     if not parts:
         raise InputError("no parts", key="part")
-    nodes = {e for p in parts for e in p.ends}
-    if not raw["supports"]["fixed"]:
+    return tuple(parts)
+
+
+def supports_table(supports: dict[str, Any], nodes: set[str]) -> tuple[str, ...]:
+    """``[supports] fixed``: at least one node, and one that a part uses."""
+    fixed = supports["fixed"]
+    if not fixed:
         raise InputError("at least one node must be fixed", key="supports.fixed")
-    if not any(node in nodes for node in raw["supports"]["fixed"]):
+    if not any(node in nodes for node in fixed):
         raise InputError(
-            f"none of the fixed nodes {', '.join(map(repr, raw['supports']['fixed']))} is an end "
+            f"none of the fixed nodes {', '.join(map(repr, fixed))} is an end "
             f"of a part (nodes: {', '.join(sorted(nodes))})",
             key="supports.fixed",
         )
     # a fixed node that no part uses is a support with nothing on it: kept, reaction 0
-    for n, it in enumerate(raw["load"] or []):
+    return tuple(fixed)
+
+
+def load_table(items: list[dict[str, Any]] | None, nodes: set[str], key: str) -> tuple:
+    """``[[load]]`` (or a case's): forces on nodes that exist."""
+    for n, it in enumerate(items or []):
         if it["node"] not in nodes:
             raise InputError(
                 f"unknown node {it['node']!r} (nodes: {', '.join(sorted(nodes))})",
-                key=f"load[{n + 1}].node",
+                key=f"{key}[{n + 1}].node",
             )
+    return _loads(items)
+
+
+def case_table(rows: list[dict[str, Any]] | None, parts: tuple[PartSpec, ...], nodes: set[str]):
+    """``[[case]]``: named load cases with their own loads and temperature change."""
     cases = []
     case_names = set()
-    for c, craw in enumerate(raw["case"] or []):
-        for n, it in enumerate(craw["load"] or []):
-            if it["node"] not in nodes:
-                raise InputError(
-                    f"unknown node {it['node']!r} (nodes: {', '.join(sorted(nodes))})",
-                    key=f"case[{c + 1}].load[{n + 1}].node",
-                )
+    for c, craw in enumerate(rows or []):
+        loads = load_table(craw["load"], nodes, f"case[{c + 1}].load")
         if craw["name"] in case_names or craw["name"] == "assembly":
             raise InputError(f"duplicate case name {craw['name']!r}", key=f"case[{c + 1}].name")
         case_names.add(craw["name"])
@@ -269,13 +299,24 @@ def assembly_from_data(data: dict[str, Any]) -> Assembly:
                         "(give material or expansion)",
                         key=f"case[{c + 1}].temperature_change",
                     )
-        cases.append(LoadCase(craw["name"], _loads(craw["load"]), dT))
+        cases.append(LoadCase(craw["name"], loads, dT))
+    return tuple(cases)
+
+
+def assembly_from_data(data: dict[str, Any]) -> Assembly:
+    """Validate the TOML data of a ``solve`` file and build the :class:`Assembly`."""
+    raw = read_table(ASSEMBLY, data)
+    parts = parts_table(raw["part"])
+    nodes = {e for p in parts for e in p.ends}
+    fixed = supports_table(raw["supports"], nodes)
+    loads = load_table(raw["load"], nodes, "load")
+    cases = case_table(raw["case"], parts, nodes)
     for p in parts:
         p.thermal_elongation(p.temperature_change)  # raises if expansion is missing
     return Assembly(
         title=raw["title"] or "untitled assembly",
-        parts=tuple(parts),
-        fixed=tuple(raw["supports"]["fixed"]),
-        loads=_loads(raw["load"]),
-        cases=tuple(cases),
+        parts=parts,
+        fixed=fixed,
+        loads=loads,
+        cases=cases,
     )

@@ -245,9 +245,9 @@ def _nut_material(nut_raw: dict[str, Any]) -> PartMaterial | None:
 def flange_from_data(data: dict[str, Any]) -> FlangeSpec:
     """Validate a flange file's TOML data, resolve every default and check that the parts fit.
 
-    One reader per table: ``[flange]`` (bolt count, ring), ``[bolt]`` (thread, grade,
-    holes, allowable stresses), ``[nut]``, ``[gasket]``, ``[loading]``, ``[tightening]``
-    (shared with joint files) and its pass sequence.
+    One reader per table: ``[flange]`` (bolt count, ring), ``[bolt]`` and ``[nut]``
+    (thread, grade, holes, nuts, allowable stresses), ``[gasket]``, ``[loading]``,
+    ``[tightening]`` (shared with joint files) and its pass sequence.
     """
     raw = read_table(FLANGE_FILE, data)
     rec = Defaults()
@@ -258,58 +258,23 @@ def flange_from_data(data: dict[str, Any]) -> FlangeSpec:
     if hole is None:
         hole, note = clearance_hole(thr, "bolt")
         rec.note("bolt.hole", note)
-    nut_raw = raw["nut"] or {}
-    dW = (
-        nut_raw.get("bearing_diameter")
-        or b["bearing_diameter"]
-        or bearing_face_diameter(thr.head_across_flats)
-    )
     gasket = gasket_table(raw["gasket"], rec)
-    fmat = _mat(f["material"] or "steel", "flange.material")
-    if f["material"] is None:
-        rec.note("flange.material", "steel")
-    ring_out = f["outer_diameter"] or ring_outer_diameter(f["bolt_circle"], hole)
-    if f["outer_diameter"] is None:
-        rec.note("flange.outer_diameter", f"{ring_out * 1e3:.4g} mm")
-    bmat = bolt_material(b, grd)
-    Sb = b["allowable_stress"]
-    if Sb is None:
-        Sb, note = bolt_allowable_stress(grd, thr)
-        rec.note("bolt.allowable_stress", note)
-    loads = loading(raw["loading"] or empty(LOADING), b)
+    ring = ring_table(f, gasket, hole, rec)
+    bolts = bolt_table(b, raw["nut"] or {}, thr, grd, hole, ring["mating"], rec)
     tr = raw["tightening"] or empty(TIGHTENING)
     tight = tightening(tr, thr, grd, Defaults())
     passes, patterns, order = pass_sequence(tr, n, rec)
-    mating = f["mating"] or "flange"
     spec = FlangeSpec(
         title=raw["title"] or "untitled flange",
         bolt_count=n,
         bolt_circle=f["bolt_circle"],
         thickness=f["thickness"],
-        ring_inner_diameter=f["inner_diameter"] or gasket.inner_diameter,
-        ring_outer_diameter=ring_out,
-        material=fmat,
-        mating=mating,
+        **ring,
         thread=thr,
         grade=grd,
-        bolt_material=bmat,
-        nut_height=nut_raw.get("height") or thr.nut_height,
-        nut_material=_nut_material(nut_raw),
-        unused=tuple(
-            f"nut.{k}"
-            for k in ("strength", "limiting_pressure", "temperature")
-            if nut_raw.get(k) is not None
-        )
-        + (("bolt.rolled",) if b["rolled"] is not None else ()),
-        head=b["head"] or ("stud" if mating == "flange" else "hex"),
-        shank_length=b["shank_length"] or 0.0,
-        shank_diameter=b["shank_diameter"],
-        bearing_diameter=dW,
-        hole=hole,
-        allowable_stress=Sb,
-        allowable_stress_ambient=b["allowable_stress_ambient"] or Sb,
+        **bolts,
         gasket=gasket,
-        **loads,
+        **loading(raw["loading"] or empty(LOADING), b),
         method=tight.method,
         torque=tight.torque,
         preload=tight.preload,
@@ -322,16 +287,65 @@ def flange_from_data(data: dict[str, Any]) -> FlangeSpec:
         patterns=patterns,
         order=order,
         defaults=rec.as_tuple(),
-        bolt_length=b["length"],
         given=given_keys(raw),
     )
+    check_fit(spec)
+    return spec
+
+
+def ring_table(f: dict[str, Any], gasket: GasketSpec, hole: float, rec: Defaults) -> dict[str, Any]:
+    """``[flange]`` ring: material (steel), inner diameter (the gasket's), outer diameter, mating."""
+    fmat = _mat(f["material"] or "steel", "flange.material")
+    if f["material"] is None:
+        rec.note("flange.material", "steel")
+    ring_out = f["outer_diameter"] or ring_outer_diameter(f["bolt_circle"], hole)
+    if f["outer_diameter"] is None:
+        rec.note("flange.outer_diameter", f"{ring_out * 1e3:.4g} mm")
+    return {
+        "ring_inner_diameter": f["inner_diameter"] or gasket.inner_diameter,
+        "ring_outer_diameter": ring_out,
+        "material": fmat,
+        "mating": f["mating"] or "flange",
+    }
+
+
+def bolt_table(
+    b: dict[str, Any],
+    nut_raw: dict[str, Any],
+    thr: Any,
+    grd: Any,
+    hole: float,
+    mating: str,
+    rec: Defaults,
+) -> dict[str, Any]:
+    """``[bolt]`` and ``[nut]``: material, nut bearing face and height, head, shank, S_b and S_a."""
     if b["bearing_diameter"] is not None and nut_raw.get("bearing_diameter") is not None:
         if b["bearing_diameter"] <= hole:
             raise InputError(
                 "bearing diameter must exceed the bolt hole", key="bolt.bearing_diameter"
             )
-    check_fit(spec)
-    return spec
+    Sb = b["allowable_stress"]
+    if Sb is None:
+        Sb, note = bolt_allowable_stress(grd, thr)
+        rec.note("bolt.allowable_stress", note)
+    unused = [f"nut.{k}" for k in ("strength", "limiting_pressure", "temperature")]
+    return {
+        "bolt_material": bolt_material(b, grd),
+        "nut_height": nut_raw.get("height") or thr.nut_height,
+        "nut_material": _nut_material(nut_raw),
+        "unused": tuple(k for k in unused if nut_raw.get(k.split(".")[1]) is not None)
+        + (("bolt.rolled",) if b["rolled"] is not None else ()),
+        "head": b["head"] or ("stud" if mating == "flange" else "hex"),
+        "shank_length": b["shank_length"] or 0.0,
+        "shank_diameter": b["shank_diameter"],
+        "bearing_diameter": nut_raw.get("bearing_diameter")
+        or b["bearing_diameter"]
+        or bearing_face_diameter(thr.head_across_flats),
+        "hole": hole,
+        "allowable_stress": Sb,
+        "allowable_stress_ambient": b["allowable_stress_ambient"] or Sb,
+        "bolt_length": b["length"],
+    }
 
 
 def bolt_count(f: dict[str, Any]) -> int:
