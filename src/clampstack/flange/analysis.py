@@ -70,8 +70,9 @@ class App2:
     Wm2: float
     Am: float
     Ab: float
-    P_eq: float = 0.0  # equivalent pressure with the external axial force and moment [Pa]
-    Wm1_eq: float = 0.0  # W_m1 at the equivalent pressure [N]
+    external: float = 0.0  # F + 4 M / G, the external axial force and moment once [N]
+    W: float = 0.0  # flange design bolt load (A_m + A_b) S_a / 2 [N]
+    area_basis: str = ""  # which bolt root area A_b stands on
 
 
 def asme_app2(spec: FlangeSpec) -> App2:
@@ -88,20 +89,21 @@ def asme_app2(spec: FlangeSpec) -> App2:
     P = spec.pressure
     H = 0.785 * G**2 * P
     Hp = 2 * b * 3.14 * G * g.m * P
-    Wm1 = H + Hp
     Wm2 = 3.14 * b * G * g.y
-    # external axial force and bending moment as an equivalent pressure on G (the usual
-    # equivalent-pressure rule, e.g. ASME B31.3 / Kellogg: P_eq = P + 4F/(pi G^2) +
-    # 16M/(pi G^3); from memory); App. 2 itself covers the pressure only
-    P_eq = (
-        P
-        + 4 * max(spec.axial_force, 0.0) / (math.pi * G**2)
-        + 16 * abs(spec.bending_moment) / (math.pi * G**3)
-    )
-    Wm1_eq = 0.785 * G**2 * P_eq + 2 * b * 3.14 * G * g.m * P_eq
-    Am = max(Wm1_eq / spec.allowable_stress, Wm2 / spec.allowable_stress_ambient)
-    Ab = spec.bolt_count * math.pi / 4 * spec.thread.d3**2  # root area of the thread
-    return App2(b0, b, G, H, Hp, Wm1, Wm2, Am, Ab, P_eq, Wm1_eq)
+    # the external axial force F and moment M enter once, as bolt load: W_m1 = H + H_p + F
+    # + 4 M / G with H and H_p at the design pressure (the form of ASME BPVC VIII-2, 4.16.6,
+    # from memory; App. 2 itself covers the pressure only). A compressive F is given no
+    # credit (conservative; our rule).
+    external = max(spec.axial_force, 0.0) + 4 * abs(spec.bending_moment) / G
+    Wm1 = H + Hp + external
+    Am = max(Wm1 / spec.allowable_stress, Wm2 / spec.allowable_stress_ambient)
+    # root area of the thread: pi/4 d3^2 with the basic minor diameter d3 = d - 1.226869 P
+    # (ISO 898-1; ASME B1.1 profile for unified threads); the catalog holds no tabulated
+    # minor-diameter areas, so this computed one is used and named in the output
+    Ab = spec.bolt_count * spec.thread.Ad3
+    basis = "root area pi/4 d3^2, d3 = d - 1.226869 P (ISO 898-1 basic minor diameter)"
+    W = (Am + Ab) * spec.allowable_stress_ambient / 2  # App. 2-5(e), flange design bolt load
+    return App2(b0, b, G, H, Hp, Wm1, Wm2, Am, Ab, external, W, basis)
 
 
 # --------------------------------------------------------------------------- cross pattern
@@ -547,9 +549,10 @@ class FlangeResult(Shown):
                 "hydrostatic_end_force_N": a.H,
                 "gasket_load_operating_N": a.Hp,
                 "required_bolt_area_mm2": a.Am * 1e6,
-                "equivalent_pressure_MPa": a.P_eq * 1e-6,
-                "operating_equivalent_N": a.Wm1_eq,
+                "external_load_N": a.external,
+                "design_N": a.W,
                 "available_bolt_area_mm2": a.Ab * 1e6,
+                "bolt_area_basis": a.area_basis,
             },
             "gasket": {
                 "effective_width_mm": a.b * 1e3,
@@ -749,7 +752,7 @@ def analyse_flange(spec: FlangeSpec, compensate: bool = True) -> FlangeResult:
             "mm2",
             ">=",
             "ASME BPVC VIII-1 Appendix 2, 2-5 (A_m = max(W_m1/S_b, W_m2/S_a)); external force "
-            "and moment as an equivalent pressure (from memory)",
+            "and moment once in W_m1 = H + H_p + F + 4M/G (form of ASME VIII-2 4.16, from memory)",
             f"S_b = {spec.allowable_stress / 1e6:.4g} MPa, S_a = {spec.allowable_stress_ambient / 1e6:.4g} MPa",
         )
     )

@@ -53,15 +53,16 @@ def flange_text(r: FlangeResult, units: str = "si") -> str:
         f"W_m1 (operating) = {u.fmt('force', a.Wm1)}, W_m2 (seating) = "
         f"{u.fmt('force', a.Wm2)} {F}"
     )
-    if a.P_eq > s.pressure * (1 + 1e-12):
+    if a.external > 0:
         out.append(
-            f"  external force and moment as an equivalent pressure "
-            f"{u.fmt('stress', a.P_eq)} {u.label('stress')}: W_m1 = {u.fmt('force', a.Wm1_eq)} {F}"
+            f"  external force and moment, once: F + 4 M / G = {u.fmt('force', a.external)} {F} "
+            "(included in W_m1; form of ASME VIII-2 4.16)"
         )
     out.append(
         f"  bolt area: required A_m = {u.fmt('area', a.Am)}, available A_b = "
-        f"{u.fmt('area', a.Ab)} {u.label('area')}"
+        f"{u.fmt('area', a.Ab)} {u.label('area')} ({a.area_basis})"
     )
+    out.append(f"  flange design bolt load W = (A_m + A_b) S_a / 2 = {u.fmt('force', a.W)} {F}")
     out.append("")
     out.append("Gasket stress window and tightening (per bolt)")
     out.append(

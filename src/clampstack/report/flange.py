@@ -351,7 +351,7 @@ def _app2(r: FlangeResult, u: DisplayUnits) -> str:
             "W<sub>m1</sub>",
             f"<b>{_q(u, 'force', a.Wm1)}</b>",
             _q(u, "force", a.Wm1 / n),
-            "H + H<sub>p</sub>",
+            "H + H<sub>p</sub> + F + 4M/G (F, M once; form of ASME VIII-2 4.16)",
         ],
         [
             "<b>required bolt load, gasket seating</b>",
@@ -372,7 +372,14 @@ def _app2(r: FlangeResult, u: DisplayUnits) -> str:
             "A<sub>b</sub>",
             _q(u, "area", a.Ab),
             _q(u, "area", a.Ab / n),
-            f"{n} &times; &pi;/4 d<sub>3</sub>&sup2; (root area of the thread)",
+            f"{n} &times; &pi;/4 d<sub>3</sub>&sup2; (root area of the thread, d<sub>3</sub> = d &minus; 1.226869 P, ISO 898-1)",
+        ],
+        [
+            "flange design bolt load",
+            "W",
+            _q(u, "force", a.W),
+            _q(u, "force", a.W / n),
+            "(A<sub>m</sub> + A<sub>b</sub>) S<sub>a</sub> / 2",
         ],
     ]
     table = _table(
