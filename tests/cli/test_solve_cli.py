@@ -158,3 +158,29 @@ force = "60 kN"
     assert case["parts"]["rod"]["force_N"] == pytest.approx(60e3)
     assert case["reactions"]["B"]["force_N"] == 0.0
     assert case["reactions"]["A"]["force_N"] == pytest.approx(-60e3)
+
+
+@pytest.mark.parametrize(
+    "fixed, load, key, hint",
+    [
+        ('["base", "Tip"]', "tip", "supports.fixed[2]", "did you mean 'tip'?"),
+        ('["bsae"]', "tip", "supports.fixed", "base"),  # no fixed node a part uses at all
+        ('["base"]', "tpi", "load[1].node", "did you mean 'tip'?"),
+    ],
+)
+def test_misspelt_node_names_are_refused_with_a_did_you_mean(write_toml, fixed, load, key, hint):
+    text = f"""
+[[part]]
+name = "rod"
+ends = ["base", "tip"]
+stiffness = "100 kN/mm"
+[supports]
+fixed = {fixed}
+[[load]]
+node = "{load}"
+force = "5 kN"
+"""
+    res = run("solve", str(write_toml(text)))
+    assert res.exit_code == 2
+    assert key in res.stderr and hint in res.stderr
+    assert len(res.stderr.strip().splitlines()) == 1

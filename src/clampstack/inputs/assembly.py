@@ -255,8 +255,24 @@ def parts_table(rows: list[dict[str, Any]]) -> tuple[PartSpec, ...]:
     return tuple(parts)
 
 
+def near_node(name: str, nodes: set[str]) -> str | None:
+    """The node a misspelt ``name`` most likely means (case or a few letters off), or None."""
+    import difflib
+
+    by_lower = {n.lower(): n for n in sorted(nodes)}
+    near = difflib.get_close_matches(str(name).lower(), list(by_lower), n=1, cutoff=0.6)
+    return by_lower[near[0]] if near else None
+
+
+def unknown_node(name: str, nodes: set[str], key: str) -> InputError:
+    """The error for a node no part has: the nearest name as a did-you-mean, then all."""
+    near = near_node(name, nodes)
+    hint = f"did you mean {near!r}? " if near else ""
+    return InputError(f"unknown node {name!r} ({hint}nodes: {', '.join(sorted(nodes))})", key=key)
+
+
 def supports_table(supports: dict[str, Any], nodes: set[str]) -> tuple[str, ...]:
-    """``[supports] fixed``: at least one node, and one that a part uses."""
+    """``[supports] fixed``: nodes that parts join (a misspelt name is refused)."""
     fixed = supports["fixed"]
     if not fixed:
         raise InputError("at least one node must be fixed", key="supports.fixed")
@@ -266,7 +282,11 @@ def supports_table(supports: dict[str, Any], nodes: set[str]) -> tuple[str, ...]
             f"of a part (nodes: {', '.join(sorted(nodes))})",
             key="supports.fixed",
         )
-    # a fixed node that no part uses is a support with nothing on it: kept, reaction 0
+    for n, node in enumerate(fixed):
+        # a node that no part joins is a support with nothing on it (reaction 0; DESIGN.md's
+        # own example has one), unless it looks like a misspelling of a node that exists
+        if node not in nodes and near_node(node, nodes) is not None:
+            raise unknown_node(node, nodes, f"supports.fixed[{n + 1}]")
     return tuple(fixed)
 
 
@@ -274,10 +294,7 @@ def load_table(items: list[dict[str, Any]] | None, nodes: set[str], key: str) ->
     """``[[load]]`` (or a case's): forces on nodes that exist."""
     for n, it in enumerate(items or []):
         if it["node"] not in nodes:
-            raise InputError(
-                f"unknown node {it['node']!r} (nodes: {', '.join(sorted(nodes))})",
-                key=f"{key}[{n + 1}].node",
-            )
+            raise unknown_node(it["node"], nodes, f"{key}[{n + 1}].node")
     return _loads(items)
 
 
