@@ -186,7 +186,6 @@ def sweep(
     file: str, trange: str, step: float | None, cycle: bool, as_json: bool, as_csv: bool, units: str
 ) -> None:
     """Preload, clamp load and every check over a temperature range (exit 1 if one fails)."""
-    import numpy as np
 
     from .errors import InputError
     from .inputs.joint import read_joint_file
@@ -212,7 +211,7 @@ def sweep(
         click.echo(sweep_csv(result), nl=False)
     else:
         click.echo(sweep_text(result, units))
-    sys.exit(EXIT_OK if bool(np.all(result.ok)) else EXIT_FAIL)
+    sys.exit(EXIT_OK if result.passed else EXIT_FAIL)
 
 
 @main.command()

@@ -118,3 +118,48 @@ axial_load = "0..58 kN"
 """)
     res = CliRunner().invoke(main, ["check", str(f)])
     assert res.exit_code == 1, res.output
+
+
+def _soft_layer_joint(load: str):
+    # a steel stack with a soft cast-aluminium layer under a large service load: the
+    # bearing faces yield (our own scenario)
+    return joint_from_data(
+        {
+            "bolt": {"thread": "M12", "grade": "10.9", "length": "60 mm"},
+            "nut": {},
+            "clamped": [
+                {"material": "steel", "thickness": "18 mm"},
+                {"material": "aluminium-cast", "thickness": "22 mm"},
+            ],
+            "tightening": {"torque": "110 N*m"},
+            "service": {"axial_load": load},
+        }
+    )
+
+
+@pytest.mark.parametrize("load", ["60 kN", "90 kN", "200 kN"])
+def test_a_collapse_or_a_permanent_loss_is_a_failing_named_check(load):
+    r = analyse(_soft_layer_joint(load))
+    by = {c.name: c for c in r.checks}
+    if r.cycle is None:  # no equilibrium with yielding parts
+        assert not by["plastic_collapse"].passed and "VDI 2230-1" in by["plastic_collapse"].source
+        assert not r.ok
+    elif r.cycle.permanent_loss > 0:
+        assert not by["cycle_yield"].passed
+        assert by["cycle_yield"].value == pytest.approx(r.cycle.permanent_loss / 1e3)
+        assert not r.ok
+    else:
+        assert by["plastic_collapse"].passed and by["cycle_yield"].passed
+    # never a PASS beside a note of collapse or yielding
+    if any("Plastic collapse" in n or "permanent loss" in n for n in r.notes):
+        assert not r.ok
+
+
+def test_the_two_plastic_checks_appear_in_every_check(examples_dir):
+    from clampstack.inputs.joint import read_joint_file
+
+    _, spec = read_joint_file(str(examples_dir / "m16-through-bolt-alternating.toml"))
+    r = analyse(spec)
+    names = [c.name for c in r.checks]
+    assert "plastic_collapse" in names and "cycle_yield" in names
+    assert all(c.passed for c in r.checks if c.name in ("plastic_collapse", "cycle_yield"))

@@ -63,6 +63,8 @@ def test_sweep_at_service_temperature_equals_check(examples_dir):
     assert s.residual_min[i] == pytest.approx(r.residual_clamp_min, rel=1e-9)
     assert s.bolt_load_max[i] == pytest.approx(r.bolt_load_max, rel=1e-9)
     for c in r.checks:
+        if c.name in ("plastic_collapse", "cycle_yield"):
+            continue  # from the elastic-plastic cycle, not per temperature point
         assert s.margins[c.name][i] == pytest.approx(c.margin, rel=1e-9, abs=1e-12)
 
 

@@ -426,6 +426,50 @@ class JointResult(Shown):
         return out
 
 
+PLASTIC_SOURCE = (
+    "VDI 2230-1:2015, 5.5.2 (R8) and 5.4.2 (R5): the joint is designed to stay elastic in "
+    "service; elastic-perfectly-plastic bolt and bearing faces in the joint's spring network "
+    "(our model)"
+)
+
+
+def plastic_checks(cycle: Any, skip: dict[str, str]) -> tuple[Check, ...]:
+    """Checks from the elastic-plastic cycle: a collapse, or a permanent preload loss, fails.
+
+    ``cycle`` is the :class:`~clampstack.joint.plastic.CycleResult` from assembly to the
+    largest service load and temperature and back, or None where no equilibrium exists
+    (plastic collapse).  ``plastic_collapse``: value 1 where a collapse was found, limit 0.
+    ``cycle_yield``: the permanent preload loss [kN], limit 0.
+    """
+    collapse = Check(
+        "plastic_collapse",
+        "Equilibrium under the largest service load with yielding bolt and bearing faces",
+        1.0 if cycle is None else 0.0,
+        0.0,
+        "",
+        "<=",
+        PLASTIC_SOURCE,
+        "1: no equilibrium exists (plastic collapse); 0: the joint holds",
+        skip.get("plastic_collapse"),
+    )
+    out = [collapse]
+    if cycle is not None:
+        out.append(
+            Check(
+                "cycle_yield",
+                "No permanent preload loss from yielding between assembly, service and back",
+                cycle.permanent_loss / 1e3,
+                0.0,
+                "kN",
+                "<=",
+                PLASTIC_SOURCE,
+                f"yielded: {', '.join(cycle.yielded) or 'nothing'}",
+                skip.get("cycle_yield"),
+            )
+        )
+    return tuple(out)
+
+
 def springs(spec: JointSpec, service: bool) -> Springs:
     """Bolt and clamped-part resilience at assembly (``service=False``) or service temperatures."""
     model = TemperatureModel(spec)
@@ -558,6 +602,7 @@ def analyse(spec: JointSpec) -> JointResult:
             "yielding bolt or bearing faces can carry); the permanent preload loss cannot be "
             "given. See the failing checks."
         )
+    checks = checks + plastic_checks(cycle, skip)
     if cycle is not None and cycle.permanent_loss > 0:
         notes.append(
             f"Yielding on the way from assembly to service and back ({', '.join(cycle.yielded)}): "

@@ -24,6 +24,8 @@ CHECK_NAMES: tuple[str, ...] = (
     "surface_pressure_head",
     "surface_pressure_nut",
     "thread_stripping",
+    "plastic_collapse",
+    "cycle_yield",
 )
 
 _TOL = 1e-9

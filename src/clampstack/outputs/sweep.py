@@ -23,7 +23,11 @@ def sweep_text(r: SweepResult, units: str = "si") -> str:
         f"assembly at {r.spec.service.assembly_temperature - C0:g} degC",
         "",
     ]
-    if np.all(r.ok):
+    bad_cycles = [k for k, c in (r.cycle or {}).items() if not c.get("ok", True)]
+    if bad_cycles and np.all(r.ok):
+        names = sorted({r.cycle[k]["check"] for k in bad_cycles})
+        out.append(f"RESULT: FAIL - {', '.join(names)} in the {' and '.join(bad_cycles)} cycle")
+    elif np.all(r.ok):
         out.append("RESULT: PASS - every check passes over the whole range")
     else:
         out.append(f"RESULT: FAIL - checks fail at {int((~r.ok).sum())} of {T.size} points")
@@ -136,7 +140,7 @@ def sweep_html_table(r: SweepResult, max_rows: int = MAX_ROWS) -> str:
         + "</li>"
         for lim in r.limits
     )
-    verdict = "PASS" if np.all(r.ok) else "FAIL"
+    verdict = "PASS" if r.passed else "FAIL"
     shown = f"{idx.size} of {T.size} points" if T.size > idx.size else f"{T.size} points"
     return (
         f"<div><b>{e(r.spec.title)}</b>: {verdict} from {T[0] - C0:g} to {T[-1] - C0:g} degC "

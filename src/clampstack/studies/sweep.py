@@ -67,6 +67,12 @@ class SweepResult(Shown):
         """Minimum-branch preload at the hot end minus at assembly temperature [N]."""
         return float(self.preload_min[-1] - self.preload_assembly[0])
 
+    @property
+    def passed(self) -> bool:
+        """Every check at every point, and no collapse or permanent loss in the cycles."""
+        cycles_ok = all(c.get("ok", True) for c in (self.cycle or {}).values())
+        return bool(np.all(self.ok)) and cycles_ok
+
     def to_dict(self) -> dict[str, Any]:
         """JSON form per DESIGN.md (``sweep --json``)."""
         names = list(self.margins)
@@ -97,7 +103,7 @@ class SweepResult(Shown):
             "thermal_change_cold_N": self.thermal_change_cold,
             "thermal_change_hot_N": self.thermal_change_hot,
             "skipped": self.skipped,
-            "ok": bool(np.all(self.ok)),
+            "ok": self.passed,
         }
         if self.cycle is not None:
             out["cycle"] = self.cycle
@@ -276,6 +282,8 @@ def _cycles(prep: Prepared, T_low: float, T_high: float) -> dict[str, Any]:
                 "peak_temperature_degC": Tp - C0,
                 "collapse": True,
                 "note": "no equilibrium with yielding parts (plastic collapse)",
+                "check": "plastic_collapse",
+                "ok": False,
             }
             continue
         out[label] = {
@@ -286,5 +294,7 @@ def _cycles(prep: Prepared, T_low: float, T_high: float) -> dict[str, Any]:
             "preload_after_max_N": c.preload_after[1],
             "permanent_loss_N": c.permanent_loss,
             "yielded": list(c.yielded),
+            "check": "cycle_yield",
+            "ok": not c.permanent_loss > 0,
         }
     return out
