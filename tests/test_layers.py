@@ -74,7 +74,6 @@ def imports_of(name: str, path: Path, known: set[str]) -> set[str]:
             arg = node.args[0] if node.args else None
             if isinstance(arg, ast.Constant) and str(arg.value).startswith("clampstack"):
                 out.add(str(arg.value))
-    # importing a module runs its package's __init__ first
     return {t for t in out if t in known and t != name}
 
 

@@ -19,12 +19,10 @@ to the plain ``repr``.
 from __future__ import annotations
 
 from collections.abc import Callable
-from typing import Any, TypeVar
+from typing import Any
 
 _RENDERERS: dict[type, Callable[[Any], str]] = {}
 _LOADER: list[Callable[[], object]] = []
-
-T = TypeVar("T", bound=type)
 
 
 def html_for(cls: type) -> Callable[[Callable[[Any], str]], Callable[[Any], str]]:

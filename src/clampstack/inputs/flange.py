@@ -328,12 +328,15 @@ def bolt_table(
     if Sb is None:
         Sb, note = bolt_allowable_stress(grd, thr)
         rec.note("bolt.allowable_stress", note)
-    unused = [f"nut.{k}" for k in ("strength", "limiting_pressure", "temperature")]
     return {
         "bolt_material": bolt_material(b, grd),
         "nut_height": nut_raw.get("height") or thr.nut_height,
         "nut_material": _nut_material(nut_raw),
-        "unused": tuple(k for k in unused if nut_raw.get(k.split(".")[1]) is not None)
+        "unused": tuple(
+            f"nut.{k}"
+            for k in ("strength", "limiting_pressure", "temperature")
+            if nut_raw.get(k) is not None
+        )
         + (("bolt.rolled",) if b["rolled"] is not None else ()),
         "head": b["head"] or ("stud" if mating == "flange" else "hex"),
         "shank_length": b["shank_length"] or 0.0,

@@ -9,6 +9,7 @@ from __future__ import annotations
 from dataclasses import replace
 from typing import Any
 
+from ..catalog.parts import washer_size
 from ..errors import InputError
 from ..joint import geometry
 from ..joint.checks import CHECK_NAMES
@@ -542,7 +543,7 @@ def washer(
     """One ``[[washer]]``: ISO 7089 thickness and outer diameter, the hole inside by default."""
     key = f"washer[{n}]"
     mat = part_material(w, key, "steel", rec)
-    h_w, od_w = geometry.plain_washer(thr.d)
+    h_w, od_w = washer_size(thr.d)
     w = dict(w)
     w["thickness"] = rec.pick(
         f"{key}.thickness", w["thickness"], h_w, f"{h_w * 1e3:g} mm (ISO 7089)"
@@ -623,9 +624,7 @@ def shank(b: dict[str, Any], bolt: BoltSpec, lK: float, rec: Defaults) -> float:
     else:
         value, note = geometry.plain_shank(bolt.thread, bolt.length, bolt.head)
         rec.note("bolt.shank_length", note)
-    if value > lK * (1 + 1e-9):
-        return value  # check_fit names it
-    return min(value, lK)
+    return geometry.shank_in_clamp(value, lK)
 
 
 def embedding(emb: dict[str, Any] | None, rec: Defaults) -> tuple[float, float | None]:

@@ -28,11 +28,11 @@ class Defaults:
         """Record that ``key`` took its default, printed as ``text``."""
         self.items.append((key, text))
 
-    def pick(self, key: str, given: Any, default: Any, text: str | None = None) -> Any:
-        """``given`` if the file set it, else ``default`` (recorded as ``text`` or its value)."""
+    def pick(self, key: str, given: Any, default: Any, text: str) -> Any:
+        """``given`` if the file set it, else ``default`` (recorded, printed as ``text``)."""
         if given is not None:
             return given
-        self.note(key, f"{default:g}" if text is None else text)
+        self.note(key, text)
         return default
 
     def as_tuple(self) -> tuple[tuple[str, str], ...]:
@@ -124,15 +124,12 @@ def _check_methods(tr: dict[str, Any], method: str) -> None:
         )
 
 
-def tightening(
-    tr: dict[str, Any], thr: Thread, grd: Grade, rec: Defaults, torque_note: bool = True
-) -> TighteningSpec:
+def tightening(tr: dict[str, Any], thr: Thread, grd: Grade, rec: Defaults) -> TighteningSpec:
     """The ``[tightening]`` table: method, torque or preload, friction, utilisation, tolerance.
 
     Defaults: thread friction 0.10..0.16, head friction as the thread's, utilisation
     nu = 0.9 of the yield point (VDI 2230-1, 5.4.3), torque tolerance +-6 % (common
-    practice, no source).  ``torque_note``: record the torque tolerance default for
-    torque tightening (a flange prints it among its passes instead).
+    practice, no source).
     """
     method = rec.pick("tightening.method", tr["method"], "torque", "torque")
     _check_methods(tr, method)
@@ -148,7 +145,7 @@ def tightening(
     if nu > 1.0:
         raise InputError("utilization must not exceed 1", key="tightening.utilization")
     tol = tr["torque_tolerance"] if tr["torque_tolerance"] is not None else 0.06
-    if tr["torque_tolerance"] is None and method == "torque" and torque_note:
+    if tr["torque_tolerance"] is None and method == "torque":
         rec.note("tightening.torque_tolerance", "+-6 %")
     if tol >= 0.5:
         raise InputError("torque tolerance must be below 0.5", key="tightening.torque_tolerance")

@@ -11,12 +11,15 @@ the rules of a file.
 from __future__ import annotations
 
 from dataclasses import replace
+from typing import TypeVar
 
 from ..catalog import Thread
-from ..catalog.parts import bearing_face_diameter, washer_size
+from ..catalog.parts import bearing_face_diameter
 from ..components import default_shank_length
 from ..errors import InputError
 from .model import JointSpec, LayerSpec, PartMaterial
+
+S = TypeVar("S")  # a frozen spec dataclass with a `defaults` field
 
 
 def head_bearing_diameter(thr: Thread, head: str) -> tuple[float, str]:
@@ -67,9 +70,12 @@ def clearance_hole(thr: Thread, key: str) -> tuple[float, str]:
     return thr.hole_medium, f"{thr.hole_medium * 1e3:g} mm (ISO 273 medium)"
 
 
-def plain_washer(d: float) -> tuple[float, float]:
-    """Default plain washer (thickness, outer diameter) [m] for a bolt of diameter ``d``."""
-    return washer_size(d)
+def shank_in_clamp(shank: float, lK: float) -> float:
+    """The plain shank as the bolt keeps it: cut to the clamp length ``lK`` within round-off.
+
+    A shank clearly longer than ``lK`` is kept as it is, so that :func:`check_fit` refuses it.
+    """
+    return shank if shank > lK * (1 + 1e-9) else min(shank, lK)
 
 
 def check_temperature(pm: PartMaterial, T: float, key: str) -> None:
@@ -189,7 +195,7 @@ def check_fit(spec: JointSpec, given: frozenset[str] = frozenset()) -> None:
         check_temperature(layer.material, T_asm, "service.assembly_temperature")
 
 
-def with_defaults(spec: JointSpec, notes: dict[str, str]) -> JointSpec:
-    """``spec`` with the printed notes of the defaults in ``notes`` replaced or added."""
+def with_defaults(spec: S, notes: dict[str, str]) -> S:
+    """``spec`` (a joint or flange spec) with the printed notes in ``notes`` replaced or added."""
     kept = tuple((k, v) for k, v in spec.defaults if k not in notes)
     return replace(spec, defaults=kept + tuple(notes.items()))

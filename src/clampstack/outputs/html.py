@@ -63,16 +63,7 @@ def assembly_html(result: AssemblyResult, source_name: str = "", sha256: str = "
     asm = result.assembly
     parts = []
     parts.append(f"<h1>{_e(asm.title)}</h1>")
-    parts.append(
-        f'<p class="meta">clampstack {__version__} &middot; '
-        f"{datetime.now(UTC).strftime('%Y-%m-%d %H:%M UTC')}"
-        + (
-            f" &middot; input {_e(source_name)} (SHA-256 {_e(sha256[:16])}&hellip;)"
-            if sha256
-            else ""
-        )
-        + "</p>"
-    )
+    parts.append(_meta(source_name, sha256))
     rows = "".join(
         f'<tr><td class="l">{_e(p.name)}</td><td class="l">{_e(p.ends[0])} &rarr; {_e(p.ends[1])}</td>'
         f"<td>{u.fmt('length', p.length)}</td><td>{u.fmt('area', p.area)}</td>"

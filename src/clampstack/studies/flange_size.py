@@ -26,7 +26,7 @@ from ..catalog.parts import bearing_face_diameter
 from ..errors import InputError
 from ..flange.analysis import analyse_flange, asme_app2
 from ..flange.model import FlangeSpec, bolt_allowable_stress, check_fit, ring_outer_diameter
-from ..joint.geometry import clearance_hole
+from ..joint.geometry import clearance_hole, with_defaults
 from ..joint.model import PartMaterial
 from .size import METRIC_GRADES, UNIFIED_GRADES
 
@@ -63,11 +63,10 @@ def flange_candidate_spec(
     if "bolt.allowable_stress" not in given:
         Sb, notes["bolt.allowable_stress"] = bolt_allowable_stress(grd, thread)
     Sa = base.allowable_stress_ambient if "bolt.allowable_stress_ambient" in given else Sb
-    patterns, order = base.patterns, base.order
+    patterns = base.patterns
     if "custom" in patterns:
         n_p = len(base.passes)
         patterns = ("cross",) * (n_p - 1) + ("circular" if n_p >= 3 else "cross",)
-    order = None
     spec = replace(
         base,
         thread=thread,
@@ -86,13 +85,12 @@ def flange_candidate_spec(
         torque=None,
         preload=None,
         patterns=patterns,
-        order=order,
+        order=None,
         given=frozenset(k for k in given if not k.startswith("nut"))
         - {"bolt.hole", "bolt.bearing_diameter", "tightening.torque", "tightening.preload"},
     )
     check_fit(spec)
-    kept = tuple((k, v) for k, v in spec.defaults if k not in notes)
-    return replace(spec, defaults=kept + tuple(notes.items()))
+    return with_defaults(spec, notes)
 
 
 def size_flange(base: FlangeSpec) -> dict[str, Any]:

@@ -26,6 +26,7 @@ import numpy as np
 from ..catalog import Thread, grades, threads
 from ..catalog import grade as catalog_grade
 from ..catalog import material as catalog_material
+from ..catalog.parts import washer_size
 from ..errors import InputError
 from ..joint import geometry
 from ..joint.model import JointSpec, LayerSpec, PartMaterial
@@ -113,7 +114,7 @@ def _layer(layer: LayerSpec, thr: Thread, first_hole: float, given: frozenset[st
     """A layer of the base joint on the candidate bolt: size defaults taken anew."""
     key = layer.key
     if layer.kind == "washer":
-        h_w, od_w = geometry.plain_washer(thr.d)
+        h_w, od_w = washer_size(thr.d)
         return replace(
             layer,
             thickness=layer.thickness if f"{key}.thickness" in given else h_w,
@@ -181,7 +182,7 @@ def candidate_spec(base: JointSpec, thr: Thread, grade: str, method: str) -> Joi
         thread=thr,
         grade=grd,
         length=length,
-        shank_length=shank if shank > lK * (1 + 1e-9) else min(shank, lK),
+        shank_length=geometry.shank_in_clamp(shank, lK),
         shank_diameter=None,
         bearing_diameter=dW,
         material=bolt_mat,
