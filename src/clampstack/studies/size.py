@@ -227,6 +227,20 @@ def size(base: JointSpec, progress: Any = None) -> SizeResult:
     evaluated = 0
 
     models: dict[tuple[int, str, str], TemperatureModel] = {}
+    sized: dict[tuple[int, str], JointSpec | InputError] = {}
+
+    def variant(i: int, g: str, method: str) -> JointSpec:
+        """The candidate: built once per size and grade, the method swapped in (all that
+        candidate_spec does with the method)."""
+        if (i, g) not in sized:
+            try:
+                sized[(i, g)] = candidate_spec(base, sizes[i], g, "torque")
+            except InputError as err:
+                sized[(i, g)] = err
+        spec = sized[(i, g)]
+        if isinstance(spec, InputError):
+            raise spec
+        return replace(spec, tightening=replace(spec.tightening, method=method))
 
     def cell(i: int, g: str, method: str) -> Design | None:
         """The design at (size i, grade, method) if it passes, else None (memoised)."""
@@ -250,7 +264,7 @@ def size(base: JointSpec, progress: Any = None) -> SizeResult:
         memo[key] = None
         thr = sizes[i]
         try:
-            spec = candidate_spec(base, thr, g, method)
+            spec = variant(i, g, method)
             # the springs depend on the size and the materials, not on grade or method
             mkey = (i, spec.bolt.material.name, spec.nut.material.name if spec.nut else "")
             if mkey not in models:
