@@ -120,8 +120,13 @@ def test_sweep_cli_json_and_csv(examples_dir):
     res = CliRunner().invoke(
         main, ["sweep", f, "--temperature", "-40..150", "--step", "10", "--json"]
     )
-    assert res.exit_code == 0, res.output
+    # the hot cover adds preload; with F_M,zul in R8 (VDI 2230-1) the working stress is the
+    # first check to fail, between 110 and 120 degC: the sweep exits 1 and names it
+    assert res.exit_code == 1, res.output
     out = json.loads(res.stdout)
+    assert out["check_basis"] == "permissible" and out["check_preload_N"] > 0
+    lim = {x["check"]: x["temperature_degC"] for x in out["limits"]}
+    assert 110 < lim["working_stress"] < 120
     assert len(out["points"]) == 20
     p0 = out["points"][0]
     for key in (

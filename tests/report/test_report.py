@@ -55,7 +55,7 @@ def test_report_sections_numbers_and_traceability(examples_dir):
     assert 'id="temperature"' not in page  # service at assembly temperature: no sweep
     assert page.count("<svg ") == 3  # schematic, joint diagram, load curves
     # job summary: verdict, governing check, torque spec
-    assert "<b>PASS</b>" in page and "governing check <b>assembly_preload</b>" in page
+    assert "<b>PASS</b>" in page and "governing check <b>working_stress</b>" in page
     assert f"{fmt_number(r.torque[0])}&nbsp;N&middot;m" in page
     # inputs as entered and the defaults applied
     assert "thread = &quot;M10&quot;" in page and "torque = &quot;48 N*m&quot;" in page

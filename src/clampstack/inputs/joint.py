@@ -335,6 +335,15 @@ REQUIREMENTS = Schema(
             positive=True,
         ),
         Key("fatigue_safety", "number", "safety against fatigue S_D", default="1.2", positive=True),
+        Key(
+            "check_basis",
+            "text",
+            "assembly preload of the working-stress, fatigue and surface-pressure checks: "
+            "permissible (F_M,zul, as VDI 2230-1 R8-R10) or actual (F_M,max of the given "
+            "torque or preload)",
+            default="permissible",
+            choices=("permissible", "actual"),
+        ),
     ),
 )
 
@@ -667,6 +676,7 @@ def requirement_table(
         rq["slip_friction"] or 0.15,
         slip_safety,
         rq["fatigue_safety"] or 1.2,
+        rq["check_basis"] or "permissible",
     )
 
 

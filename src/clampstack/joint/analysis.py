@@ -46,11 +46,20 @@ from .prepare import (
     Prepared,
     Springs,
     State,
+    check_bolt_loads,
     joint_network,
     prepare,
     solve_service,
 )
 from .thermal import TemperatureModel
+
+#: Checks whose value depends on the check preload (VDI 2230-1 R8-R10).
+BASIS_CHECKS = ("working_stress", "fatigue", "surface_pressure_head", "surface_pressure_nut")
+BASIS_NAMES = {
+    "permissible": "permissible preload F_M,zul",
+    "actual": "actual maximum preload F_M,max",
+    "yield": "maximum yield-controlled preload F_M,max",
+}
 
 # --------------------------------------------------------------------------- checks
 
@@ -72,13 +81,18 @@ class CheckRow:
 def evaluate_checks(
     prep: Prepared,
     T_bolt: Any,
+    FM_check: float,
     bolt_load_max: Any,
     amplitude: Any | None,
     bolt_load_mean: Any | None,
     residual_min: Any,
     separation_load: Any,
 ) -> tuple[list[CheckRow], list[str]]:
-    """The check chain on floats or arrays (VDI 2230-1 R7-R12); returns rows and notes."""
+    """The check chain on floats or arrays (VDI 2230-1 R7-R12); returns rows and notes.
+
+    ``FM_check`` is the assembly preload of R8-R10 (:meth:`Prepared.check_preload`);
+    ``bolt_load_max`` and ``bolt_load_mean`` come from it (:func:`check_bolt_loads`).
+    """
     s = prep.spec
     b, tr, srv, rq = s.bolt, s.tightening, s.service, s.requirements
     thr, grd = b.thread, b.grade
@@ -110,7 +124,7 @@ def evaluate_checks(
         Rp_T = 1.2 * np.asarray(Rp_T)
         basis += "; x 1.2 for the strongest bolt of a yield-tightened lot (from memory)"
     sigma = bolt_load_max / prep.A0
-    tau = prep.k_tau * prep.thread_torque_max / (math.pi * prep.d0**3 / 16)
+    tau = prep.k_tau * prep.thread_torque_factor * FM_check / (math.pi * prep.d0**3 / 16)
     sred = np.sqrt(sigma**2 + 3 * tau**2)
     rows.append(
         CheckRow(
@@ -321,6 +335,10 @@ class JointResult(Shown):
     residual_clamp_min: float
     required_assembly_min: float
     required_clamp_load: float
+    check_basis: str  # "permissible", "actual" or "yield" (Prepared.check_basis)
+    check_preload: float  # F_M of the checks R8-R10 [N]
+    bolt_load_max_actual: float  # F_S,max from F_M,max [N]
+    bolt_load_max_permissible: float  # F_S,max from F_M,zul [N] (F_M,max when yield-tightened)
     checks: tuple[Check, ...]
     notes: tuple[str, ...]
     assumptions: tuple[str, ...]
@@ -399,6 +417,8 @@ class JointResult(Shown):
                 "embedding_loss_N": self.embedding_loss,
                 "thermal_change_N": self.thermal_change,
                 "thermal_change_max_N": self.thermal_change_max,
+                "check_basis": self.check_basis,
+                "check_preload_N": self.check_preload,
             },
             "torque": torque,
             "service": {
@@ -408,6 +428,8 @@ class JointResult(Shown):
                 "temperature_degC": s.service.temperature - 273.15,
                 "assembly_temperature_degC": s.service.assembly_temperature - 273.15,
                 "bolt_load_max_N": self.bolt_load_max,
+                "bolt_load_max_actual_N": self.bolt_load_max_actual,
+                "bolt_load_max_permissible_N": self.bolt_load_max_permissible,
                 "residual_clamp_load_min_N": self.residual_clamp_min,
                 "required_clamp_load_N": self.required_clamp_load,
                 "separation_load_N": self.separation_load,
@@ -533,8 +555,16 @@ def analyse(spec: JointSpec) -> JointResult:
     thermal_change_max = hi["temperature"][0] - hi["embedded"][0]
     FV_T = lo["temperature"][1]  # clamp load at service temperature, no working load
     separation_load = max(FV_T, 0.0) / (1.0 - phi_n_s)
-    bolt_load_max = max(v[0] for v in hi.values())
     residual_min = min(v[1] for key, v in lo.items() if key.startswith("service"))
+
+    def check_loads(FM: float) -> tuple[float, float]:
+        # R8-R10 loads from the check preload (VDI 2230-1 rule of the thermal term)
+        FV_hot = (FM * (dSa + dPa) - th_bolt + th_clamp) / (dSs + dPs)
+        bm, mean_load = check_bolt_loads(FM, FV_hot, phi_n_s, FA_lo, FA_hi)
+        return float(bm), float(mean_load)
+
+    FM_check = prep.check_preload()
+    bolt_load_max, mean_check = check_loads(FM_check)
 
     # requirements: clamp load (VDI 2230-1 R2) and minimum assembly preload (R5)
     FQ = srv.shear_load
@@ -544,19 +574,60 @@ def analyse(spec: JointSpec) -> JointResult:
     required_FM = FKerf + (1 - phi_n_s) * max(FA_hi, 0.0) + prep.embedding_loss + thermal_loss
 
     amplitude = mean = None
-    if FA_lo != FA_hi:
+    alternating = FA_lo != FA_hi
+    if alternating:
         amplitude = max(
             abs(lo["service_max"][0] - lo["service_min"][0]),
             abs(hi["service_max"][0] - hi["service_min"][0]),
         ) / (2 * spec.bolt.thread.As)
-        # the larger mean load gives the lower endurance (rolled after heat treatment)
-        mean = 0.5 * max(
-            lo["service_max"][0] + lo["service_min"][0], hi["service_max"][0] + hi["service_min"][0]
-        )
+        mean = mean_check
+    T_b = spec.bolt.temperature
     rows, check_notes = evaluate_checks(
-        prep, spec.bolt.temperature, bolt_load_max, amplitude, mean, residual_min, separation_load
+        prep, T_b, FM_check, bolt_load_max, amplitude, mean, residual_min, separation_load
     )
+    # the same checks with the other preload, shown beside them as information
+    basis = prep.check_basis
+    other = {"permissible": "actual", "actual": "permissible"}.get(basis)
+    info: dict[str, dict[str, Any]] = {}
+    bolt_load_max_other = bolt_load_max
+    if other is not None:
+        FM_o = prep.check_preload(other)
+        bolt_load_max_other, mean_o = check_loads(FM_o)
+        rows_o, _ = evaluate_checks(
+            prep,
+            T_b,
+            FM_o,
+            bolt_load_max_other,
+            amplitude,
+            mean_o if alternating else None,
+            residual_min,
+            separation_load,
+        )
+        m_o = margins(rows_o)
+        for r in rows_o:
+            if r.name in BASIS_CHECKS:
+                mo = float(m_o[r.name])
+                info[r.name] = {
+                    "basis": other,
+                    "preload_N": FM_o,
+                    "value": float(r.value),
+                    "limit": float(r.limit),
+                    "margin": None if math.isinf(mo) else mo,
+                }
     skip = dict(spec.skips)
+
+    def detail(r: CheckRow) -> str:
+        if r.name not in BASIS_CHECKS:
+            return r.detail
+        text = f"{BASIS_NAMES[basis]} = {FM_check / 1e3:.4g} kN"
+        if r.name in info:
+            o = info[r.name]
+            text += (
+                f"; with {BASIS_NAMES[o['basis']]} = {o['preload_N'] / 1e3:.4g} kN: "
+                f"{o['value']:.4g} {r.unit} (information)"
+            )
+        return f"{r.detail}; {text}" if r.detail else text
+
     checks = tuple(
         Check(
             r.name,
@@ -566,8 +637,9 @@ def analyse(spec: JointSpec) -> JointResult:
             r.unit,
             r.relation,
             r.source,
-            r.detail,
+            detail(r),
             skip.get(r.name),
+            info.get(r.name),
         )
         for r in rows
     )
@@ -635,6 +707,12 @@ def analyse(spec: JointSpec) -> JointResult:
         residual_clamp_min=residual_min,
         required_assembly_min=required_FM,
         required_clamp_load=FKerf,
+        check_basis=basis,
+        check_preload=FM_check,
+        bolt_load_max_actual=bolt_load_max if basis != "permissible" else bolt_load_max_other,
+        bolt_load_max_permissible=(
+            bolt_load_max if basis == "permissible" else bolt_load_max_other
+        ),
         checks=checks,
         notes=tuple(notes),
         assumptions=prep.assumptions,

@@ -44,6 +44,8 @@ class Check:
     source: str
     detail: str = ""
     skipped: str | None = None  # reason, when switched off in the input
+    #: the same check on another basis, shown as information: {basis, preload_N, value, limit, margin}
+    information: dict[str, Any] | None = None
 
     @property
     def margin(self) -> float:
@@ -78,4 +80,5 @@ class Check:
             "source": self.source,
             "detail": self.detail,
             "skipped": self.skipped,
+            "information": self.information,
         }

@@ -180,6 +180,8 @@ class RequirementSpec:
     slip_friction: float
     slip_safety: float
     fatigue_safety: float
+    #: preload of the checks R8-R10: "permissible" (F_M,zul, VDI 2230-1) or "actual" (F_M,max)
+    check_basis: str = "permissible"
 
 
 @dataclass(frozen=True)

@@ -14,6 +14,7 @@ from __future__ import annotations
 import math
 from collections.abc import Callable
 from dataclasses import dataclass
+from typing import Any
 
 import numpy as np
 
@@ -84,12 +85,33 @@ class Prepared:
     alpha_A_basis: str
     torque: tuple[float, float, float] | None
     k_torque_fn: Callable[[float, float], float]
-    thread_torque_max: float  # M_G at F_M,max and mu_G,min [N*m]
+    thread_torque_factor: float  # M_G / F_M at mu_G,min [m]; 0 for tension tightening
     k_tau: float
     embedding_amount: float
     embedding_loss: float
     notes: tuple[str, ...]
     assumptions: tuple[str, ...]
+
+    @property
+    def check_basis(self) -> str:
+        """Basis of the checks R8-R10: "permissible", "actual", or "yield" (yield-controlled)."""
+        if self.spec.tightening.method in ("yield", "angle"):
+            return "yield"
+        return self.spec.requirements.check_basis
+
+    def check_preload(self, basis: str | None = None) -> float:
+        """Assembly preload of the working-stress, fatigue and surface-pressure checks [N].
+
+        VDI 2230-1:2015 evaluates R8 (working stress), R9 (mean load) and R10 (surface
+        pressure) with the permissible assembly preload ``F_M,zul``, whatever torque is
+        specified: ``basis = "permissible"``.  ``"actual"`` takes ``F_M,max`` of the given
+        torque or preload instead.  Yield-controlled tightening has no ``F_M,zul`` of its
+        own; its ``F_M,max`` (strongest bolt of the lot) is used in both cases.
+        """
+        basis = basis or self.check_basis
+        if basis == "permissible" and self.check_basis != "yield":
+            return self.permissible_preload
+        return self.assembly_max
 
 
 def torque_preload_range(
@@ -259,7 +281,7 @@ def prepare(spec: JointSpec, model: TemperatureModel | None = None) -> Prepared:
             )
         )
     FZ = fZ / (dSa + dPa)
-    MG = 0.0 if tr.method == "tension" else float(thread_torque(FM_max, thr.P, thr.d2, muG_lo))
+    kG = 0.0 if tr.method == "tension" else float(thread_torque(1.0, thr.P, thr.d2, muG_lo))
     return Prepared(
         spec,
         model,
@@ -273,7 +295,7 @@ def prepare(spec: JointSpec, model: TemperatureModel | None = None) -> Prepared:
         basis,
         torque,
         k_torque,
-        MG,
+        kG,
         0.0 if tr.method == "tension" else K_TAU,
         fZ,
         FZ,
@@ -350,3 +372,24 @@ def service_closed_form(
     FS = np.where(both, FS_a, np.where(FA_arr > 0, FA_arr, 0.0)) + 0.0  # + 0.0: no -0.0
     FK = np.where(both, FK_a, np.where(FA_arr < 0, -FA_arr, 0.0)) + 0.0
     return FS, FK
+
+
+def check_bolt_loads(
+    FM: Any, FV_T: Any, phi: Any, FA_lo: float, FA_hi: float
+) -> tuple[np.ndarray, np.ndarray]:
+    """Bolt loads of the checks R8-R10 for a check preload ``FM`` (vectorised).
+
+    VDI 2230-1:2015 R8: ``F_S,max = F_M + Phi F_A,max - Delta F'_Vth``, the thermal term
+    counted only where it raises the preload (from memory): the preload in service is
+    ``max(F_V,T, F_M)`` with ``F_V,T`` the preload ``FM`` becomes at service temperature
+    without embedding.  Through the joint network's closed form (exact past separation).
+    R9's mean load ``F_Sm = F_M + (F_SAo + F_SAu)/2`` (from memory) is taken from the same
+    preload.  Returns ``(F_S,max, F_Sm)`` [N]: the larger of assembly and service for
+    ``F_S,max`` (R10's assembly and service pressures use it too).
+    """
+    FM = np.asarray(FM, dtype=float)
+    FV = np.maximum(np.asarray(FV_T, dtype=float), FM)
+    hi = service_closed_form(FV, phi, FA_hi)[0]
+    lo = service_closed_form(FV, phi, FA_lo)[0]
+    bolt_max = np.maximum.reduce(np.broadcast_arrays(FM, FV, hi, lo))
+    return bolt_max, 0.5 * (hi + lo)

@@ -4,6 +4,7 @@ from __future__ import annotations
 
 import html
 import math
+from dataclasses import replace
 
 from ..joint.analysis import JointResult
 from .text import CAUTION, UNIT_SYSTEMS, DisplayUnits, fmt_number, table
@@ -55,6 +56,34 @@ def governing(r: JointResult):
     if r.preload_at_limit_by_design:
         active = [c for c in active if c.name != "assembly_preload"] or active
     return min(active, key=lambda c: c.margin) if active else None
+
+
+def basis_lines(r: JointResult, u: DisplayUnits) -> list[str]:
+    """Which preload the checks R8-R10 use, and those checks on the other basis."""
+    from ..joint.analysis import BASIS_NAMES
+
+    F = u.label("force")
+    how = {
+        "permissible": 'VDI 2230-1 R8-R10; [requirements] check_basis = "permissible"',
+        "actual": '[requirements] check_basis = "actual"; VDI 2230-1 uses F_M,zul',
+        "yield": "yield-controlled tightening",
+    }[r.check_basis]
+    lines = [
+        f"  working stress, fatigue and surface pressure with the {BASIS_NAMES[r.check_basis]}"
+        f" = {u.fmt('force', r.check_preload)} {F} ({how})"
+    ]
+    other = [c for c in r.checks if c.information]
+    if other:
+        o = other[0].information
+        shown = []
+        for c in other:
+            alt = replace(c, value=c.information["value"], limit=c.information["limit"])
+            shown.append(f"{c.name} {check_value(alt, u)[0]} ({_margin(alt)})")
+        lines.append(
+            f"  with the {BASIS_NAMES[o['basis']]} = {u.fmt('force', o['preload_N'])} {F} "
+            f"(information): {', '.join(shown)}"
+        )
+    return lines
 
 
 def joint_text(r: JointResult, units: str = "si") -> str:
@@ -156,6 +185,7 @@ def joint_text(r: JointResult, units: str = "si") -> str:
             right=[False, True, False, True, True, False, False],
         )
     )
+    out.extend(basis_lines(r, u))
     for c in r.checks:
         if c.skipped:
             out.append(f"  {c.name} switched off: {c.skipped}")

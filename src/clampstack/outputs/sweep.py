@@ -6,6 +6,7 @@ import html
 
 import numpy as np
 
+from ..joint.analysis import BASIS_NAMES
 from ..studies.sweep import C0, SweepResult
 from .text import CAUTION, UNIT_SYSTEMS, table
 
@@ -46,7 +47,8 @@ def sweep_text(r: SweepResult, units: str = "si") -> str:
     )
     out.append(
         f"Assembly preload {u.fmt('force', r.assembly_range[0])} .. "
-        f"{u.fmt('force', r.assembly_range[1])} {F}"
+        f"{u.fmt('force', r.assembly_range[1])} {F}; bolt stress and the checks R8-R10 with the "
+        f"{BASIS_NAMES[r.check_basis]} = {u.fmt('force', r.check_preload)} {F}"
     )
     out.append("")
     idx = np.arange(T.size)

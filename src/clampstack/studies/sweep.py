@@ -23,7 +23,7 @@ from ..display import Shown
 from ..errors import InputError, SolveError
 from ..joint.analysis import evaluate_checks, margins
 from ..joint.model import JointSpec
-from ..joint.prepare import Prepared, prepare, service_closed_form
+from ..joint.prepare import Prepared, check_bolt_loads, prepare, service_closed_form
 
 C0 = 273.15
 CHUNK = 20_000  # temperature points per piece when a progress bar is drawn
@@ -56,6 +56,8 @@ class SweepResult(Shown):
     assembly_range: tuple[float, float]  # assembly preload F_M,min, F_M,max
     skipped: dict[str, str]
     cycle: dict[str, Any] | None = None
+    check_basis: str = "permissible"  # preload of the checks R8-R10 (Prepared.check_basis)
+    check_preload: float = 0.0  # that preload [N]; bolt_load_max and the stresses follow it
 
     @property
     def thermal_change_cold(self) -> float:
@@ -95,6 +97,8 @@ class SweepResult(Shown):
             "assembly_temperature_degC": self.spec.service.assembly_temperature - C0,
             "assembly_preload_min_N": self.assembly_range[0],
             "assembly_preload_max_N": self.assembly_range[1],
+            "check_basis": self.check_basis,
+            "check_preload_N": self.check_preload,
             "points": points,
             "limits": [
                 {"check": lim.check, "temperature_degC": lim.temperature - C0, "fails": lim.fails}
@@ -137,9 +141,10 @@ def _evaluate(prep: Prepared, T: np.ndarray) -> dict[str, Any]:
         res[name] = (pre, clamp0, hi, lo)
     pre_min, clamp0_min, hi_min, lo_min = res["min"]
     pre_max, _, hi_max, lo_max = res["max"]
-    bolt_max = np.maximum.reduce(
-        [np.full_like(T, prep.assembly_max), pre_max, hi_max[0], lo_max[0]]
-    )
+    FM_check = prep.check_preload()
+    FV_check = (FM_check * (dSa + dPa) - (thb - thc)) / (dS + dP)
+    bolt_max, mean_check = check_bolt_loads(FM_check, FV_check, phi, FA_lo, FA_hi)
+    bolt_max = np.broadcast_to(bolt_max, T.shape)
     residual = np.minimum(hi_min[1], lo_min[1])
     separation = np.maximum(clamp0_min, 0.0) / (1 - phi)
     amplitude = mean = None
@@ -147,9 +152,11 @@ def _evaluate(prep: Prepared, T: np.ndarray) -> dict[str, Any]:
         amplitude = np.maximum(np.abs(hi_min[0] - lo_min[0]), np.abs(hi_max[0] - lo_max[0])) / (
             2 * s.bolt.thread.As
         )
-        mean = 0.5 * np.maximum(hi_min[0] + lo_min[0], hi_max[0] + lo_max[0])
+        mean = mean_check
     T_bolt = prep.model.part_T(s.bolt.temperature, T)
-    rows, _ = evaluate_checks(prep, T_bolt, bolt_max, amplitude, mean, residual, separation)
+    rows, _ = evaluate_checks(
+        prep, T_bolt, FM_check, bolt_max, amplitude, mean, residual, separation
+    )
     m = margins(rows)
     return {
         "pre_min": pre_min,
@@ -223,6 +230,8 @@ def sweep(
         assembly_range=(prep.assembly_min, prep.assembly_max),
         skipped=skipped,
         cycle=cyc,
+        check_basis=prep.check_basis,
+        check_preload=prep.check_preload(),
     )
 
 
