@@ -16,6 +16,7 @@ Units: SI (m, m^2, N, N*m, Pa).  Vectorised over numpy arrays.
 from __future__ import annotations
 
 import math
+from dataclasses import dataclass
 
 import numpy as np
 
@@ -23,8 +24,14 @@ from ._util import FloatArray, as_array, out, require
 from .tightening import CombinedStress, torsional_section_modulus
 
 __all__ = [
+    "BOLT_SHEAR_RATIO",
     "SHEAR_STRENGTH_RATIO",
     "CombinedStress",
+    "Stripping",
+    "bolt_shear_ratio",
+    "nut_dilation_factor",
+    "stripping_engagement",
+    "thread_bending_factors",
     "bearing_area",
     "endurance_rolled_after_heat_treatment",
     "endurance_rolled_before_heat_treatment",
@@ -437,6 +444,116 @@ def minimum_engagement(
         )
         Le = np.maximum(Le, capacity / per_length_ext)
     return out(Le)
+
+
+# --------------------------------------------------------- stripping, VDI 2230-1 5.5.5
+
+#: tau_B/R_m of bolt steels by property class (VDI 2230-1:2015 Table 7, from memory).
+BOLT_SHEAR_RATIO: dict[str, float] = {"8.8": 0.65, "10.9": 0.62, "12.9": 0.60}
+
+
+def bolt_shear_ratio(grade: str) -> tuple[float, str]:
+    """``tau_B/R_m`` of a bolt of property class ``grade`` and where it comes from."""
+    if grade in BOLT_SHEAR_RATIO:
+        return BOLT_SHEAR_RATIO[grade], "VDI 2230-1 Table 7 (from memory)"
+    return 0.6, "0.6 for steel (common practice, no source)"
+
+
+def nut_dilation_factor(s: FloatArray, d: FloatArray) -> FloatArray:
+    """Alexander's factor ``C1`` for the dilation (bell-mouthing) of a nut.
+
+    VDI 2230-1:2015 5.5.5.2 after Alexander (SAE 770420), from memory::
+
+        C1 = 3.8 (s/d) - (s/d)^2 - 2.61   for 1.4 <= s/d < 1.9
+        C1 = 1                            for s/d >= 1.9 (and for tapped holes)
+
+    ``s`` width across flats, ``d`` nominal diameter [m].  Below ``s/d = 1.4`` the
+    relation's end value is held (outside the published range).
+    """
+    r = np.clip(as_array(s) / as_array(d), 1.4, 1.9)
+    return out(np.where(r >= 1.9, 1.0, 3.8 * r - r**2 - 2.61))
+
+
+def thread_bending_factors(R_S: FloatArray) -> tuple[FloatArray, FloatArray]:
+    """Alexander's thread-bending factors ``(C2, C3)`` from the strength ratio ``R_S``.
+
+    VDI 2230-1:2015 5.5.5.2 after Alexander (SAE 770420), from memory; ``C2`` reduces the
+    external (bolt) thread, ``C3`` the internal (nut, tapped hole) thread::
+
+        C2 = 5.594 - 13.682 R_S + 14.107 R_S^2 - 6.057 R_S^3 + 0.9353 R_S^4  (1 < R_S <= 2.2)
+        C2 = 0.897                                                           (R_S <= 1)
+        C3 = 0.728 + 1.769 R_S - 2.896 R_S^2 + 1.296 R_S^3                   (0.4 < R_S < 1)
+        C3 = 0.897                                                           (R_S >= 1)
+
+    Outside the published ranges (``R_S > 2.2``, ``R_S < 0.4``) the end values are held.
+    """
+    r = as_array(R_S)
+    r2 = np.clip(r, 1.0, 2.2)
+    C2 = np.where(
+        r <= 1.0, 0.897, 5.594 - 13.682 * r2 + 14.107 * r2**2 - 6.057 * r2**3 + 0.9353 * r2**4
+    )
+    r3 = np.clip(r, 0.4, 1.0)
+    C3 = np.where(r >= 1.0, 0.897, 0.728 + 1.769 * r3 - 2.896 * r3**2 + 1.296 * r3**3)
+    return out(C2), out(C3)
+
+
+@dataclass(frozen=True)
+class Stripping:
+    """Minimum effective engagement against stripping (VDI 2230-1 5.5.5.2), SI units."""
+
+    required: float  # the larger of the two [m]
+    internal: float  # internal (nut, tapped) thread strips [m]
+    external: float  # bolt thread strips [m]
+    C1: float
+    C2: float
+    C3: float
+    strength_ratio: float  # R_S = tau_BM A_SGM / (tau_BS A_SGS)
+    governing: str  # "internal thread" or "bolt thread"
+
+
+def stripping_engagement(
+    d: float,
+    P: float,
+    As: float,
+    Rm_bolt: float,
+    tau_bolt: float,
+    tau_internal: float,
+    C1: float = 1.0,
+    d2: float | None = None,
+    D1: float | None = None,
+    D2: float | None = None,
+) -> Stripping:
+    """Minimum effective engagement at which neither thread strips before the bolt breaks.
+
+    VDI 2230-1:2015 5.5.5.2 after Alexander (SAE 770420), relations from memory::
+
+        m_eff,min,M = R_m,S A_s P / (C1 C3 tau_BM (P/2 + (d - D2) tan 30) pi d)
+        m_eff,min,S = R_m,S A_s P / (C1 C2 tau_BS (P/2 + (d2 - D1) tan 30) pi D1)
+        R_S = tau_BM A_SGM / (tau_BS A_SGS)
+
+    with the shear areas of the internal thread at ``d`` (``A_SGM``) and of the bolt
+    thread at ``D1`` (``A_SGS``) of the basic profile (ISO 68-1; FED-STD-H28/2 form, see
+    :func:`internal_thread_shear_area`), ``C1`` the nut dilation factor
+    (:func:`nut_dilation_factor`; 1 for a tapped hole) and ``C2``, ``C3`` from
+    :func:`thread_bending_factors`.  ``R_m,S`` is the bolt's tensile strength [Pa]
+    (VDI 2230-1 takes its maximum; pass it if known), ``tau_bolt`` and ``tau_internal``
+    the shear strengths [Pa].  The engagement is the effective one: full threads,
+    countersinks and runouts excluded.
+    """
+    D1 = d - 1.082532 * P if D1 is None else D1
+    D2 = d - 0.649519 * P if D2 is None else D2
+    d2 = d - 0.649519 * P if d2 is None else d2
+    require(min(d, P, As, Rm_bolt, tau_bolt, tau_internal, C1) > 0, "inputs must be positive")
+    t30 = math.tan(math.radians(30.0))
+    a_int = (P / 2 + (d - D2) * t30) * math.pi * d / P  # A_SGM per unit engagement
+    a_ext = (P / 2 + (d2 - D1) * t30) * math.pi * D1 / P  # A_SGS per unit engagement
+    R_S = tau_internal * a_int / (tau_bolt * a_ext)
+    C2, C3 = (float(x) for x in thread_bending_factors(R_S))
+    F = Rm_bolt * As
+    m_int = F / (C1 * C3 * tau_internal * a_int)
+    m_ext = F / (C1 * C2 * tau_bolt * a_ext)
+    gov = "internal thread" if m_int >= m_ext else "bolt thread"
+    return Stripping(max(m_int, m_ext), m_int, m_ext, float(C1), C2, C3, float(R_S), gov)
 
 
 # --------------------------------------------------------------------------- slip

@@ -110,6 +110,13 @@ NUT = Schema(
         ),
         Key("limiting_pressure", "stress", "limiting surface pressure of the part under the nut"),
         Key(
+            "width_across_flats",
+            "length",
+            "width across flats s (nut dilation in the stripping check)",
+            default="ISO 4032 (ASME B18.2.2 for inch threads)",
+            positive=True,
+        ),
+        Key(
             "temperature",
             "temperature",
             "service temperature of the nut",
@@ -623,6 +630,7 @@ def nut_table(
         mat.material.shear_ratio if mat.material else 0.6,
         nraw["limiting_pressure"],
         nraw["temperature"] if nraw["temperature"] is not None else T_bolt,
+        nraw["width_across_flats"] or thr.head_across_flats,
     )
 
 

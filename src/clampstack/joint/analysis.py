@@ -35,9 +35,11 @@ import numpy as np
 
 from ..catalog import yield_at_temperature
 from ..components import (
+    bolt_shear_ratio,
     endurance_rolled_after_heat_treatment,
     endurance_rolled_before_heat_treatment,
-    minimum_engagement,
+    nut_dilation_factor,
+    stripping_engagement,
 )
 from ..display import Shown
 from .checks import Check
@@ -76,6 +78,7 @@ class CheckRow:
     relation: str
     source: str
     detail: str = ""
+    extra: dict[str, Any] | None = None  # further JSON keys of the check
 
 
 def evaluate_checks(
@@ -206,7 +209,7 @@ def evaluate_checks(
             )
         )
     rows.extend(_surface_rows(s, bolt_load_max, notes))
-    rows.append(_stripping_row(s))
+    rows.append(_stripping_row(s, notes))
     return rows, notes
 
 
@@ -264,28 +267,77 @@ def _surface_rows(spec: JointSpec, F: Any, notes: list[str]) -> list[CheckRow]:
     return rows
 
 
-def _stripping_row(spec: JointSpec) -> CheckRow:
-    """Engagement length against thread stripping (VDI 2230-1 R11 with Alexander's method)."""
+#: Customary minimum engagement of a tapped thread by material family, in diameters
+#: (common practice, no source; e.g. 1 d in steel, 1.25 d in cast iron, 2 d in light alloys).
+CUSTOMARY_ENGAGEMENT: tuple[tuple[str, float, str], ...] = (
+    ("aluminium", 2.0, "aluminium"),
+    ("magnesium", 2.0, "magnesium"),
+    ("cast-iron", 1.25, "cast iron"),
+    ("steel", 1.0, "steel"),
+    ("stainless", 1.0, "steel"),
+    ("titanium", 1.0, "titanium"),
+)
+
+
+def _stripping_row(spec: JointSpec, notes: list[str]) -> CheckRow:
+    """Engagement against thread stripping: VDI 2230-1:2015 5.5.5.2 with Alexander's C1-C3."""
     thr, grd = spec.bolt.thread, spec.bolt.grade
+    tau_S_ratio, tau_S_src = bolt_shear_ratio(grd.name)
     if spec.tapped_hole is not None:
         th = spec.tapped_hole
-        Le, Rm, ratio, where = th.engagement, th.Rm, th.shear_ratio, "tapped hole"
+        Le, Rm, ratio, where, mat = th.engagement, th.Rm, th.shear_ratio, "tapped hole", th.material
+        C1, c1_text = 1.0, "C1 = 1 (tapped hole)"
     else:
         assert spec.nut is not None
         nut = spec.nut
-        Le, Rm, ratio, where = nut.height, nut.Rm, nut.shear_ratio, "nut"
-    need = float(minimum_engagement(thr.d, thr.P, thr.As, grd.Rm, Rm, ratio, shear_ratio_bolt=0.6))
+        Le, Rm, ratio, where, mat = nut.height, nut.Rm, nut.shear_ratio, "nut", nut.material
+        C1 = float(nut_dilation_factor(nut.across_flats, thr.d))
+        c1_text = f"C1 = {C1:.3g} (s/d = {nut.across_flats / thr.d:.3g})"
+    st = stripping_engagement(
+        thr.d, thr.P, thr.As, grd.Rm, tau_S_ratio * grd.Rm, ratio * Rm, C1, d2=thr.d2, D1=thr.d1
+    )
+    d = thr.d
+    if spec.tapped_hole is not None and mat.material is not None:
+        key = mat.material.key
+        for prefix, k, family in CUSTOMARY_ENGAGEMENT:
+            if key.startswith(prefix) and Le < k * d * (1 - 1e-9):
+                notes.append(
+                    f"Thread engagement {Le * 1e3:.3g} mm = {Le / d:.2g} d in {family}: below the "
+                    f"customary minimum of about {k:g} d ({k * d * 1e3:.3g} mm) for tapped threads "
+                    "in that material (common practice, no source), even where the stripping "
+                    "check passes."
+                )
+                break
+    elif spec.nut is not None and Le < 0.8 * d * (1 - 1e-9):
+        notes.append(
+            f"Nut height {Le * 1e3:.3g} mm is below 0.8 d, the height of a standard nut "
+            "(ISO 898-2 style 1 nuts have m >= 0.8 d; common practice for a thin nut: it may "
+            "strip before the bolt breaks)."
+        )
     return CheckRow(
         "thread_stripping",
         f"Thread engagement in the {where} long enough not to strip",
         Le * 1e3,
-        need * 1e3,
+        st.required * 1e3,
         "mm",
         ">=",
-        "VDI 2230-1:2015, 5.5.5, R11 / Alexander (SAE 770420); shear areas FED-STD-H28/2 "
-        "basic profile; shear ratios from memory",
-        f"internal thread R_m = {Rm / 1e6:.4g} MPa, tau_B/R_m = {ratio:g}; "
-        "bolt should break before the thread strips",
+        "VDI 2230-1:2015, 5.5.5.2 after Alexander (SAE 770420): minimum effective "
+        "engagement with nut dilation C1 and thread bending C2, C3 (relations from memory); "
+        "basic-profile shear areas",
+        f"governing: {st.governing}; {c1_text}, C2 = {st.C2:.3g}, C3 = {st.C3:.3g}, "
+        f"R_S = {st.strength_ratio:.3g}; internal thread R_m = {Rm / 1e6:.4g} MPa, "
+        f"tau_B/R_m = {ratio:g}; bolt R_m,min = {grd.Rm / 1e6:.4g} MPa, tau_B/R_m = "
+        f"{tau_S_ratio:g} ({tau_S_src}); engagement taken as effective (full threads)",
+        extra={
+            "required_engagement_mm": st.required * 1e3,
+            "internal_thread_engagement_mm": st.internal * 1e3,
+            "bolt_thread_engagement_mm": st.external * 1e3,
+            "C1": st.C1,
+            "C2": st.C2,
+            "C3": st.C3,
+            "strength_ratio": st.strength_ratio,
+            "governing": st.governing,
+        },
     )
 
 
@@ -640,6 +692,7 @@ def analyse(spec: JointSpec) -> JointResult:
             detail(r),
             skip.get(r.name),
             info.get(r.name),
+            r.extra,
         )
         for r in rows
     )

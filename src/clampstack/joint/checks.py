@@ -46,6 +46,7 @@ class Check:
     skipped: str | None = None  # reason, when switched off in the input
     #: the same check on another basis, shown as information: {basis, preload_N, value, limit, margin}
     information: dict[str, Any] | None = None
+    extra: dict[str, Any] | None = None  # further keys of the check's JSON form
 
     @property
     def margin(self) -> float:
@@ -81,4 +82,5 @@ class Check:
             "detail": self.detail,
             "skipped": self.skipped,
             "information": self.information,
+            **(self.extra or {}),
         }

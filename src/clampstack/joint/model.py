@@ -126,6 +126,7 @@ class NutSpec:
     shear_ratio: float
     limiting_pressure: float | None = None
     temperature: float = ROOM  # service temperature [K]
+    across_flats: float = 0.0  # width across flats s [m] (nut dilation, VDI 2230-1 C1)
 
 
 @dataclass(frozen=True)

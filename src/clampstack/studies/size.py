@@ -170,6 +170,7 @@ def candidate_spec(base: JointSpec, thr: Thread, grade: str, method: str) -> Joi
             material=mat,
             Rm=nut.Rm if "nut.strength" in given else grd.Rm,
             shear_ratio=mat.material.shear_ratio if mat.material else 0.6,
+            across_flats=thr.head_across_flats,
         )
         notes["nut.height"] = f"{thr.nut_height * 1e3:g} mm (ISO 4032)"
         length = lK0 + thr.nut_height + 2 * thr.P
@@ -188,7 +189,13 @@ def candidate_spec(base: JointSpec, thr: Thread, grade: str, method: str) -> Joi
         material=bolt_mat,
     )
     tightening = replace(base.tightening, method=method, torque=None, preload=None)
-    dropped = {"bolt.shank_length", "bolt.shank_diameter", "bolt.bearing_diameter", "nut.height"}
+    dropped = {
+        "bolt.shank_length",
+        "bolt.shank_diameter",
+        "bolt.bearing_diameter",
+        "nut.height",
+        "nut.width_across_flats",
+    }
     keys = (given - dropped) | {"bolt.thread", "bolt.grade", "bolt.length", "tightening.method"}
     spec = replace(
         base,
