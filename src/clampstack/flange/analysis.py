@@ -109,15 +109,55 @@ def asme_app2(spec: FlangeSpec) -> App2:
 # --------------------------------------------------------------------------- cross pattern
 
 
-def cross_order(n: int) -> list[int]:
-    """Star (cross) tightening order for n bolts, 0-based.
+#: ASME PCC-1 legacy cross-pattern tightening sequences (bolts numbered 1..N clockwise),
+#: ASME PCC-1-2013 Table 4 "Legacy cross-pattern tightening sequence and bolt-numbering
+#: system" (from memory).
+PCC1_LEGACY: dict[int, tuple[int, ...]] = {
+    4: (1, 3, 2, 4),
+    8: (1, 5, 3, 7, 2, 6, 4, 8),
+    12: (1, 7, 4, 10, 2, 8, 5, 11, 3, 9, 6, 12),
+    16: (1, 9, 5, 13, 3, 11, 7, 15, 2, 10, 6, 14, 4, 12, 8, 16),
+    20: (1, 11, 6, 16, 3, 13, 8, 18, 5, 15, 10, 20, 2, 12, 7, 17, 4, 14, 9, 19),
+    24: (1, 13, 7, 19, 4, 16, 10, 22, 2, 14, 8, 20, 5, 17, 11, 23, 3, 15, 9, 21, 6, 18, 12, 24),
+}
 
-    Greedy: the next bolt is the one farthest (angularly) from every bolt already
-    tightened; ties go to the bolt most nearly opposite the last one, then to the
-    lower number.  For 8 bolts this gives 1-5-3-7-2-6-4-8, the usual star pattern
-    (ASME PCC-1 legacy pattern; common practice).  The distance of every bolt to
-    the nearest tightened one is kept up to date, so the order costs O(n^2).
+
+def _quarter_offsets(q: int) -> list[int]:
+    """Offsets of the groups of four in a PCC-1-style pattern of ``4 q`` bolts.
+
+    The tabulated sequences of 8-24 bolts tighten groups of four bolts 90 degrees apart
+    (``1 + k``, ``1 + k + 2q``, ``1 + k + q``, ``1 + k + 3q``); the offsets ``k`` of the
+    groups follow ``0, q/2, 1, 1 + q/2, ...`` for even ``q`` and steps of ``(q - 1)/2``
+    for odd ``q`` (which reproduces every tabulated sequence).
     """
+    if q % 2 == 0:
+        return [k for i in range(q // 2) for k in (i, i + q // 2)]
+    step = max((q - 1) // 2, 1)
+    out: list[int] = []
+    k = 0
+    while len(out) < q:
+        while k in out:
+            k = (k + 1) % q
+        out.append(k)
+        k = (k + step) % q
+    return out
+
+
+def cross_order(n: int) -> list[int]:
+    """Cross-pattern tightening order for ``n`` bolts, 0-based (see :func:`cross_rule`).
+
+    4, 8, 12, 16, 20 and 24 bolts: the ASME PCC-1 legacy sequence (:data:`PCC1_LEGACY`).
+    Other multiples of four: the same construction (groups of four bolts 90 degrees apart,
+    group offsets as in :func:`_quarter_offsets`), our extension of the tabulated rows.
+    Any other count: greedy star, the next bolt being the one farthest (angularly) from
+    every bolt already tightened, ties to the bolt most nearly opposite the last one, then
+    to the lower number (common practice, no source); O(n^2).
+    """
+    if n in PCC1_LEGACY:
+        return [b - 1 for b in PCC1_LEGACY[n]]
+    if n % 4 == 0 and n > 0:
+        q = n // 4
+        return [k + j * q for k in _quarter_offsets(q) for j in (0, 2, 1, 3)]
     idx = np.arange(n)
 
     def ring_dist(a: np.ndarray, b: int) -> np.ndarray:
@@ -140,6 +180,21 @@ def cross_order(n: int) -> list[int]:
         left[best] = False
         nearest = np.minimum(nearest, ring_dist(idx, best))
     return done
+
+
+def cross_rule(n: int) -> str:
+    """The rule :func:`cross_order` follows for ``n`` bolts, as printed with the passes."""
+    if n in PCC1_LEGACY:
+        return f"ASME PCC-1 legacy cross pattern for {n} bolts (PCC-1-2013 Table 4, from memory)"
+    if n % 4 == 0:
+        return (
+            f"cross pattern for {n} bolts built as ASME PCC-1's legacy pattern (groups of four "
+            "bolts 90 degrees apart); PCC-1's own table was not at hand for this count"
+        )
+    return (
+        f"star pattern for {n} bolts: each next bolt the farthest from those already "
+        "tightened (common practice, no source); PCC-1 tabulates multiples of four"
+    )
 
 
 # --------------------------------------------------------------------------- the ring model
@@ -741,7 +796,22 @@ def analyse_flange(spec: FlangeSpec, compensate: bool = True) -> FlangeResult:
     _, srv_bolts, srv_gasket, sol = ring.solve(FA)
     residual = _equilibrium(srv_bolts, srv_gasket, FA)
 
-    # --- checks
+    # --- checks on the per-bolt loads after the last pass and in service.  The passes are
+    # simulated at the nominal preload; the assembly scatter scales the preload part of
+    # every load (exact for the linear ring): low = nominal x F_M,min/F_nom, high likewise.
+    lo_s, hi_s = FM_min / target, FM_max / target
+    after = assembly_bolts
+    peak = np.max(np.vstack(passes), axis=0)  # each bolt's largest force during the passes
+    bolts_lo = after * lo_s
+    gasket_asm_lo, gasket_asm_hi = asm_gasket * lo_s, asm_gasket * hi_s
+    gasket_srv_lo = srv_gasket - (1 - lo_s) * asm_gasket
+    gasket_srv_hi = srv_gasket + (hi_s - 1) * asm_gasket
+    bolts_srv_hi = srv_bolts + (hi_s - 1) * after
+    sector_area = g.area / n
+
+    def bolt_no(i: int | np.integer) -> str:
+        return f"bolt {int(i) + 1}"
+
     checks = []
     checks.append(
         Check(
@@ -756,65 +826,101 @@ def analyse_flange(spec: FlangeSpec, compensate: bool = True) -> FlangeResult:
             f"S_b = {spec.allowable_stress / 1e6:.4g} MPa, S_a = {spec.allowable_stress_ambient / 1e6:.4g} MPa",
         )
     )
+    i = int(np.argmin(bolts_lo))
+    checks.append(
+        Check(
+            "bolt_preload_window",
+            "Every bolt after the last pass at least the low end of the preload window",
+            float(bolts_lo[i]) / 1e3,
+            lo_w / 1e3,
+            "kN",
+            ">=",
+            "ASME BPVC VIII-1 Appendix 2, 2-5 (W_m2/N, H_p/N); bolt loads of the pass "
+            "sequence with elastic interaction (ring network, ASME PCC-1 practice)",
+            f"{bolt_no(i)}, after the last pass at the smallest assembly preload; window "
+            f"{lo_w / 1e3:.4g} .. {hi_w / 1e3:.4g} kN ({lo_reason} .. {hi_reason})",
+            extra={"governing_bolt": int(i) + 1},
+        )
+    )
+    i = int(np.argmin(gasket_asm_lo))
     checks.append(
         Check(
             "gasket_seating",
-            "Smallest total assembly preload seats the gasket (W >= W_m2)",
-            FM_min * n / 1e3,
-            a.Wm2 / 1e3,
+            "Gasket load of every sector after the last pass seats the gasket (W_m2/N)",
+            float(gasket_asm_lo[i]) / 1e3,
+            a.Wm2 / n / 1e3,
             "kN",
             ">=",
-            "ASME BPVC VIII-1 Appendix 2, 2-5 (W_m2 = pi b G y)",
+            "ASME BPVC VIII-1 Appendix 2, 2-5 (W_m2 = pi b G y), per bolt sector; ring network "
+            "after the pass sequence",
+            f"sector of {bolt_no(i)}, smallest assembly preload; total "
+            f"{float(np.sum(gasket_asm_lo)) / 1e3:.4g} kN against W_m2 = {a.Wm2 / 1e3:.4g} kN",
+            extra={"governing_bolt": int(i) + 1},
         )
     )
     op_need = a.Hp / n
+    i = int(np.argmin(gasket_srv_lo))
     checks.append(
         Check(
             "gasket_operating",
             "Gasket load in service at least m times the pressure (per sector)",
-            float(np.min(srv_gasket)) / 1e3 * (FM_min / target),
+            float(gasket_srv_lo[i]) / 1e3,
             op_need / 1e3,
             "kN",
             ">=",
-            "ASME BPVC VIII-1 Appendix 2, 2-5 (H_p = 2 b pi G m P); ring network in service, "
-            "scaled to the smallest assembly preload",
+            "ASME BPVC VIII-1 Appendix 2, 2-5 (H_p = 2 b pi G m P); ring network in service "
+            "after the pass sequence, at the smallest assembly preload",
+            f"sector of {bolt_no(i)}",
+            extra={"governing_bolt": int(i) + 1},
         )
     )
+    crush_all = np.concatenate([gasket_asm_hi, gasket_srv_hi])
+    i = int(np.argmax(crush_all))
+    when = "at assembly" if i < n else "in service"
     checks.append(
         Check(
             "gasket_crush",
-            "Largest gasket stress at assembly below the crush limit",
-            FM_max * n / g.area / 1e6,
+            "Largest gasket stress (per sector, assembly and service) below the crush limit",
+            float(crush_all[i]) / sector_area / 1e6,
             g.max_stress / 1e6,
             "MPa",
             "<=",
-            f"gasket data: {g.source}",
+            f"gasket data: {g.source}; ring network after the pass sequence",
+            f"sector of {bolt_no(i % n)} {when}, largest assembly preload",
+            extra={"governing_bolt": int(i % n) + 1},
         )
     )
+    i = int(np.argmax(peak))
     checks.append(
         Check(
             "assembly_preload",
-            "Largest assembly preload within the permissible preload",
-            FM_max / 1e3,
+            "Largest bolt load during the passes within the permissible preload",
+            float(peak[i]) * hi_s / 1e3,
             FMzul / 1e3,
             "kN",
             "<=",
             f"VDI 2230-1:2015, 5.5.1, R7 (nu = {spec.utilization:g})",
+            f"{bolt_no(i)}, largest assembly preload",
+            extra={"governing_bolt": int(i) + 1},
         )
     )
     Rp_T, basis = yield_at_temperature(grd, spec.T_bolt)
-    worst = float(np.max(srv_bolts)) * (FM_max / target)
+    i = int(np.argmax(bolts_srv_hi))
     checks.append(
         Check(
             "bolt_service_stress",
             "Largest bolt stress in service below the yield point",
-            worst / thr.As / 1e6,
+            float(bolts_srv_hi[i]) / thr.As / 1e6,
             float(Rp_T) / 1e6,
             "MPa",
             "<=",
             f"axial stress on A_s against R_p0.2 at the bolt temperature ({basis})",
+            f"{bolt_no(i)}, largest assembly preload",
+            extra={"governing_bolt": int(i) + 1},
         )
     )
+    if "cross" in spec.patterns:
+        notes.append(f"Cross passes: {cross_rule(n)}.")
     if spec.unused:
         notes.append(
             f"Not used by the flange model: {', '.join(spec.unused)} (no thread-"

@@ -135,15 +135,20 @@ def flange_text(r: FlangeResult, units: str = "si") -> str:
                 limit,
                 _margin(c),
                 verdict,
+                str((c.extra or {}).get("governing_bolt", "")),
                 c.source,
             ]
         )
     out.append(
         table(
-            ["check", "value", "", "limit", "margin", "result", "source"],
+            ["check", "value", "", "limit", "margin", "result", "bolt", "source"],
             crow,
-            right=[False, True, False, True, True, False, False],
+            right=[False, True, False, True, True, False, True, False],
         )
+    )
+    out.append(
+        "  bolt: the governing bolt (or its gasket sector), from the per-bolt loads after the "
+        "last pass and in service; the assembly scatter scales the preload part of each load."
     )
     if r.notes:
         out.append("")
