@@ -54,32 +54,62 @@ def _app2():
 # H = 0.785 G^2 P = 0.785 x 19.70277 x 580.151 = 8972.9 lbf
 # H_p = 2 b 3.14 G m P = 2 x 0.28060 x 3.14 x 4.43878 x 3 x 580.151 = 13 613.7 lbf
 # W_m2 = 3.14 b G y = 3.14 x 0.28060 x 4.43878 x 10 000 = 39 109.2 lbf
-@register("App. 2 effective gasket width b", G)
+@register("App. 2 effective gasket width b", G, kind="hand")
 def app2_b() -> Outcome:
     return Outcome(_app2().b / INCH, 0.28060, 1e-4, APP2, "in")
 
 
-@register("App. 2 gasket reaction diameter G", G)
+@register("App. 2 gasket reaction diameter G", G, kind="hand")
 def app2_G() -> Outcome:
     return Outcome(_app2().G / INCH, 4.43878, 1e-5, APP2, "in")
 
 
-@register("App. 2 hydrostatic end force H", G)
+@register("App. 2 hydrostatic end force H", G, kind="hand")
 def app2_H() -> Outcome:
     return Outcome(_app2().H / LBF, 8972.9, 2e-4, APP2, "lbf")
 
 
-@register("App. 2 joint contact load H_p", G)
+@register("App. 2 joint contact load H_p", G, kind="hand")
 def app2_Hp() -> Outcome:
     return Outcome(_app2().Hp / LBF, 13613.7, 2e-4, APP2, "lbf")
 
 
-@register("App. 2 seating load W_m2", G)
+@register("App. 2 seating load W_m2", G, kind="hand")
 def app2_Wm2() -> Outcome:
     return Outcome(_app2().Wm2 / LBF, 39109.2, 2e-4, f"{APP2} (y from memory)", "lbf")
 
 
-@register("App. 2 narrow gasket: G is the mean diameter", G)
+# W_m1, A_m, A_b and W (App. 2-5(c), (d), (e)) for the same flange, pressure only, by hand
+# (more digits than above: H = 0.785 x 4.438786^2 x 580.1510 = 8973.03 lbf,
+# H_p = 13 613.95 lbf, W_m2 = 39 110.38 lbf):
+# W_m1 = H + H_p = 22 586.99 lbf
+# S_b = S_a = min(R_m/5, R_p0.2/4) = min(800/5, 640/4) = 160 MPa = 23 206.04 psi (M16 8.8;
+#   clampstack's default, bolting design factors of ASME II-D, from memory)
+# A_m = max(W_m1/S_b, W_m2/S_a) = 39 110.38/23 206.04 = 1.685354 in^2 (seating governs)
+# A_b = 8 x pi/4 d3^2, d3 = 16 - 1.226869 x 2 = 13.546262 mm: 8 x 144.1215 = 1152.972 mm^2
+#     = 1.787110 in^2
+# W = (A_m + A_b) S_a/2 = 3.472464 x 23 206.04/2 = 40 291.07 lbf
+@register("App. 2 operating load W_m1 = H + H_p", G, kind="hand")
+def app2_Wm1() -> Outcome:
+    return Outcome(_app2().Wm1 / LBF, 22586.99, 1e-6, APP2, "lbf")
+
+
+@register("App. 2 required bolt area A_m", G, kind="hand")
+def app2_Am() -> Outcome:
+    return Outcome(_app2().Am / INCH**2, 1.685354, 1e-6, f"{APP2} (y from memory)", "in^2")
+
+
+@register("App. 2 available bolt area A_b (root area)", G, kind="hand")
+def app2_Ab() -> Outcome:
+    return Outcome(_app2().Ab * 1e6, 1152.972, 1e-6, f"{APP2}, d3 of ISO 898-1", "mm^2")
+
+
+@register("App. 2 flange design bolt load W = (A_m + A_b) S_a/2", G, kind="hand")
+def app2_W() -> Outcome:
+    return Outcome(_app2().W / LBF, 40291.07, 1e-6, f"{APP2}, 2-5(e) (y from memory)", "lbf")
+
+
+@register("App. 2 narrow gasket: G is the mean diameter", G, kind="hand")
 def app2_narrow() -> Outcome:
     # b0 = (120 - 100)/4 = 5 mm <= 1/4 in: b = b0 and G = (100 + 120)/2 = 110 mm
     from ..flange.analysis import asme_app2
@@ -149,7 +179,9 @@ def _rigid_interaction() -> tuple[Any, Any]:
     return sim, F
 
 
-@register("elastic interaction: first bolt after one cross pass, rigid flange", G)
+@register(
+    "elastic interaction: first bolt after one cross pass, rigid flange", G, kind="consistency"
+)
 def interaction_first() -> Outcome:
     sim, F = _rigid_interaction()
     return Outcome(
@@ -161,7 +193,9 @@ def interaction_first() -> Outcome:
     )
 
 
-@register("elastic interaction: mean bolt load after one cross pass, rigid flange", G)
+@register(
+    "elastic interaction: mean bolt load after one cross pass, rigid flange", G, kind="consistency"
+)
 def interaction_mean() -> Outcome:
     sim, F = _rigid_interaction()
     return Outcome(
@@ -173,7 +207,7 @@ def interaction_mean() -> Outcome:
     )
 
 
-@register("most loaded bolt under axial force and bending moment", G)
+@register("most loaded bolt under axial force and bending moment", G, kind="hand")
 def moment_loading() -> Outcome:
     # F_i = F/N + M r cos(theta_i)/sum_j(r^2 cos^2 theta_j) = F/N + 4 M cos(theta_i)/(N D_bc):
     # 16 kN/8 + 4 x 4 kN*m/(8 x 0.160 m)

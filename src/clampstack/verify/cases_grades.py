@@ -31,7 +31,7 @@ def _strength(name: str, cls: str, d: float, attr: str, value: float, unit: str,
         tol = 0.01 if "A193" in cls else 1e-3
         return Outcome(got / factor, value, tol, source, unit)
 
-    add(name, "grades", fn)
+    add(name, "grades", fn, kind="published")
 
 
 # ISO 898-1:2013 Table 3 (minimum strengths; the project's reference sheet)
@@ -100,7 +100,7 @@ def _proof_load(size: str, cls: str, load: float):
             "kN",
         )
 
-    add(f"proof load {size} class {cls}", "grades", fn)
+    add(f"proof load {size} class {cls}", "grades", fn, kind="published")
 
 
 _proof_load("M10", "8.8", 33_700)
@@ -115,7 +115,7 @@ def _yield_hot(cls: str, T_c: float, value: float):
         val, _ = yield_at_temperature(grade(cls, 10e-3), T_c + 273.15)
         return Outcome(val / MPA, value, 0.005, "ISO 898-1:2013 Annex A (from memory)", "MPa")
 
-    add(f"R_p0.2 of class {cls} at {T_c:g} degC", "grades", fn)
+    add(f"R_p0.2 of class {cls} at {T_c:g} degC", "grades", fn, kind="published")
 
 
 _yield_hot("8.8", 200, 545)
@@ -130,7 +130,7 @@ def _modulus(F: float, E_mpsi: float):
             E / PSI / 1e6, E_mpsi, 0.01, "ASME BPVC II-D Table TM-1 (from memory)", "Mpsi"
         )
 
-    add(f"modulus of carbon steel at {F:g} degF", "grades", fn)
+    add(f"modulus of carbon steel at {F:g} degF", "grades", fn, kind="published")
 
 
 _modulus(200, 28.8)
@@ -146,4 +146,4 @@ def _te1() -> Outcome:
     )
 
 
-add("mean expansion of carbon steel at 70 degF", "grades", _te1)
+add("mean expansion of carbon steel at 70 degF", "grades", _te1, kind="published")

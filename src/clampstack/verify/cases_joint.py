@@ -58,13 +58,13 @@ def _FV(r) -> float:
     return r.assembly_min - r.embedding_loss
 
 
-@register("load factor Phi_n = n delta_P/(delta_S + delta_P)", G)
+@register("load factor Phi_n = n delta_P/(delta_S + delta_P)", G, kind="consistency")
 def load_factor() -> Outcome:
     r = _result()
     return Outcome(r.load_factor, _phi(r), TIGHT, "VDI 2230-1:2015 5.3.1, closed form")
 
 
-@register("bolt load F_S = F_V + Phi_n F_A", G)
+@register("bolt load F_S = F_V + Phi_n F_A", G, kind="consistency")
 def bolt_load() -> Outcome:
     r = _result()
     got = _states(r)["service_max"].bolt_min
@@ -73,7 +73,7 @@ def bolt_load() -> Outcome:
     )
 
 
-@register("residual clamp load F_K = F_V - (1 - Phi_n) F_A", G)
+@register("residual clamp load F_K = F_V - (1 - Phi_n) F_A", G, kind="consistency")
 def clamp_load() -> Outcome:
     r = _result()
     return Outcome(
@@ -85,7 +85,7 @@ def clamp_load() -> Outcome:
     )
 
 
-@register("separation load F_A,sep = F_V/(1 - Phi_n)", G)
+@register("separation load F_A,sep = F_V/(1 - Phi_n)", G, kind="consistency")
 def separation() -> Outcome:
     r = _result()
     return Outcome(
@@ -97,7 +97,7 @@ def separation() -> Outcome:
     )
 
 
-@register("bolt carries F_A beyond separation", G)
+@register("bolt carries F_A beyond separation", G, kind="consistency")
 def beyond_separation() -> Outcome:
     r = _result("0..45 kN")
     got = _states(r)["service_max"].bolt_min
@@ -106,7 +106,7 @@ def beyond_separation() -> Outcome:
     )
 
 
-@register("embedding loss in the joint F_Z = f_Z/(delta_S + delta_P)", G)
+@register("embedding loss in the joint F_Z = f_Z/(delta_S + delta_P)", G, kind="consistency")
 def embedding() -> Outcome:
     r = _result()
     dS, dP = r.springs.delta_S, r.springs.delta_P
@@ -119,7 +119,7 @@ def embedding() -> Outcome:
     )
 
 
-@register("maximum assembly preload F_M,max = M_A,max / k(mu_min)", G)
+@register("maximum assembly preload F_M,max = M_A,max / k(mu_min)", G, kind="consistency")
 def torque_preload() -> Outcome:
     # ISO 16047 / VDI 2230-1 R13: M_A = F_M (0.16 P + 0.58 d2 mu_G + mu_K D_Km/2) with
     # D_Km = (d_W + d_h)/2 of the nut; M_A,max = 90 x 1.06 N*m (torque tolerance +-6 %)
@@ -136,7 +136,7 @@ def torque_preload() -> Outcome:
     )
 
 
-@register("required assembly preload F_M,erf = (1 - Phi_n) F_A + F_Z", G)
+@register("required assembly preload F_M,erf = (1 - Phi_n) F_A + F_Z", G, kind="consistency")
 def required_preload() -> Outcome:
     # VDI 2230-1 R5 without a required residual clamp load and at one temperature:
     # F_M,erf = F_Kerf + (1 - Phi_n) F_A,max + F_Z with F_Kerf = 0

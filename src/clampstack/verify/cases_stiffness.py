@@ -25,7 +25,7 @@ LBF_PER_IN = 4.4482216152605 / INCH
 G = "stiffness"
 
 
-@register("VDI bolt resilience, M10 hex, l_K = 30 mm", G)
+@register("VDI bolt resilience, M10 hex, l_K = 30 mm", G, kind="hand")
 def vdi_bolt() -> Outcome:
     # VDI 2230-1:2015 5.1.1, M10 hex bolt, l_K = 30 mm, plain shank 10 mm of d = 10 mm,
     # E = 205 000 MPa, nut.  A_N = 78.540 mm^2, A_d3 = pi/4 8.15970^2 = 52.292 mm^2:
@@ -38,7 +38,7 @@ def vdi_bolt() -> Outcome:
     )
 
 
-@register("VDI cone, through bolt, full cone", G)
+@register("VDI cone, through bolt, full cone", G, kind="hand")
 def vdi_cone() -> Outcome:
     # VDI 2230-1:2015 5.1.2.1, l_K = 30, d_W = 16, d_h = 11, D'_A = 40 mm, steel:
     # beta_L = 1.875, y = 2.5
@@ -52,7 +52,7 @@ def vdi_cone() -> Outcome:
     )
 
 
-@register("VDI cone + sleeve, tapped joint", G)
+@register("VDI cone + sleeve, tapped joint", G, kind="hand")
 def vdi_cone_sleeve() -> Outcome:
     # VDI 2230-1:2015 5.1.2.1, tapped (w = 2), same geometry:
     # tan phi_E = 0.348 + 0.013 ln(1.875) + 0.193 ln(2.5) = 0.533016
@@ -75,7 +75,7 @@ def _two_materials():
 # tan phi = 0.500127; cone from the head D(10) = 26.0025, meets its mirror at 15 mm.
 # steel 0..10: ln[27 x 15.0025/(5 x 37.0025)]/(205 000 pi 11 x 0.500127) = 2.21175e-7 mm/N
 # aluminium 10..30: (ln 1.174602 + ln 2.571686)/(70 000 pi 11 x 0.500127) = 9.13764e-7 mm/N
-@register("VDI cone sliced, steel plate of a steel/aluminium stack", G)
+@register("VDI cone sliced, steel plate of a steel/aluminium stack", G, kind="hand")
 def vdi_slice_steel() -> Outcome:
     return Outcome(
         _two_materials()[0] * 1e3 * 1e7,
@@ -86,7 +86,7 @@ def vdi_slice_steel() -> Outcome:
     )
 
 
-@register("VDI cone sliced, aluminium plate of a steel/aluminium stack", G)
+@register("VDI cone sliced, aluminium plate of a steel/aluminium stack", G, kind="hand")
 def vdi_slice_alu() -> Outcome:
     return Outcome(
         _two_materials()[1] * 1e3 * 1e7,
@@ -97,7 +97,7 @@ def vdi_slice_alu() -> Outcome:
     )
 
 
-@register("sleeve resilience, 70 mm aluminium tube 24/13 mm", G)
+@register("sleeve resilience, 70 mm aluminium tube 24/13 mm", G, kind="hand")
 def sleeve() -> Outcome:
     # Hooke's law for a tube (VDI 2230-1 5.1.2, sleeve case): delta = 4 l/(E pi (D^2 - d^2))
     # A = pi/4 (24^2 - 13^2) = pi/4 x 407 = 319.657 mm^2
@@ -108,7 +108,7 @@ def sleeve() -> Outcome:
     )
 
 
-@register("Shigley frustum, eq. (8-20)", G)
+@register("Shigley frustum, eq. (8-20)", G, kind="hand")
 def shigley_single() -> Outcome:
     # Shigley ch. 8, eq. (8-20), t = 0.75 in, d = 0.5 in, D = 0.75 in, E = 30 Mpsi:
     # ln[(1.155 x 0.75 + 0.25)(1.25)/((1.155 x 0.75 + 1.25)(0.25))] = ln(2.637330) = 0.969767
@@ -123,7 +123,7 @@ def shigley_single() -> Outcome:
     )
 
 
-@register("Shigley members, two equal steel plates, eq. (8-22)", G)
+@register("Shigley members, two equal steel plates, eq. (8-22)", G, kind="hand")
 def shigley_two_plates() -> Outcome:
     # Shigley ch. 8, eq. (8-22): d = 0.5 in, l = 1.5 in, D = 1.5 d, E = 30 Mpsi:
     # 5 (0.5774 l + 0.5 d)/(0.5774 l + 2.5 d) = 5.5805/2.1161 = 2.63716; ln = 0.96970
@@ -138,7 +138,7 @@ def shigley_two_plates() -> Outcome:
     )
 
 
-@register("Shigley members, steel on cast iron, three frusta", G)
+@register("Shigley members, steel on cast iron, three frusta", G, kind="hand")
 def shigley_cast_iron() -> Outcome:
     # Shigley ch. 8, members of different materials split into frusta in series.
     # d = 0.5 in, D = 0.75 in; steel 0.5 in (30 Mpsi) on cast iron 1.0 in (14.5 Mpsi):
@@ -154,7 +154,7 @@ def shigley_cast_iron() -> Outcome:
     )
 
 
-@register("Wileman fit, 1/2 in steel bolt, 1.5 in grip", G)
+@register("Wileman fit, 1/2 in steel bolt, 1.5 in grip", G, kind="hand")
 def wileman_steel() -> Outcome:
     # Wileman, Choudhury and Green (1991), k_m = E d A exp(B d/l), steel A = 0.78715,
     # B = 0.62873 (as reproduced in Shigley ch. 8, eq. (8-23)):
@@ -169,7 +169,7 @@ def wileman_steel() -> Outcome:
     )
 
 
-@register("Wileman fit, aluminium, d/l = 0.5", G)
+@register("Wileman fit, aluminium, d/l = 0.5", G, kind="hand")
 def wileman_alu() -> Outcome:
     # k_m/(E d) = A exp(B d/l), aluminium A = 0.79670, B = 0.63816 (from memory):
     # 0.79670 x e^(0.31908) = 0.79670 x 1.375861 = 1.09615

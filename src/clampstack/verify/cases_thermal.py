@@ -18,7 +18,7 @@ G = "thermal"
 GERE = "Gere & Goodno, Mechanics of Materials, ch. 2, thermal effects"
 
 
-@register("heated bar between rigid walls, stress", G)
+@register("heated bar between rigid walls, stress", G, kind="hand")
 def heated_bar() -> Outcome:
     # sigma = -E alpha dT = -205 000 MPa x 11.5e-6 /K x 60 K = -141.45 MPa (any length)
     E, alpha, dT, A, L = 205e9, 11.5e-6, 60.0, 3.0e-4, 0.45
@@ -27,7 +27,7 @@ def heated_bar() -> Outcome:
     return Outcome(s.force[0] / A / 1e6, -141.45, 1e-9, f"{GERE}, hand calculation", "MPa")
 
 
-@register("heated steel/aluminium bar between rigid walls, force", G)
+@register("heated steel/aluminium bar between rigid walls, force", G, kind="hand")
 def heated_two_materials() -> Outcome:
     # steel 300 mm, 400 mm^2, 205 GPa, 11.5e-6 /K; aluminium 200 mm, 900 mm^2, 70 GPa,
     # 23e-6 /K; both warmed by 45 K:
@@ -48,7 +48,7 @@ def heated_two_materials() -> Outcome:
     return Outcome(net.solve().force[0] / 1e3, -53.0137, 2e-6, f"{GERE}, hand calculation", "kN")
 
 
-@register("steel rod in a warmer-growing sleeve, rod force", G)
+@register("steel rod in a warmer-growing sleeve, rod force", G, kind="hand")
 def rod_in_sleeve() -> Outcome:
     # rod k_r = 300 kN/mm and sleeve k_s = 900 kN/mm between the same two nodes, L = 100 mm,
     # the sleeve expands 12e-6 /K more, dT = 80 K: mismatch 12e-6 x 80 x 100 = 0.096 mm
@@ -102,7 +102,7 @@ def _constant_moduli():
     )
 
 
-@register("thermal preload change, constant moduli", G)
+@register("thermal preload change, constant moduli", G, kind="consistency")
 def thermal_constant() -> Outcome:
     # VDI 2230-1 5.4.2.3 with constant moduli: dF = -l_K (alpha_S - alpha_P) dT/(delta_S + delta_P)
     # l_K = 40 mm, alpha_S = 11e-6, alpha_P = 23e-6 /K, dT = 80 K (a gain: the plates grow more)
@@ -114,7 +114,7 @@ def thermal_constant() -> Outcome:
     )
 
 
-@register("thermal preload change, steel in steel at 300 degC (moduli only)", G)
+@register("thermal preload change, steel in steel at 300 degC (moduli only)", G, kind="consistency")
 def thermal_modulus_only() -> Outcome:
     # Same catalog steel for bolt, nut and plates at one temperature: the free thermal
     # elongations cancel; F_T = F_V (delta_S + delta_P)/(delta_S,T + delta_P,T)
@@ -153,7 +153,7 @@ def _epp_joint(T_service: str) -> dict[str, Any]:
     }
 
 
-@register("permanent loss of a bolt yielding in a heat cycle", G)
+@register("permanent loss of a bolt yielding in a heat cycle", G, kind="consistency")
 def epp_loss() -> Outcome:
     # Elastic-perfectly-plastic bar in parallel with an elastic member (Gere & Goodno ch. 2,
     # elastoplastic analysis): heating adds dF_th; above the yield force Y the bolt
@@ -171,7 +171,7 @@ def epp_loss() -> Outcome:
     )
 
 
-@register("elastic heat cycle returns the preload", G)
+@register("elastic heat cycle returns the preload", G, kind="consistency")
 def epp_elastic() -> Outcome:
     # the same joint to 60 degC stays elastic: the preload after the cycle equals the
     # preload before it (compatibility; Gere & Goodno ch. 2)

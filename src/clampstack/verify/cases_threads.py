@@ -81,29 +81,29 @@ def _asme_case(designation: str, printed: str, source: str):
 
 
 for _d, _p, _s in ISO_STRESS_AREAS:
-    add(f"stress area {_d}", "thread geometry", _iso_case(_d, _p, _s))
+    add(f"stress area {_d}", "thread geometry", _iso_case(_d, _p, _s), kind="published")
 for _d, _p, _s in ASME_STRESS_AREAS:
-    add(f"stress area {_d}", "thread geometry", _asme_case(_d, _p, _s))
+    add(f"stress area {_d}", "thread geometry", _asme_case(_d, _p, _s), kind="published")
 
 
 # M10 (P = 1.5 mm), printed to 0.001 mm in ISO 724 Table 1 (from memory):
 #   d2 = 10 - 0.649519 x 1.5 = 9.026 mm;  D1 = 10 - 1.082532 x 1.5 = 8.376 mm.
 # ISO 898-1 clause 9.1.6.1: d3 = d1 - H/6 = 10 - 1.226869 x 1.5 = 8.160 mm.
-@register("pitch diameter d2 of M10", "thread geometry")
+@register("pitch diameter d2 of M10", "thread geometry", kind="published")
 def m10_d2() -> Outcome:
     return Outcome(
         thread("M10").d2 * 1e3, 9.026, 0.0005 / 9.026, "ISO 724 Table 1 (from memory)", "mm"
     )
 
 
-@register("minor diameter D1 of M10", "thread geometry")
+@register("minor diameter D1 of M10", "thread geometry", kind="published")
 def m10_d1() -> Outcome:
     return Outcome(
         thread("M10").d1 * 1e3, 8.376, 0.0005 / 8.376, "ISO 724 Table 1 (from memory)", "mm"
     )
 
 
-@register("minor diameter d3 of M10", "thread geometry")
+@register("minor diameter d3 of M10", "thread geometry", kind="hand")
 def m10_d3() -> Outcome:
     return Outcome(
         thread("M10").d3 * 1e3,
@@ -115,7 +115,7 @@ def m10_d3() -> Outcome:
 
 
 # ASME B1.1 basic pitch diameter of 1/2-13 UNC: E = D - 0.649519/n = 0.5 - 0.049963 = 0.4500 in
-@register("pitch diameter of 1/2-13 UNC", "thread geometry")
+@register("pitch diameter of 1/2-13 UNC", "thread geometry", kind="published")
 def half_inch_d2() -> Outcome:
     return Outcome(
         thread("1/2-13 UNC").d2 / INCH,

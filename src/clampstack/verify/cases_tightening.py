@@ -39,7 +39,7 @@ def _fmzul_hand(cls: str, mu: float, F: float):
         # 0.1 %: the hand working rounds 1.155 and the intermediate values
         return Outcome(got / 1e3, F / 1e3, 1e-3, "VDI 2230-1:2015 R7, hand calculation", "kN")
 
-    add(f"F_M,zul M10 {cls}, mu_G = {mu:g}", G, fn)
+    add(f"F_M,zul M10 {cls}, mu_G = {mu:g}", G, fn, kind="hand")
 
 
 for _c, _m, _f in M10_BY_HAND:
@@ -70,7 +70,7 @@ def _table_fm(size: str, cls: str, FM: float):
             "kN",
         )
 
-    add(f"F_M,Tab {size} {cls}", G, fn)
+    add(f"F_M,Tab {size} {cls}", G, fn, kind="published")
 
 
 for _s, _c, _f in TABLE_A1_FM:
@@ -98,14 +98,14 @@ def _table_ma(size, d, P, As, s, dh, cls, MA):
             T, MA, 0.03, "VDI 2230-1:2015 Table A1, M_A at mu = 0.12 (from memory)", "N*m"
         )
 
-    add(f"M_A,Tab {size} {cls}", G, fn)
+    add(f"M_A,Tab {size} {cls}", G, fn, kind="published")
 
 
 for _row in TABLE_A1_MA:
     _table_ma(*_row)
 
 
-@register("tightening torque M10, F_M = 29.608 kN, mu = 0.12", G)
+@register("tightening torque M10, F_M = 29.608 kN, mu = 0.12", G, kind="hand")
 def torque_by_hand() -> Outcome:
     # VDI 2230-1 R13 / ISO 16047: M_A = F_M (0.16 P + 0.58 d2 mu_G + mu_K D_Km/2),
     # D_Km = (d_W + d_h)/2 = (16 + 11)/2 = 13.5 mm:
@@ -116,7 +116,9 @@ def torque_by_hand() -> Outcome:
     return Outcome(T, 49.688, 1e-4, "VDI 2230-1:2015 R13, hand calculation", "N*m")
 
 
-@register("embedding, through bolt, one interface, R_z 6.3 um", "embedding and fatigue")
+@register(
+    "embedding, through bolt, one interface, R_z 6.3 um", "embedding and fatigue", kind="hand"
+)
 def embedding() -> Outcome:
     # VDI 2230-1 Table 5 (from memory), R_z < 10 um, axial load: thread 3, per head or nut
     # bearing 2.5, per inner interface 1.5 um: f_Z = 3 + 2 x 2.5 + 1.5 = 9.5 um
@@ -124,7 +126,7 @@ def embedding() -> Outcome:
     return Outcome(f * 1e6, 9.5, 1e-9, "VDI 2230-1:2015 Table 5 (from memory)", "um")
 
 
-@register("embedding loss F_Z = f_Z/(delta_S + delta_P)", "embedding and fatigue")
+@register("embedding loss F_Z = f_Z/(delta_S + delta_P)", "embedding and fatigue", kind="hand")
 def embedding_loss() -> Outcome:
     # VDI 2230-1 5.4.2: f_Z = 9.5 um, delta_S = 3.5e-6, delta_P = 0.6e-6 mm/N:
     # F_Z = 9.5e-3 mm / 4.1e-6 mm/N = 2317.07 N
@@ -132,14 +134,22 @@ def embedding_loss() -> Outcome:
     return Outcome(F, 2317.07, 3e-6, "VDI 2230-1:2015 5.4.2, hand calculation", "N")
 
 
-@register("fatigue limit sigma_ASV of M10, rolled before heat treatment", "embedding and fatigue")
+@register(
+    "fatigue limit sigma_ASV of M10, rolled before heat treatment",
+    "embedding and fatigue",
+    kind="hand",
+)
 def fatigue_m10() -> Outcome:
     # VDI 2230-1 R9 (from memory): sigma_ASV = 0.85 (150/d + 45) = 0.85 x 60 = 51.0 MPa
     s = endurance_rolled_before_heat_treatment(10e-3)
     return Outcome(s / MPA, 51.0, 1e-9, "VDI 2230-1:2015 R9 (from memory)", "MPa")
 
 
-@register("fatigue limit sigma_ASV of M20, rolled before heat treatment", "embedding and fatigue")
+@register(
+    "fatigue limit sigma_ASV of M20, rolled before heat treatment",
+    "embedding and fatigue",
+    kind="hand",
+)
 def fatigue_m20() -> Outcome:
     # VDI 2230-1 R9 (from memory): 0.85 (150/20 + 45) = 0.85 x 52.5 = 44.625 MPa
     s = endurance_rolled_before_heat_treatment(20e-3)

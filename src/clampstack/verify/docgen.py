@@ -6,7 +6,7 @@ checks that the page on disk equals what this module generates.
 
 from __future__ import annotations
 
-from .registry import CaseResult, fmt_deviation, fmt_tolerance, fmt_value, run_all
+from .registry import KINDS, CaseResult, fmt_deviation, fmt_tolerance, fmt_value, run_all
 
 INTRO = """\
 # Validation
@@ -18,13 +18,23 @@ verify --json` gives it to scripts. The same cases run in the test suite
 (`tests/verify/`), so a change that moves a result outside its tolerance fails
 the build.
 
-Each case computes one number with clampstack and compares it with a value from
-outside the code: a table printed in a standard, a worked example or a formula
-from a handbook evaluated by hand (the working is written out beside each case
-in `src/clampstack/verify/`), or the closed-form solution of a statically
-indeterminate bar. "from memory" in the source marks a published value recalled
-without the document at hand: treat those rows as consistency checks until they
-are confirmed against the original.
+Each case computes one number with clampstack and compares it with another
+value; its **kind** says which:
+
+- `published`: a value printed in a standard's table or in a book's worked
+  example (the source names the book or standard, the edition, the example and
+  the page where recalled);
+- `hand`: a published relation or a closed-form solution (of a statically
+  indeterminate bar, say) worked by hand, with the working written out beside
+  the case in `src/clampstack/verify/`;
+- `consistency`: the spring network or a study against the tool's own closed
+  form, evaluated with quantities the tool computed itself (its resiliences,
+  its preloads). These check the solver, not the mechanics against the outside
+  world.
+
+"from memory" in the source marks a published value or datum recalled without
+the document at hand: treat those rows as provisional until they are confirmed
+against the original.
 
 The deviation is `(computed - expected) / |expected|`; the tolerance is the
 rounding of the printed value or the accuracy of the hand working. Closed-form
@@ -35,8 +45,9 @@ Sources, in short: ISO 898-1:2013 (stress areas, property classes, proof loads,
 Annex A yield at temperature); ISO 724 (thread diameters); ISO 3506-1; ASME B1.1
 (unified stress areas); SAE J429; ASTM A193; ASME BPVC Section II Part D (TM-1
 moduli, TE-1 expansion); VDI 2230 Part 1:2015 (resiliences, R5-R13, Table A1,
-embedding, fatigue, joint diagram, thermal preload change); ISO 16047; Shigley's
-*Mechanical Engineering Design*, ch. 8 (frusta); Wileman, Choudhury and Green
+embedding, fatigue, joint diagram, thermal preload change, R8-R12 checks);
+ISO 16047; Budynas & Nisbett, *Shigley's Mechanical Engineering Design*, 9th ed.,
+ch. 8 (frusta, worked Examples 8-1 to 8-5); Wileman, Choudhury and Green
 (1991); ASME BPVC VIII-1 Appendix 2 (flange bolt loads); Gere & Goodno,
 *Mechanics of Materials*, ch. 2 (indeterminate bars, thermal effects, misfits,
 elastoplastic bars).
@@ -51,7 +62,8 @@ def validation_markdown(results: list[CaseResult] | None = None) -> str:
     """The whole validation page, one table per group of cases."""
     results = run_all() if results is None else results
     passed = sum(1 for r in results if r.passed)
-    lines = [INTRO, f"**{passed} of {len(results)} cases pass.**", ""]
+    counts = ", ".join(f"{sum(1 for r in results if r.kind == k)} {k}" for k in KINDS)
+    lines = [INTRO, f"**{passed} of {len(results)} cases pass** ({counts}).", ""]
     groups: dict[str, list[CaseResult]] = {}
     for r in results:
         groups.setdefault(r.group, []).append(r)
@@ -59,8 +71,8 @@ def validation_markdown(results: list[CaseResult] | None = None) -> str:
         lines += [
             f"## {group[0].upper()}{group[1:]}",
             "",
-            "| case | source | expected | computed | unit | deviation | tolerance | pass |",
-            "|---|---|---:|---:|---|---:|---:|---|",
+            "| case | kind | source | expected | computed | unit | deviation | tolerance | pass |",
+            "|---|---|---|---:|---:|---|---:|---:|---|",
         ]
         for r in items:
             source = r.source if r.error is None else f"error: {r.error}"
@@ -70,6 +82,7 @@ def validation_markdown(results: list[CaseResult] | None = None) -> str:
                     _cell(c)
                     for c in (
                         r.name,
+                        r.kind,
                         source,
                         fmt_value(r.expected),
                         fmt_value(r.computed),

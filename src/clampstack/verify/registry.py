@@ -5,6 +5,13 @@ package and returns it beside the published or hand-calculated value it must
 match: ``Outcome(computed, expected, tolerance, source, unit)``.  The tolerance
 is relative (``|computed - expected| <= tolerance |expected|``); it is the
 rounding of the printed value, or the stated accuracy of the hand working.
+
+Every case says what kind of comparison it is (:data:`KINDS`): ``"published"``
+(a value printed in a standard's table or a book's worked example),
+``"hand"`` (a published relation worked by hand, the working beside the case) or
+``"consistency"`` (the spring network or a study against the tool's own closed
+form, evaluated with quantities the tool computed: a check of the solver, not of
+the mechanics against the outside world).
 """
 
 from __future__ import annotations
@@ -25,7 +32,20 @@ CASE_MODULES = (
     "thermal",
     "flange",
     "network",
+    "shigley",
+    "checks",
+    "sweep",
 )
+
+#: The kinds of comparison a case makes, and what each means.
+KINDS: dict[str, str] = {
+    "published": "a value printed in a standard's table or a book's worked example",
+    "hand": "a published relation worked by hand (the working is beside the case)",
+    "consistency": (
+        "the network or a study against the tool's own closed form, with quantities "
+        "the tool computed (checks the solver, not the mechanics)"
+    ),
+}
 
 
 class Outcome(NamedTuple):
@@ -45,11 +65,12 @@ class Outcome(NamedTuple):
 
 @dataclass(frozen=True)
 class Case:
-    """A registered case: its name, its group and the function that computes it."""
+    """A registered case: its name, its group, the function that computes it, its kind."""
 
     name: str
     group: str
     fn: Callable[[], Outcome]
+    kind: str  # one of KINDS
 
 
 @dataclass(frozen=True)
@@ -66,12 +87,14 @@ class CaseResult:
     tolerance: float | None
     passed: bool
     error: str | None = None
+    kind: str = ""  # one of KINDS
 
     def to_dict(self) -> dict[str, Any]:
         """JSON form (``verify --json``)."""
         d: dict[str, Any] = {
             "name": self.name,
             "group": self.group,
+            "kind": self.kind,
             "source": self.source,
             "expected": self.expected,
             "computed": self.computed,
@@ -89,21 +112,29 @@ _REGISTRY: dict[str, Case] = {}
 _LOADED = False
 
 
-def register(name: str, group: str) -> Callable[[Callable[[], Outcome]], Callable[[], Outcome]]:
-    """Decorator: register ``fn`` as the verification case ``name`` in ``group``."""
+def register(
+    name: str, group: str, *, kind: str
+) -> Callable[[Callable[[], Outcome]], Callable[[], Outcome]]:
+    """Decorator: register ``fn`` as the verification case ``name`` in ``group``.
+
+    ``kind`` is one of :data:`KINDS` and must be given, so that no case counts as a
+    comparison with the outside world by default.
+    """
 
     def deco(fn: Callable[[], Outcome]) -> Callable[[], Outcome]:
-        add(name, group, fn)
+        add(name, group, fn, kind=kind)
         return fn
 
     return deco
 
 
-def add(name: str, group: str, fn: Callable[[], Outcome]) -> None:
-    """Register ``fn`` as case ``name`` (names are unique)."""
+def add(name: str, group: str, fn: Callable[[], Outcome], *, kind: str) -> None:
+    """Register ``fn`` as case ``name`` of ``kind`` (names are unique)."""
     if name in _REGISTRY:
         raise ValueError(f"duplicate verification case {name!r}")  # programming error
-    _REGISTRY[name] = Case(name, group, fn)
+    if kind not in KINDS:
+        raise ValueError(f"case {name!r}: kind {kind!r} is not one of {', '.join(KINDS)}")
+    _REGISTRY[name] = Case(name, group, fn, kind)
 
 
 def cases() -> list[Case]:
@@ -141,6 +172,7 @@ def run_case(case: Case) -> CaseResult:
             None,
             False,
             f"{type(err).__name__}: {err}",
+            case.kind,
         )
     if expected == 0 or not (math.isfinite(computed) and math.isfinite(expected)):
         dev = None if not math.isfinite(computed) else computed - expected
@@ -158,6 +190,7 @@ def run_case(case: Case) -> CaseResult:
         dev,
         tol,
         bool(ok),
+        kind=case.kind,
     )
 
 
@@ -174,6 +207,7 @@ def summary(results: list[CaseResult]) -> dict[str, Any]:
         "passed": passed,
         "failed": len(results) - passed,
         "ok": passed == len(results),
+        "kinds": {k: sum(1 for r in results if r.kind == k) for k in KINDS},
     }
 
 
@@ -209,16 +243,27 @@ def fmt_tolerance(tol: float | None) -> str:
     return f"{tol * 100:.2g} %"
 
 
-HEADERS = ("case", "source", "expected", "computed", "unit", "deviation", "tolerance", "pass")
+HEADERS = (
+    "case",
+    "kind",
+    "source",
+    "expected",
+    "computed",
+    "unit",
+    "deviation",
+    "tolerance",
+    "pass",
+)
 
 
 def rows(results: list[CaseResult]) -> list[list[str]]:
-    """Table rows: case, source, expected, computed, unit, deviation, tolerance, pass."""
+    """Table rows: case, kind, source, expected, computed, unit, deviation, tolerance, pass."""
     out = []
     for r in results:
         out.append(
             [
                 r.name,
+                r.kind,
                 r.source if r.error is None else f"error: {r.error}",
                 fmt_value(r.expected),
                 fmt_value(r.computed),
