@@ -237,25 +237,78 @@ def flange(file: str, as_json: bool, units: str) -> None:
 @main.command()
 @click.argument("file", type=str)
 @click.option(
-    "--samples", type=int, default=100_000, show_default=True, help="Number of Monte Carlo samples."
+    "--samples",
+    type=int,
+    default=None,
+    help="Exactly this many samples (default: adaptive, from 100 000 until every "
+    "probability has converged; with --rel-width or --max-samples: the first round).",
+)
+@click.option(
+    "--rel-width",
+    type=float,
+    default=None,
+    help="Adaptive: sample until each probability's 95 % interval is narrower than this "
+    "fraction of its estimate [default 0.3].",
+)
+@click.option(
+    "--negligible",
+    type=float,
+    default=None,
+    help="Adaptive: a probability whose 95 % upper bound is below this has converged "
+    "[default 1e-5].",
+)
+@click.option(
+    "--max-samples",
+    type=int,
+    default=None,
+    help="Adaptive: stop here and say which estimates have not converged [default 1e7].",
 )
 @click.option("--seed", type=int, default=0, show_default=True, help="Random seed.")
 @json_option
 @units_option
 @handle_errors
-def scatter(file: str, samples: int, seed: int, as_json: bool, units: str) -> None:
-    """Statistical assembly scatter of the joint in FILE (Monte Carlo)."""
+def scatter(
+    file: str,
+    samples: int | None,
+    rel_width: float | None,
+    negligible: float | None,
+    max_samples: int | None,
+    seed: int,
+    as_json: bool,
+    units: str,
+) -> None:
+    """Statistical assembly scatter of the joint or flange in FILE (Monte Carlo)."""
     from .errors import InputError
     from .inputs.joint import read_joint_file
     from .outputs.scatter import scatter_text
+    from .studies.sampling import Convergence
     from .studies.scatter import scatter as run_scatter
 
-    if samples < 1:
+    if samples is not None and samples < 1:
         raise InputError(
             f"the number of samples must be at least 1, got {samples}", key="--samples"
         )
     if seed < 0:
         raise InputError("the seed must not be negative", key="--seed")
+    adaptive = samples is None or any(x is not None for x in (rel_width, negligible, max_samples))
+    conv = None
+    if adaptive:
+        base = Convergence()
+        conv = Convergence(
+            base.rel_width if rel_width is None else rel_width,
+            base.negligible if negligible is None else negligible,
+            base.max_samples if max_samples is None else max_samples,
+        )
+        if not 0 < conv.rel_width <= 10:
+            raise InputError("expected a relative width in (0, 10]", key="--rel-width")
+        if not 0 < conv.negligible < 1:
+            raise InputError("expected a probability in (0, 1)", key="--negligible")
+        if not 1 <= conv.max_samples <= 10**10:
+            raise InputError("expected 1 to 1e10 samples", key="--max-samples")
+        samples = min(100_000, conv.max_samples) if samples is None else samples
+        if samples > conv.max_samples:
+            raise InputError("the first round exceeds --max-samples", key="--samples")
+    assert samples is not None
     from .inputs.files import load_toml
 
     if "flange" in load_toml(file).data:  # a flange file: every bolt scatters
@@ -264,7 +317,7 @@ def scatter(file: str, samples: int, seed: int, as_json: bool, units: str) -> No
         from .studies.flange_scatter import flange_scatter
 
         fdoc, fspec = read_flange_file(file)
-        fres = _in_file(fdoc.path, flange_scatter, fspec, samples, seed)
+        fres = _in_file(fdoc.path, flange_scatter, fspec, samples, seed, 1, conv)
         if as_json:
             _print_json(fres.to_dict())
         else:
@@ -272,8 +325,8 @@ def scatter(file: str, samples: int, seed: int, as_json: bool, units: str) -> No
         sys.exit(EXIT_OK if fres.deterministic["ok"] else EXIT_FAIL)
     doc, spec = read_joint_file(file)
     dists = spec.distributions or {}
-    progress = _progress(samples, as_json, "scatter")
-    result = _in_file(doc.path, run_scatter, spec, dists, samples, seed, 4, progress)
+    progress = _progress(conv.max_samples if conv is not None else samples, as_json, "scatter")
+    result = _in_file(doc.path, run_scatter, spec, dists, samples, seed, 4, progress, conv)
     if progress is not None:
         progress(None)
     if as_json:

@@ -15,6 +15,7 @@ from clampstack.outputs.text import fmt_number
 from clampstack.plots import binned_histogram
 from clampstack.report import render_joint_report
 from clampstack.report.joint import SCATTER_SAMPLES, report_scatter
+from clampstack.studies.sampling import Convergence
 from clampstack.studies.scatter import scatter
 from conftest import EXAMPLES
 
@@ -50,7 +51,8 @@ def scattered(tmp_path_factory):
         files = render_joint_report(doc, r, now=NOW)
     finally:
         mp.undo()
-    sr = scatter(spec, spec.distributions, 100_000, seed=0)
+    # the report's study: adaptive from 100 000 samples, seed 0, the default rule
+    sr = scatter(spec, spec.distributions, SCATTER_SAMPLES, seed=0, convergence=Convergence())
     return doc, r, files, drawn, sr
 
 
@@ -62,7 +64,9 @@ def test_scatter_section_numbers_and_traceability(scattered):
     assert [int(n) for n, _ in heads] == list(range(1, len(heads) + 1))
     assert dict((t, n) for n, t in heads)["Statistical scatter"] == "8"  # no sweep here
     assert page.count("<svg ") == 5  # three joint figures and two histograms
-    assert "<b>100&nbsp;000 samples, seed 0</b>" in page
+    count = f"{sr.samples:,}".replace(",", "&nbsp;")
+    assert sr.samples >= SCATTER_SAMPLES and sr.convergence["adaptive"]
+    assert f"<b>{count} samples, seed 0</b>" in page and "rounds until every probability" in page
     # the sampled inputs in display units, the defaults the study adds too
     assert "normal, mean 48.00&nbsp;N&middot;m, standard deviation 1.500&nbsp;N&middot;m" in page
     assert "uniform 2.000&nbsp;&micro;m .. 4.000&nbsp;&micro;m" in page
@@ -71,7 +75,7 @@ def test_scatter_section_numbers_and_traceability(scattered):
     p = sr.percentiles["assembly_preload"]
     for key in ("p01", "p05", "p50", "p95", "p99", "mean"):
         assert f"<td>{_kn(p[key])}</td>" in page
-    for name in ("separation", "bolt_yield", "slip"):
+    for name in ("separation", "bolt_yield", "bolt_yield_assembly", "bolt_yield_service", "slip"):
         pr = sr.probability(name)
         assert f"<b>{name}</b>" in page
         assert f"<td>{pr['low']:.3g} .. {pr['high']:.3g}</td>" in page
@@ -99,7 +103,7 @@ def test_histograms_hold_every_sample(scattered):
         np.testing.assert_array_equal(counts, sr.histogram[q][1])
         bars = fig.findobj(lambda a: a.get_gid() == "bar")
         assert len(bars) == len(counts)
-        assert sum(b.get_height() for b in bars) == SCATTER_SAMPLES
+        assert sum(b.get_height() for b in bars) == sr.samples
         np.testing.assert_allclose([b.get_x() for b in bars], np.asarray(edges[:-1]) / 1e3)
         for pct, key in ((1, "p01"), (50, "p50"), (99, "p99")):
             (line,) = fig.findobj(lambda a, pct=pct: a.get_gid() == f"p{pct}")

@@ -404,6 +404,18 @@ class JointResult(Shown):
         return tr.torque is None and tr.preload is None
 
     @property
+    def governing(self) -> Check | None:
+        """The active check with the smallest margin, or None.
+
+        When the torque was derived from the permissible preload, the assembly-preload
+        check sits at its limit by construction and is not reported as governing.
+        """
+        active = [c for c in self.checks if c.skipped is None]
+        if self.preload_at_limit_by_design:
+            active = [c for c in active if c.name != "assembly_preload"] or active
+        return min(active, key=lambda c: c.margin) if active else None
+
+    @property
     def ok(self) -> bool:
         """True when every check that is switched on passes."""
         return all(c.passed for c in self.checks)

@@ -52,10 +52,7 @@ def governing(r: JointResult):
     When the torque was derived from the permissible preload, the assembly-preload
     check sits at its limit by construction and is not reported as governing.
     """
-    active = [c for c in r.checks if c.skipped is None]
-    if r.preload_at_limit_by_design:
-        active = [c for c in active if c.name != "assembly_preload"] or active
-    return min(active, key=lambda c: c.margin) if active else None
+    return r.governing
 
 
 def basis_lines(r: JointResult, u: DisplayUnits) -> list[str]:

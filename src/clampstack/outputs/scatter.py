@@ -25,7 +25,12 @@ def scatter_text(r: ScatterResult, units: str = "si") -> str:
     if not r.exact:
         out.append("  (percentiles from a histogram of 131 072 bins)")
     out.append("")
-    out.append(_probability_table(r, ("separation", "bolt_yield", "slip")))
+    out.append(
+        _probability_table(
+            r, ("separation", "bolt_yield", "bolt_yield_assembly", "bolt_yield_service", "slip")
+        )
+    )
+    out.extend(convergence_lines(r))
     out.append("")
     d = r.deterministic
     out.append("Deterministic comparison")
@@ -35,7 +40,11 @@ def scatter_text(r: ScatterResult, units: str = "si") -> str:
         f"{u.fmt('force', d['assembly_preload_max_N'])} {F} "
         f"(alpha_A {d['tightening_factor']:.3g}); minimum residual clamp load "
         f"{u.fmt('force', d['residual_clamp_load_min_N'])} {F}; "
-        f"{'all checks pass' if d['ok'] else 'a check fails'}"
+        + (
+            f"all checks pass (governing: {d['governing_check']})"
+            if d["ok"]
+            else f"FAIL: {', '.join(d['failing_checks'])}"
+        )
     )
     n = r.nasa
     if n.get("applies"):
@@ -68,14 +77,27 @@ def flange_scatter_text(r, units: str = "si") -> str:
     }
     out.append(_percentile_table(r, labels, ("assembly_preload", "residual_clamp_load"), u))
     out.append("")
-    out.append(_probability_table(r, ("gasket_below_operating", "separation", "bolt_yield")))
+    out.append(
+        _probability_table(
+            r,
+            (
+                "gasket_below_operating",
+                "separation",
+                "bolt_yield",
+                "bolt_yield_assembly",
+                "bolt_yield_service",
+            ),
+        )
+    )
+    out.extend(convergence_lines(r))
     d = r.deterministic
     out.append("")
     out.append(
         f"Deterministic: target {u.fmt('force', d['target_preload_N'])} {F} per bolt, "
         f"range {u.fmt('force', d['assembly_preload_min_N'])} .. "
         f"{u.fmt('force', d['assembly_preload_max_N'])} {F}; operating minimum per sector "
-        f"{u.fmt('force', d['operating_minimum_per_sector_N'])} {F}"
+        f"{u.fmt('force', d['operating_minimum_per_sector_N'])} {F}; "
+        + ("all checks pass" if d["ok"] else f"FAIL: {', '.join(d['failing_checks'])}")
     )
     out.append("Service state linearised about the deterministic ring analysis.")
     out.append("")
@@ -85,14 +107,64 @@ def flange_scatter_text(r, units: str = "si") -> str:
 
 def _percentile_table(r, labels: dict[str, str], quants, u) -> str:
     F = u.label("force")
-    rows = [
-        [labels[q]]
-        + [u.fmt("force", r.percentiles[q][k]) for k in ("p01", "p05", "p50", "p95", "p99", "mean")]
-        for q in quants
-    ]
+    rows = []
+    for q in quants:
+        rows.append(
+            [labels[q]]
+            + [
+                u.fmt("force", r.percentiles[q][k])
+                for k in ("p01", "p05", "p50", "p95", "p99", "mean")
+            ]
+        )
+        ci = r.intervals.get(q)
+        if ci:
+            rows.append(
+                ["  95 % interval"]
+                + [
+                    f"{u.fmt('force', ci[k]['low'])}..{u.fmt('force', ci[k]['high'])}"
+                    for k in ("p01", "p05", "p50", "p95", "p99")
+                ]
+                + [""]
+            )
     return table(
         [f"[{F}]", "1 %", "5 %", "50 %", "95 %", "99 %", "mean"], rows, right=[False] + [True] * 6
     )
+
+
+_EVENT_LABELS = {
+    "bolt_yield": "bolt_yield (either)",
+    "bolt_yield_assembly": "  at assembly",
+    "bolt_yield_service": "  in service",
+}
+
+
+def convergence_lines(r) -> list[str]:
+    """How the sample count was reached, and which estimates have not converged."""
+    c = r.convergence or {}
+    if not c.get("adaptive"):
+        return ["  fixed number of samples (--samples); intervals as printed"]
+    pending = [e for e, s in c["events"].items() if not s["converged"]]
+    count = f"{r.samples:,}".replace(",", " ")
+    head = (
+        f"  adaptive: {count} samples in {c['rounds']} rounds, until each probability's "
+        f"95 % interval is narrower than {c['target_relative_width']:.0%} of its estimate or "
+        f"its upper bound below {c['negligible_below']:g}"
+    )
+    if not pending:
+        return [head + "; all converged"]
+    return [
+        head,
+        "  NOT CONVERGED at the cap of "
+        + f"{c['max_samples']:,}".replace(",", " ")
+        + " samples: "
+        + ", ".join(
+            f"{e} (interval {c['events'][e]['relative_width']:.0%} of the estimate)"
+            if c["events"][e]["relative_width"] is not None
+            else f"{e} (no event yet)"
+            for e in pending
+        )
+        + "; raise --max-samples or read these estimates as order of magnitude",
+    ]
 
 
 def _probability_table(r, names) -> str:
@@ -101,7 +173,7 @@ def _probability_table(r, names) -> str:
         pr = r.probability(name)
         rows.append(
             [
-                name,
+                _EVENT_LABELS.get(name, name),
                 f"{pr['estimate']:.3g}",
                 f"{pr['low']:.3g} .. {pr['high']:.3g}",
                 str(pr["count"]),

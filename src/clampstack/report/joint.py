@@ -443,6 +443,8 @@ _QUANTITY = {
 _EVENT = {
     "separation": "the interface opens under the largest working load",
     "bolt_yield": "the bolt yields, at assembly or in service",
+    "bolt_yield_assembly": "the bolt yields at assembly (tension and thread torsion)",
+    "bolt_yield_service": "the bolt yields in service (largest load, residual torsion)",
     "slip": "the interface slips under the shear load",
 }
 
@@ -450,17 +452,24 @@ _EVENT = {
 def report_scatter(result: JointResult) -> tuple[Any, str]:
     """The scatter study of the report, or ``None`` and why not.
 
-    Run only when the input has a ``[distributions]`` table:
-    :data:`SCATTER_SAMPLES` samples with seed :data:`SCATTER_SEED`, the same
-    study as ``clampstack scatter FILE --samples 100000 --seed 0``.
+    Run only when the input has a ``[distributions]`` table: adaptive from
+    :data:`SCATTER_SAMPLES` samples with seed :data:`SCATTER_SEED` and the default
+    convergence rule, the same study as ``clampstack scatter FILE --seed 0``.
     """
+    from ..studies.sampling import Convergence
     from ..studies.scatter import scatter
 
     spec = result.spec
     if spec.distributions is None:
         return None, "The input has no [distributions] table: no scatter study."
     try:
-        sr = scatter(spec, spec.distributions, SCATTER_SAMPLES, seed=SCATTER_SEED)
+        sr = scatter(
+            spec,
+            spec.distributions,
+            SCATTER_SAMPLES,
+            seed=SCATTER_SEED,
+            convergence=Convergence(),
+        )
     except InputError as err:
         return None, f"No scatter study: {err.detail}"
     return sr, ""
@@ -494,6 +503,28 @@ def _dist_text(d: Any, key: str, u: DisplayUnits) -> str:
     return f"fixed {val(d.a)}"
 
 
+def _convergence_html(sr: Any) -> str:
+    """One sentence: how the sample count was reached and what has not converged."""
+    c = sr.convergence or {}
+    if not c.get("adaptive"):
+        return "A fixed number of samples."
+    text = (
+        f"Sampled in {c['rounds']} rounds until every probability's 95 % interval was "
+        f"narrower than {c['target_relative_width']:.0%} of its estimate or its upper bound "
+        f"below {c['negligible_below']:g}"
+    )
+    pending = [e for e, st in c["events"].items() if not st["converged"]]
+    if not pending:
+        return _e(text + ".")
+    return _e(text) + (
+        f"; <b>not converged</b> at the cap of {c['max_samples']:,} samples: ".replace(
+            ",", "&nbsp;"
+        )
+        + _e(", ".join(pending))
+        + " (read these estimates as an order of magnitude)."
+    )
+
+
 def _scatter(sr: Any, note: str, figures: str, u: DisplayUnits) -> str:
     if sr is None:
         return f'<section id="scatter"><h2>9. Statistical scatter</h2><p>{_e(note)}</p></section>'
@@ -504,8 +535,8 @@ def _scatter(sr: Any, note: str, figures: str, u: DisplayUnits) -> str:
         "assembly scatter: each sample draws the inputs below and runs the check chain in "
         "closed form (tightening, embedding, temperature, working load through the joint "
         f"diagram). <b>{count} samples, seed {sr.seed}</b>: the same input file gives the same "
-        "numbers in every report; <code>clampstack scatter FILE --samples N --seed S</code> "
-        "runs the study with other settings.</p>"
+        "numbers in every report; <code>clampstack scatter FILE --seed 0</code> runs the same "
+        "study. " + _convergence_html(sr) + "</p>"
     )
     given = _given_distributions(sr.spec)
     inputs = _table(
@@ -522,6 +553,22 @@ def _scatter(sr: Any, note: str, figures: str, u: DisplayUnits) -> str:
         [_QUANTITY[q], *(u.fmt("force", sr.percentiles[q][k]).replace(" ", "&nbsp;") for k in keys)]
         for q in _QUANTITY
     ]
+    for q in _QUANTITY:  # the 95 % interval of each percentile under it
+        ci = sr.intervals.get(q)
+        if ci:
+            idx = [i for i, (name, _) in enumerate(_QUANTITY.items()) if name == q][0]
+            rows.insert(
+                2 * idx + 1,
+                [
+                    "<span class=meta>95 % interval</span>",
+                    *(
+                        f"{u.fmt('force', ci[k]['low'])}&nbsp;..&nbsp;"
+                        f"{u.fmt('force', ci[k]['high'])}".replace(" ", "&nbsp;")
+                        for k in keys[:-1]
+                    ),
+                    "",
+                ],
+            )
     pct = _table([f"[{F}]", "1 %", "5 %", "50 %", "95 %", "99 %", "mean"], rows, cls="small")
     prow = []
     for name, meaning in _EVENT.items():

@@ -16,7 +16,7 @@ thread torsion) or in service.  Blocks, seeding and percentiles as in
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass
+from dataclasses import dataclass, field
 from typing import Any
 
 import numpy as np
@@ -26,10 +26,17 @@ from ..display import Shown
 from ..errors import InputError
 from ..flange.analysis import analyse_flange
 from ..flange.model import FlangeSpec
-from .scatter import BLOCK, EXACT_LIMIT, accumulate, event_probability
+from .sampling import BLOCK, Convergence, block_rng, event_probability, run
 
 QUANTS = ("assembly_preload", "residual_clamp_load")
-EVENTS = ("gasket_below_operating", "separation", "bolt_yield", "slip")
+EVENTS = (
+    "gasket_below_operating",
+    "separation",
+    "bolt_yield",
+    "bolt_yield_assembly",
+    "bolt_yield_service",
+    "slip",
+)
 
 
 @dataclass(frozen=True)
@@ -43,6 +50,8 @@ class FlangeScatterResult(Shown):
     deterministic: dict[str, Any]
     distributions: dict[str, str]
     exact: bool
+    intervals: dict[str, dict[str, dict[str, float]]] = field(default_factory=dict)
+    convergence: dict[str, Any] = field(default_factory=dict)
 
     def probability(self, name: str) -> dict[str, float]:
         """Estimate and 95 % interval of an event's probability."""
@@ -54,7 +63,9 @@ class FlangeScatterResult(Shown):
             "samples": self.samples,
             "seed": self.seed,
             "percentiles": {f"{q}_N": dict(d) for q, d in self.percentiles.items()},
+            "percentile_intervals": {f"{q}_N": d for q, d in self.intervals.items()},
             "probabilities": {k: self.probability(k) for k in EVENTS},
+            "convergence": self.convergence,
             "distributions": self.distributions,
             "percentiles_exact": self.exact,
             "deterministic": self.deterministic,
@@ -67,7 +78,12 @@ class FlangeScatterResult(Shown):
 
 
 def flange_scatter(
-    spec: FlangeSpec, samples: int, seed: int = 0, chunk_blocks: int = 1
+    spec: FlangeSpec,
+    samples: int,
+    seed: int = 0,
+    chunk_blocks: int = 1,
+    convergence: Convergence | None = None,
+    progress: Any = None,
 ) -> FlangeScatterResult:
     """Monte Carlo of the flange's assembly scatter (see the module docstring)."""
     if samples < 1:
@@ -78,9 +94,6 @@ def flange_scatter(
     n = spec.bolt_count
     thr = spec.thread
     block = max(256, BLOCK // max(n, 1))  # samples per block: bounded memory per block
-    n_blocks = -(-samples // block)
-    children = np.random.SeedSequence(seed).spawn(n_blocks)
-    sizes = [block] * (n_blocks - 1) + [samples - block * (n_blocks - 1)]
     loss = det.assembly_gasket - det.service_gasket  # per sector, ring model
     gain = det.service_bolt - det.passes[-1]  # per bolt, ring model
     Hp_n = det.app2.Hp / n
@@ -102,39 +115,37 @@ def flange_scatter(
             f"uniform {det.assembly_range[0]:.4g}..{det.assembly_range[1]:.4g} N (each bolt)"
         )
 
-    def blocks():
-        for start in range(0, n_blocks, chunk_blocks):
-            outs = []
-            for b in range(start, min(start + chunk_blocks, n_blocks)):
-                rng = np.random.default_rng(children[b])
-                m = sizes[b]
-                muG = rng.uniform(muG_lo, muG_hi, (m, n))
-                muK = rng.uniform(muK_lo, muK_hi, (m, n))
-                if spec.method == "torque":
-                    T = det.torque[0] * rng.uniform(1 - tol, 1 + tol, (m, n))
-                    FM = T / (0.16 * thr.P + 0.58 * thr.d2 * muG + 0.5 * muK * DKm)
-                    tau = FM * (thr.d2 / 2) * (thr.P / (math.pi * thr.d2) + 1.155 * muG) / Wp
-                else:
-                    FM = rng.uniform(*det.assembly_range, (m, n))
-                    tau = np.zeros((m, n))
-                gasket = FM - loss[None, :]
-                FS = FM + gain[None, :]
-                s_asm = np.sqrt((FM / thr.As) ** 2 + 3 * tau**2)
-                s_srv = np.sqrt((FS / thr.As) ** 2 + 3 * (0.5 * tau) ** 2)
-                gmin = gasket.min(axis=1)
-                outs.append(
-                    {
-                        "assembly_preload": FM.ravel(),
-                        "residual_clamp_load": np.maximum(gmin, 0.0),
-                        "gasket_below_operating": gmin < Hp_n,
-                        "separation": gmin <= 0.0,
-                        "bolt_yield": np.any((s_asm > Rp) | (s_srv > Rp_T), axis=1),
-                        "slip": np.zeros(m, dtype=bool),
-                    }
-                )
-            yield {k: np.concatenate([o[k] for o in outs]) for k in outs[0]}
+    def one_block(b: int, m: int) -> dict[str, np.ndarray]:
+        rng = block_rng(seed, b)
+        muG = rng.uniform(muG_lo, muG_hi, (m, n))
+        muK = rng.uniform(muK_lo, muK_hi, (m, n))
+        if spec.method == "torque":
+            T = det.torque[0] * rng.uniform(1 - tol, 1 + tol, (m, n))
+            FM = T / (0.16 * thr.P + 0.58 * thr.d2 * muG + 0.5 * muK * DKm)
+            tau = FM * (thr.d2 / 2) * (thr.P / (math.pi * thr.d2) + 1.155 * muG) / Wp
+        else:
+            FM = rng.uniform(*det.assembly_range, (m, n))
+            tau = np.zeros((m, n))
+        gasket = FM - loss[None, :]
+        FS = FM + gain[None, :]
+        s_asm = np.sqrt((FM / thr.As) ** 2 + 3 * (0.75 * tau) ** 2)  # plastic W_p, as R7
+        s_srv = np.sqrt((FS / thr.As) ** 2 + 3 * (0.5 * tau) ** 2)
+        gmin = gasket.min(axis=1)
+        y_asm = np.any(s_asm > Rp, axis=1)
+        y_srv = np.any(s_srv > Rp_T, axis=1)
+        return {
+            "assembly_preload": FM.ravel(),
+            "residual_clamp_load": np.maximum(gmin, 0.0),
+            "gasket_below_operating": gmin < Hp_n,
+            "separation": gmin <= 0.0,
+            "bolt_yield": y_asm | y_srv,
+            "bolt_yield_assembly": y_asm,
+            "bolt_yield_service": y_srv,
+            "slip": np.zeros(m, dtype=bool),
+        }
 
-    counts, pct, hist = accumulate(blocks, QUANTS, EVENTS, samples * n <= EXACT_LIMIT)
+    got = run(one_block, block, samples, QUANTS, EVENTS, {"slip": False}, convergence, progress, n)
+    failing = [c.name for c in det.checks if not c.passed]
     deterministic = {
         "target_preload_N": det.target,
         "assembly_preload_min_N": det.assembly_range[0],
@@ -142,7 +153,18 @@ def flange_scatter(
         "operating_minimum_per_sector_N": Hp_n,
         "window_N": list(det.window),
         "ok": det.ok,
+        "failing_checks": failing,
     }
     return FlangeScatterResult(
-        spec, samples, seed, pct, counts, hist, deterministic, dist, samples * n <= EXACT_LIMIT
+        spec,
+        got.samples,
+        seed,
+        got.percentiles,
+        got.counts,
+        got.histogram,
+        deterministic,
+        dist,
+        got.exact,
+        got.intervals,
+        got.convergence,
     )

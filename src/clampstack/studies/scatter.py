@@ -23,7 +23,7 @@ from __future__ import annotations
 
 import math
 from collections.abc import Callable
-from dataclasses import dataclass
+from dataclasses import dataclass, field
 from typing import Any
 
 import numpy as np
@@ -35,11 +35,17 @@ from ..errors import InputError
 from ..joint.analysis import analyse
 from ..joint.model import DIST_KEYS, Dist, JointSpec
 from ..joint.prepare import Prepared, prepare, service_closed_form
-
-BLOCK = 1 << 16
-EXACT_LIMIT = 2_000_000
-BINS = 1 << 17
-QUANTILES = {"p01": 1.0, "p05": 5.0, "p50": 50.0, "p95": 95.0, "p99": 99.0}
+from .sampling import (  # noqa: F401  (re-exported for the flange study and callers)
+    BINS,
+    BLOCK,
+    EXACT_LIMIT,
+    QUANTILES,
+    Convergence,
+    block_rng,
+    clopper_pearson,
+    event_probability,
+    run,
+)
 
 # --------------------------------------------------------------------------- the chain
 
@@ -134,12 +140,14 @@ def evaluate(chain: Chain, x: dict[str, np.ndarray], n: int) -> dict[str, np.nda
     FS_hi, FK_hi = service_closed_form(FV, phi, FA_hi)
     FS_lo, FK_lo = service_closed_form(FV, phi, chain.FA_lo)
     residual = np.minimum(FK_hi, FK_lo)
-    # bolt yield: at assembly (tension with thread torsion) or in service (k_tau = 0.5)
+    # bolt yield at assembly: tension with thread torsion on the plastic section modulus
+    # pi d0^3/12, as in VDI 2230-1 R7 (so the yield preload is F_M,zul at nu = 1); in
+    # service: the residual torsion k_tau = 0.5 on the elastic pi d0^3/16 (R8)
     Wp = math.pi * prep.d0**3 / 16
     tau_a = FM * (thr.d2 / 2) * (thr.P / (math.pi * thr.d2) + 1.155 * muG) / Wp
     if tr.method == "tension":
         tau_a = np.zeros(n)
-    s_asm = np.sqrt((FM / prep.A0) ** 2 + 3 * tau_a**2)
+    s_asm = np.sqrt((FM / prep.A0) ** 2 + 3 * (0.75 * tau_a) ** 2)
     if "temperature" in x:
         ratio_T = (
             np.asarray(
@@ -153,7 +161,9 @@ def evaluate(chain: Chain, x: dict[str, np.ndarray], n: int) -> dict[str, np.nda
         )
     FSmax = np.maximum(FS_hi, FS_lo)
     s_srv = np.sqrt((FSmax / prep.A0) ** 2 + 3 * (0.5 * tau_a) ** 2)
-    yield_ = (s_asm > Rp_arr) | (s_srv > Rp_arr * ratio_T)
+    yield_asm = s_asm > Rp_arr
+    yield_srv = s_srv > Rp_arr * ratio_T
+    yield_ = yield_asm | yield_srv
     mu_T = x.get("slip_friction", np.full(n, chain.mu_T))
     slip = (residual * np.maximum(mu_T, 0.0) < chain.FQ) if chain.FQ > 0 else np.zeros(n, bool)
     separation = FK_hi <= 0.0 if chain.FA_hi > 0 or "axial_load" in x else np.zeros(n, bool)
@@ -163,6 +173,8 @@ def evaluate(chain: Chain, x: dict[str, np.ndarray], n: int) -> dict[str, np.nda
         "residual_clamp_load": np.broadcast_to(residual, (n,)),
         "separation": np.broadcast_to(separation, (n,)),
         "bolt_yield": np.broadcast_to(yield_, (n,)),
+        "bolt_yield_assembly": np.broadcast_to(yield_asm, (n,)),
+        "bolt_yield_service": np.broadcast_to(yield_srv, (n,)),
         "slip": np.broadcast_to(slip, (n,)),
     }
 
@@ -184,6 +196,8 @@ class ScatterResult(Shown):
     nasa: dict[str, Any]
     distributions: dict[str, str]
     exact: bool
+    intervals: dict[str, dict[str, dict[str, float]]] = field(default_factory=dict)
+    convergence: dict[str, Any] = field(default_factory=dict)
 
     def probability(self, name: str) -> dict[str, float]:
         """Estimate and 95 % interval of an event's probability."""
@@ -195,7 +209,9 @@ class ScatterResult(Shown):
             "samples": self.samples,
             "seed": self.seed,
             "percentiles": {f"{q}_N": dict(d) for q, d in self.percentiles.items()},
-            "probabilities": {k: self.probability(k) for k in ("separation", "bolt_yield", "slip")},
+            "percentile_intervals": {f"{q}_N": d for q, d in self.intervals.items()},
+            "probabilities": {k: self.probability(k) for k in EVENTS},
+            "convergence": self.convergence,
             "distributions": self.distributions,
             "percentiles_exact": self.exact,
             "deterministic": self.deterministic,
@@ -203,24 +219,8 @@ class ScatterResult(Shown):
         }
 
 
-def event_probability(k: int, n: int) -> dict[str, float]:
-    """``k`` events in ``n`` samples: estimate, Clopper-Pearson 95 % interval, count."""
-    lo, hi = clopper_pearson(k, n)
-    return {"estimate": k / n, "low": lo, "high": hi, "count": k}
-
-
-def clopper_pearson(k: int, n: int, level: float = 0.95) -> tuple[float, float]:
-    """Exact (Clopper-Pearson, 1934) two-sided confidence interval of a binomial proportion."""
-    from scipy.special import betaincinv
-
-    a = 1 - level
-    lo = 0.0 if k == 0 else float(betaincinv(k, n - k + 1, a / 2))
-    hi = 1.0 if k == n else float(betaincinv(k + 1, n - k, 1 - a / 2))
-    return lo, hi
-
-
 QUANTS = ("assembly_preload", "service_preload", "residual_clamp_load")
-EVENTS = ("separation", "bolt_yield", "slip")
+EVENTS = ("separation", "bolt_yield", "bolt_yield_assembly", "bolt_yield_service", "slip")
 
 
 def scatter(
@@ -230,8 +230,15 @@ def scatter(
     seed: int = 0,
     chunk_blocks: int = 4,
     progress: Callable[[int], None] | None = None,
+    convergence: Convergence | None = None,
 ) -> ScatterResult:
-    """Run the Monte Carlo study (see the module docstring)."""
+    """Run the Monte Carlo study (see the module docstring).
+
+    ``convergence=None``: exactly ``samples`` samples.  Otherwise ``samples`` is the first
+    round and sampling goes on in whole blocks until every probability that applies has
+    converged (:mod:`clampstack.studies.sampling`).  ``chunk_blocks`` is kept for callers;
+    the blocks are evaluated one at a time (the results do not depend on it).
+    """
     if samples < 1:
         raise InputError(
             f"the number of samples must be at least 1, got {samples}", key="--samples"
@@ -251,28 +258,19 @@ def scatter(
                 err.detail + " (sampled temperatures, mean +- 6 std for normal)",
                 key="distributions.temperature",
             ) from None
-    n_blocks = -(-samples // BLOCK)
-    children = np.random.SeedSequence(seed).spawn(n_blocks)
-    sizes = [BLOCK] * (n_blocks - 1) + [samples - BLOCK * (n_blocks - 1)]
-    exact = samples <= EXACT_LIMIT
 
-    def blocks():
-        done = 0
-        for start in range(0, n_blocks, chunk_blocks):
-            ids = range(start, min(start + chunk_blocks, n_blocks))
-            xs = [
-                (_draw(chain, np.random.default_rng(children[b]), sizes[b]), sizes[b]) for b in ids
-            ]
-            merged = {k: np.concatenate([x[0][k] for x in xs]) for k in xs[0][0]}
-            m = sum(x[1] for x in xs)
-            yield evaluate(chain, merged, m)
-            done += m
-            if progress is not None:
-                progress(done)
+    def block(b: int, size: int) -> dict[str, np.ndarray]:
+        return evaluate(chain, _draw(chain, block_rng(seed, b), size), size)
 
-    counts, percentiles, hist = accumulate(blocks, QUANTS, EVENTS, exact)
+    applies = {
+        "separation": chain.FA_hi > 0 or "axial_load" in chain.dists,
+        "slip": chain.FQ > 0,
+    }
+    got = run(block, BLOCK, samples, QUANTS, EVENTS, applies, convergence, progress)
 
     det = analyse(spec)
+    failing = [c.name for c in det.checks if not c.passed]
+    governing = det.governing.name if det.governing is not None else None
     deterministic = {
         "assembly_preload_min_N": det.assembly_min,
         "assembly_preload_max_N": det.assembly_max,
@@ -280,76 +278,38 @@ def scatter(
         "residual_clamp_load_min_N": det.residual_clamp_min,
         "separation_load_N": det.separation_load,
         "ok": det.ok,
+        "failing_checks": failing,
+        "governing_check": governing,
     }
     nasa = _nasa(chain, det)
     described = {k: v.describe(**_unit(k)) for k, v in chain.dists.items()}
     return ScatterResult(
-        spec, samples, seed, percentiles, counts, hist, deterministic, nasa, described, exact
+        spec,
+        got.samples,
+        seed,
+        got.percentiles,
+        got.counts,
+        got.histogram,
+        deterministic,
+        nasa,
+        described,
+        got.exact,
+        got.intervals,
+        got.convergence,
     )
 
 
 def accumulate(
     blocks: Callable[[], Any], quants: tuple[str, ...], events: tuple[str, ...], exact: bool
 ) -> tuple[dict[str, int], dict[str, dict[str, float]], dict[str, tuple[np.ndarray, np.ndarray]]]:
-    """Event counts, percentiles and histograms over the blocks ``blocks()`` yields.
+    """Event counts, percentiles and histograms over the blocks ``blocks()`` yields."""
+    from .sampling import Accumulator
 
-    ``exact``: keep every value and take exact percentiles; otherwise two passes over the
-    same blocks (extremes, then a histogram of :data:`BINS` bins), memory bounded.
-    """
-    counts = dict.fromkeys(events, 0)
-    percentiles: dict[str, dict[str, float]] = {}
-    hist: dict[str, tuple[np.ndarray, np.ndarray]] = {}
-    if exact:
-        store: dict[str, list[np.ndarray]] = {q: [] for q in quants}
-        for out in blocks():
-            for e in events:
-                counts[e] += int(np.count_nonzero(out[e]))
-            for q in quants:
-                store[q].append(np.asarray(out[q], dtype=float).ravel())
-        for q in quants:
-            allv = np.concatenate(store[q])
-            vals = np.percentile(allv, list(QUANTILES.values()))
-            percentiles[q] = {k: float(v) for k, v in zip(QUANTILES, vals, strict=True)}
-            percentiles[q]["mean"] = float(np.mean(allv))
-            c, edges = np.histogram(allv, bins=60)
-            hist[q] = (edges, c)
-        return counts, percentiles, hist
-    lo = dict.fromkeys(quants, math.inf)
-    hi = dict.fromkeys(quants, -math.inf)
-    total = dict.fromkeys(quants, 0.0)
-    number = dict.fromkeys(quants, 0)
-    for out in blocks():  # pass 1: events, extremes, means
-        for e in events:
-            counts[e] += int(np.count_nonzero(out[e]))
-        for q in quants:
-            lo[q] = min(lo[q], float(np.min(out[q])))
-            hi[q] = max(hi[q], float(np.max(out[q])))
-            total[q] += float(np.sum(out[q]))
-            number[q] += int(np.size(out[q]))
-    fine = {q: np.zeros(BINS, dtype=np.int64) for q in quants}
-    for out in blocks():  # pass 2: fine histograms (the same samples again)
-        for q in quants:
-            span = hi[q] - lo[q]
-            v = np.asarray(out[q], dtype=float).ravel()
-            if span <= 0:
-                fine[q][0] += v.size
-                continue
-            idx = np.minimum(((v - lo[q]) / span * BINS).astype(np.int64), BINS - 1)
-            fine[q] += np.bincount(idx, minlength=BINS)
-    for q in quants:
-        cum = np.cumsum(fine[q])
-        span = hi[q] - lo[q]
-        percentiles[q] = {}
-        for k, p in QUANTILES.items():
-            target = p / 100 * number[q]
-            i = min(int(np.searchsorted(cum, target)), BINS - 1)
-            prev = cum[i - 1] if i > 0 else 0
-            frac = (target - prev) / max(fine[q][i], 1)
-            percentiles[q][k] = lo[q] + (i + frac) / BINS * span if span > 0 else lo[q]
-        percentiles[q]["mean"] = total[q] / number[q]
-        coarse = fine[q].reshape(-1, BINS // 64).sum(axis=1) if span > 0 else fine[q][:64]
-        hist[q] = (np.linspace(lo[q], hi[q] if span > 0 else lo[q] + 1, 65), coarse)
-    return counts, percentiles, hist
+    acc = Accumulator(quants, events, keep=exact)
+    for out in blocks():
+        acc.add(out)
+    pct, _, hist, _ = acc.percentiles(blocks)
+    return acc.counts, pct, hist
 
 
 def _unit(key: str) -> dict[str, Any]:
