@@ -35,6 +35,7 @@ CASE_MODULES = (
     "shigley",
     "checks",
     "sweep",
+    "rare",
 )
 
 #: The kinds of comparison a case makes, and what each means.
