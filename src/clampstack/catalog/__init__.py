@@ -19,9 +19,21 @@ Public API (SI units: m, m^2, Pa, 1/K, K)
 from __future__ import annotations
 
 from clampstack.catalog.gaskets import Gasket, gasket, gaskets
-from clampstack.catalog.grades import Grade, grade, grades, yield_at_temperature
+from clampstack.catalog.grades import (
+    Grade,
+    grade,
+    grades,
+    yield_at_temperature,
+    yield_extrapolation,
+)
 from clampstack.catalog.listing import KINDS, listing
-from clampstack.catalog.materials import Material, material, materials
+from clampstack.catalog.materials import (
+    COLD_MARGIN,
+    Extrapolation,
+    Material,
+    material,
+    materials,
+)
 from clampstack.catalog.threads import Thread, thread, threads
 
 __all__ = [
@@ -29,6 +41,9 @@ __all__ = [
     "gasket",
     "gaskets",
     "yield_at_temperature",
+    "yield_extrapolation",
+    "COLD_MARGIN",
+    "Extrapolation",
     "KINDS",
     "Grade",
     "Material",

@@ -23,6 +23,8 @@ from dataclasses import dataclass
 from functools import cache
 
 from clampstack.catalog._common import fmt, opt_float, read_csv, squash, unknown
+from clampstack.catalog.materials import T_REF as T_ROOM
+from clampstack.catalog.materials import Extrapolation
 from clampstack.errors import InputError
 
 MPA = 1e6
@@ -199,8 +201,9 @@ def yield_at_temperature(g: Grade, T_K: float | object) -> tuple[object, str]:
 
     Uses the elevated-temperature ratios of ``grades_temperature.csv`` (ISO 898-1
     Annex A; ASME BPVC II-D Table Y-1 for B7; values from memory) with linear
-    interpolation.  Below 20 degC the room-temperature value is used (strength
-    rises in the cold; conservative).  Above the table an :class:`InputError` names
+    interpolation.  Below 20 degC the room-temperature value is held (strength
+    rises in the cold; conservative) and the basis says so (:func:`yield_extrapolation`
+    describes it for a note).  Above the table an :class:`InputError` names
     the grade and its range.  A grade without such data keeps its room-temperature
     value, and the basis says so.  Accepts a float or a numpy array.
     """
@@ -220,4 +223,33 @@ def yield_at_temperature(g: Grade, T_K: float | object) -> tuple[object, str]:
             )
         val = g.Rp02 * np.interp(arr, T, ratio)
         basis = source.split(": ")[0].split(" yield strength")[0] + " (from memory)"
+        if np.any(arr < T[0] - 1e-9):
+            basis += f"; below {T[0] - 273.15:g} degC its {T[0] - 273.15:g} degC value held"
     return (float(val) if val.ndim == 0 else val), basis
+
+
+def yield_extrapolation(g: Grade, T_K: float | object) -> Extrapolation | None:
+    """The hold of the yield value below the data of grade ``g``, if a ``T_K`` [K] is colder.
+
+    Below its first tabulated temperature (20 degC; the room-temperature minimum for a
+    grade without temperature data) :func:`yield_at_temperature` holds the 20 degC value:
+    the strength of steels rises in the cold.  Returns ``None`` when no temperature is colder.
+    """
+    import numpy as np
+
+    table = _yield_tables().get(g.name)
+    T0 = table[0][0] if table is not None else T_ROOM
+    arr = np.asarray(T_K, dtype=float).ravel()
+    arr = arr[np.isfinite(arr)]
+    if arr.size == 0 or float(arr.min()) >= T0 - 1e-9:
+        return None
+    return Extrapolation(
+        f"grade {g.name}",
+        "yield strength",
+        "below",
+        T0,
+        float(arr.min()),
+        "held",
+        f"{fmt(g.Rp02 / MPA, 1)} MPa",
+        "the strength rises in the cold",
+    )

@@ -115,7 +115,10 @@ def _material_listing() -> tuple[list[str], list[list[str]]]:
     ]
     rows = []
     for m in materials():
-        lo, hi = m.valid_range()
+        (lo, hi), (a_lo, a_hi) = m.data_range("E"), m.data_range("alpha")
+        span = f"{fmt(lo - ZERO_C, 1)}..{fmt(hi - ZERO_C, 1)}"
+        if (a_lo, a_hi) != (lo, hi):  # each property has its own data
+            span = f"E {span}, alpha {fmt(a_lo - ZERO_C, 1)}..{fmt(a_hi - ZERO_C, 1)}"
         rows.append(
             [
                 m.key,
@@ -127,7 +130,7 @@ def _material_listing() -> tuple[list[str], list[list[str]]]:
                 _mpa(m.Rm),
                 _mpa(m.pG),
                 fmt(m.shear_ratio, 2),
-                f"{fmt(lo - ZERO_C, 1)}..{fmt(hi - ZERO_C, 1)}",
+                span,
                 f"{m.source}; temperature table: {m.table_source}",
             ]
         )

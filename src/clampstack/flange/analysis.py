@@ -366,8 +366,8 @@ def build_ring(spec: FlangeSpec) -> Ring:
     g = spec.gasket
     pair = spec.mating == "flange"
     t = spec.thickness
-    E_b = spec.bolt_material.E(spec.T_assembly)
-    E_f = spec.material.E(spec.T_assembly)
+    E_b = spec.bolt_material.E(spec.T_assembly, True)
+    E_f = spec.material.E(spec.T_assembly, True)
     lK = (2 * t if pair else t) + g.thickness
     try:
         shank = [(spec.shank_length, spec.shank_diameter or thr.d)] if spec.shank_length > 0 else []
@@ -380,7 +380,7 @@ def build_ring(spec: FlangeSpec) -> Ring:
             shank,
             None if spec.head == "stud" else spec.head,
             "nut" if pair else "tapped",
-            E_nut=spec.nut_material.E(spec.T_assembly) if spec.nut_material else E_b,
+            E_nut=spec.nut_material.E(spec.T_assembly, True) if spec.nut_material else E_b,
             E_tapped=E_f,
         ).total
         ring_width = 0.5 * (spec.ring_outer_diameter - spec.ring_inner_diameter)
@@ -784,13 +784,17 @@ def analyse_flange(spec: FlangeSpec, compensate: bool = True) -> FlangeResult:
 
     # --- service: pressure, external loads, temperatures
     ring.scale_k = (
-        spec.bolt_material.E(spec.T_bolt) / spec.bolt_material.E(spec.T_assembly),
-        spec.material.E(spec.T_flange) / spec.material.E(spec.T_assembly),
+        spec.bolt_material.E(spec.T_bolt, True) / spec.bolt_material.E(spec.T_assembly, True),
+        spec.material.E(spec.T_flange, True) / spec.material.E(spec.T_assembly, True),
     )
     pair = spec.mating == "flange"
     lK = (2 * spec.thickness if pair else spec.thickness) + g.thickness
-    d_strain_b = spec.bolt_material.strain(spec.T_bolt) - spec.bolt_material.strain(spec.T_assembly)
-    d_strain_f = spec.material.strain(spec.T_flange) - spec.material.strain(spec.T_assembly)
+    d_strain_b = spec.bolt_material.strain(spec.T_bolt, True) - spec.bolt_material.strain(
+        spec.T_assembly, True
+    )
+    d_strain_f = spec.material.strain(spec.T_flange, True) - spec.material.strain(
+        spec.T_assembly, True
+    )
     ring.thermal_bolt = (lK / (2 if pair else 1)) * d_strain_b
     ring.thermal_flange = spec.thickness * d_strain_f
     _, srv_bolts, srv_gasket, sol = ring.solve(FA)
@@ -921,6 +925,7 @@ def analyse_flange(spec: FlangeSpec, compensate: bool = True) -> FlangeResult:
     )
     if "cross" in spec.patterns:
         notes.append(f"Cross passes: {cross_rule(n)}.")
+    notes.extend(temperature_notes(spec))
     if spec.unused:
         notes.append(
             f"Not used by the flange model: {', '.join(spec.unused)} (no thread-"
@@ -956,6 +961,24 @@ def analyse_flange(spec: FlangeSpec, compensate: bool = True) -> FlangeResult:
     )
 
 
+def temperature_notes(spec: FlangeSpec) -> list[str]:
+    """Notes for every catalog property the flange model extrapolates below its data."""
+    out: list[str] = []
+    parts = [
+        ("flange", spec.material, (spec.T_flange, spec.T_assembly), ("E", "alpha")),
+        ("bolt", spec.bolt_material, (spec.T_bolt, spec.T_assembly), ("E", "alpha")),
+    ]
+    if spec.nut_material is not None:
+        parts.append(("nut", spec.nut_material, (spec.T_assembly,), ("E",)))
+    for label, pm, Ts, props in parts:
+        if pm.material is None:
+            continue
+        given = {"E": pm.modulus is not None, "alpha": pm.expansion is not None}
+        use = tuple(p for p in props if not given[p])
+        out.extend(x.text(label) for x in pm.material.extrapolations(np.array(Ts), use))
+    return out
+
+
 def _equilibrium(bolts: np.ndarray, gasket: np.ndarray, FA: np.ndarray) -> float:
     """Whole-ring equilibrium: bolt forces = gasket forces + working loads [N residual]."""
     return float(abs(np.sum(bolts) - np.sum(gasket) - np.sum(FA)))
@@ -970,14 +993,15 @@ def _service_gasket_loss(spec: FlangeSpec, F: float, FA: np.ndarray) -> np.ndarr
     pair = spec.mating == "flange"
     lK = (2 * spec.thickness if pair else spec.thickness) + spec.gasket.thickness
     ring.scale_k = (
-        spec.bolt_material.E(spec.T_bolt) / spec.bolt_material.E(spec.T_assembly),
-        spec.material.E(spec.T_flange) / spec.material.E(spec.T_assembly),
+        spec.bolt_material.E(spec.T_bolt, True) / spec.bolt_material.E(spec.T_assembly, True),
+        spec.material.E(spec.T_flange, True) / spec.material.E(spec.T_assembly, True),
     )
     ring.thermal_bolt = (lK / (2 if pair else 1)) * (
-        spec.bolt_material.strain(spec.T_bolt) - spec.bolt_material.strain(spec.T_assembly)
+        spec.bolt_material.strain(spec.T_bolt, True)
+        - spec.bolt_material.strain(spec.T_assembly, True)
     )
     ring.thermal_flange = spec.thickness * (
-        spec.material.strain(spec.T_flange) - spec.material.strain(spec.T_assembly)
+        spec.material.strain(spec.T_flange, True) - spec.material.strain(spec.T_assembly, True)
     )
     _, _, g1, _ = ring.solve(FA)
     return g0 - g1

@@ -78,17 +78,44 @@ def shank_in_clamp(shank: float, lK: float) -> float:
     return shank if shank > lK * (1 + 1e-9) else min(shank, lK)
 
 
-def check_temperature(pm: PartMaterial, T: float, key: str) -> None:
-    """The catalog tables of a part's material must cover ``T`` [K]: no silent extrapolation."""
-    if pm.material is None or (pm.modulus is not None and pm.expansion is not None):
+def check_temperature(
+    pm: PartMaterial,
+    T: float,
+    key: str,
+    props: tuple[str, ...] = ("E", "alpha"),
+    extrapolate: bool = False,
+    part: str | None = None,
+) -> None:
+    """The catalog data of a part's material must cover ``T`` [K]: no silent extrapolation.
+
+    ``props`` are the properties taken from the catalog (``"E"``, ``"alpha"``; one given in
+    the file is not checked).  With ``extrapolate`` a property may lie at most
+    :data:`~clampstack.catalog.COLD_MARGIN` below its data (the joint's temperature model
+    extrapolates there and flags it in the notes).  ``key`` is the key the error names:
+    the one the temperature came from; ``part`` names the part in the message.
+    """
+    if pm.material is None:
         return
-    lo, hi = pm.material.valid_range()
-    if not lo - 1e-9 <= T <= hi + 1e-9:
-        raise InputError(
-            f"{T - 273.15:g} degC is outside the data of material {pm.material.key!r} "
-            f"({lo - 273.15:g} to {hi - 273.15:g} degC)",
-            key=key,
-        )
+    given = {"E": pm.modulus is not None, "alpha": pm.expansion is not None}
+    for prop in props:
+        if not given[prop]:
+            try:
+                pm.material.check(prop, T, extrapolate, part)
+            except InputError as err:
+                raise InputError(err.detail, key=key) from None
+
+
+def temperature_key(own: str, given: frozenset[str], *fallbacks: str) -> str:
+    """The file key a part's temperature came from: its own, else the keys it defaults to.
+
+    ``own`` (``clamped[2].temperature``), then ``fallbacks`` (a nut takes the bolt's), then
+    ``service.temperature`` and ``service.assembly_temperature`` (the service temperature's
+    default); the first one the file sets.  ``own`` when none is set.
+    """
+    for key in (own, *fallbacks, "service.temperature", "service.assembly_temperature"):
+        if key in given:
+            return key
+    return own
 
 
 def check_layer(layer: LayerSpec, d: float) -> None:
@@ -150,8 +177,17 @@ def check_fit(spec: JointSpec, given: frozenset[str] = frozenset()) -> None:
                 f"engagement {t.engagement * 1e3:g} mm is less than two threads",
                 key="tapped_hole.engagement",
             )
-        check_temperature(t.material, t.temperature, "tapped_hole.temperature")
-        check_temperature(t.material, T_asm, "service.assembly_temperature")
+        check_temperature(
+            t.material,
+            t.temperature,
+            temperature_key("tapped_hole.temperature", given),
+            ("E",),
+            True,
+            "tapped hole",
+        )
+        check_temperature(
+            t.material, T_asm, "service.assembly_temperature", ("E",), True, "tapped hole"
+        )
     else:
         nut = spec.nut
         assert nut is not None
@@ -161,8 +197,15 @@ def check_fit(spec: JointSpec, given: frozenset[str] = frozenset()) -> None:
                 f"({(lK + nut.height) * 1e3:g} mm)",
                 key="bolt.length",
             )
-        check_temperature(nut.material, nut.temperature, "nut.temperature")
-        check_temperature(nut.material, T_asm, "service.assembly_temperature")
+        check_temperature(
+            nut.material,
+            nut.temperature,
+            temperature_key("nut.temperature", given, "bolt.temperature"),
+            ("E",),
+            True,
+            "nut",
+        )
+        check_temperature(nut.material, T_asm, "service.assembly_temperature", ("E",), True, "nut")
     if b.shank_length > lK * (1 + 1e-9):
         raise InputError(
             f"the plain shank ({b.shank_length * 1e3:g} mm) is longer than the clamp length "
@@ -188,11 +231,18 @@ def check_fit(spec: JointSpec, given: frozenset[str] = frozenset()) -> None:
             f"hole {spec.layers[-1].hole * 1e3:.4g} mm under the nut",
             key="nut.bearing_diameter",
         )
-    check_temperature(b.material, b.temperature, "bolt.temperature")
-    check_temperature(b.material, T_asm, "service.assembly_temperature")
+    both = ("E", "alpha")
+    check_temperature(
+        b.material, b.temperature, temperature_key("bolt.temperature", given), both, True, "bolt"
+    )
+    check_temperature(b.material, T_asm, "service.assembly_temperature", both, True, "bolt")
     for layer in spec.layers:
-        check_temperature(layer.material, layer.temperature, f"layer {layer.name!r} temperature")
-        check_temperature(layer.material, T_asm, "service.assembly_temperature")
+        part = f"{layer.kind} {layer.name!r}"
+        own = f"{layer.key}.temperature" if layer.key else "service.temperature"
+        check_temperature(
+            layer.material, layer.temperature, temperature_key(own, given), both, True, part
+        )
+        check_temperature(layer.material, T_asm, "service.assembly_temperature", both, True, part)
 
 
 def with_defaults(spec: S, notes: dict[str, str]) -> S:

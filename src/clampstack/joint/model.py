@@ -81,19 +81,20 @@ class PartMaterial:
     modulus: float | None = None  # Pa, overrides the catalog
     expansion: float | None = None  # 1/K mean, overrides the catalog
 
-    def E(self, T: float) -> float:
-        """Young's modulus at temperature ``T`` [K] (catalog table, linear interpolation)."""
+    def E(self, T: float, extrapolate: bool = False) -> float:
+        """Young's modulus at temperature ``T`` [K] (catalog table, linear interpolation;
+        ``extrapolate``: at most ``COLD_MARGIN`` below the data, see the catalog)."""
         if self.modulus is not None:
             return self.modulus
         assert self.material is not None
-        return float(self.material.modulus(T))
+        return float(self.material.modulus(T, extrapolate=extrapolate))
 
-    def strain(self, T: float) -> float:
+    def strain(self, T: float, extrapolate: bool = False) -> float:
         """Free thermal strain from 20 degC to ``T`` [K] (mean coefficient times dT)."""
         if self.expansion is not None:
             return self.expansion * (T - ROOM)
         assert self.material is not None
-        return float(self.material.thermal_strain(T))
+        return float(self.material.thermal_strain(T, extrapolate=extrapolate))
 
     def alpha(self, T: float) -> float:
         """Mean expansion coefficient from 20 degC to ``T`` [1/K]."""

@@ -18,7 +18,7 @@ from typing import Any
 
 import numpy as np
 
-from ..catalog import yield_at_temperature
+from ..catalog import yield_at_temperature, yield_extrapolation
 from ..components import (
     embedding_amount,
     permissible_preload,
@@ -114,6 +114,25 @@ class Prepared:
         return self.assembly_max
 
 
+def temperature_data_notes(
+    spec: JointSpec, model: TemperatureModel, T_service: np.ndarray
+) -> list[str]:
+    """Notes for every property used outside its catalog data at service temperature(s) [K].
+
+    The moduli and expansion coefficients the temperature model extrapolates below a
+    material's data (:meth:`TemperatureModel.extrapolations`) and the bolt grade's yield
+    strength held at its 20 degC value in the cold (:func:`~clampstack.catalog.yield_extrapolation`),
+    each naming the part, the property and the temperatures.
+    """
+    notes = model.extrapolation_notes(T_service)
+    b = spec.bolt
+    T_bolt = np.append(model.part_T(b.temperature, T_service), spec.service.assembly_temperature)
+    held = yield_extrapolation(b.grade, T_bolt)
+    if held is not None:
+        notes.append(held.text("bolt"))
+    return notes
+
+
 def torque_preload_range(
     torque: float | None,
     preload: float | None,
@@ -188,6 +207,7 @@ def prepare(spec: JointSpec, model: TemperatureModel | None = None) -> Prepared:
 
     if model is None:  # a caller trying many grades may pass the model of the same parts
         model = TemperatureModel(spec)
+    notes.extend(temperature_data_notes(spec, model, np.array([srv.temperature])))
     dSa, dPa = model.resiliences_at_assembly()
     sp_a = Springs(dSa, dPa, tuple(model.segment_resiliences()))
 

@@ -10,6 +10,12 @@ points (VDI 2230-1, 5.4.2.3: ``delta_T = delta E_RT / E_T``).
 
 Per-part temperatures: when the service temperature is scanned, every part's
 rise above the assembly temperature scales with the joint's (:meth:`part_T`).
+
+Below a material's data the moduli and mean expansion coefficients are extrapolated
+linearly at most :data:`~clampstack.catalog.COLD_MARGIN` (100 K) below them
+(:meth:`~clampstack.catalog.Material.modulus` with ``extrapolate=True``); the model lists
+where with :meth:`TemperatureModel.extrapolations`, so the results can flag it, and
+:meth:`TemperatureModel.check_range` refuses what lies further out.
 """
 
 from __future__ import annotations
@@ -19,6 +25,7 @@ from dataclasses import dataclass
 
 import numpy as np
 
+from ..catalog import Extrapolation
 from ..components import bolt_resilience, plate_resiliences, wileman_1991
 from ..errors import InputError
 from .model import JointSpec, PartMaterial
@@ -30,6 +37,14 @@ class _Term:
     material: PartMaterial
     T_part: float  # the part's own service temperature from the file [K]
     name: str
+
+
+@dataclass(frozen=True)
+class _Part:
+    label: str  # "bolt", "tapped hole", "plate 'cover'" ...
+    material: PartMaterial
+    T_part: float  # the part's own service temperature from the file [K]
+    props: tuple[str, ...]  # catalog properties the model takes from it: "E", "alpha"
 
 
 class TemperatureModel:
@@ -51,6 +66,20 @@ class TemperatureModel:
         nut_mat = spec.nut.material if spec.nut else None
         nut_T = spec.nut.temperature if spec.nut else b.temperature
         tap = spec.tapped_hole
+        # the parts whose catalog data the model uses: modulus of all, expansion of the bolt
+        # (over l_K) and of the clamped layers (a nut or tapped part adds no free elongation)
+        parts = [_Part("bolt", b.material, b.temperature, ("E", "alpha"))]
+        if spec.nut is not None:
+            parts.append(_Part("nut", nut_mat or b.material, nut_T, ("E",)))
+        if tap is not None:
+            parts.append(_Part("tapped hole", tap.material, tap.temperature, ("E",)))
+        for lay in spec.layers:
+            parts.append(
+                _Part(f"{lay.kind} {lay.name!r}", lay.material, lay.temperature, ("E", "alpha"))
+            )
+        self.parts = tuple(
+            _Part(p.label, p.material, p.T_part, _catalog_props(p.material, p.props)) for p in parts
+        )
         # the bolt's segments with a reference modulus of 1 Pa: resilience x E = coefficient
         try:
             bolt = bolt_resilience(
@@ -229,23 +258,67 @@ class TemperatureModel:
         self._memo[key] = (bolt, clamp)
         return bolt, clamp
 
-    def check_range(self, T_service: np.ndarray) -> None:
-        """InputError if any part's temperature leaves its material's data (no extrapolation)."""
-        T = np.asarray(T_service, dtype=float)
-        for t in (*self.bolt_terms, *self.clamp_terms):
-            _modulus(t.material, self.part_T(t.T_part, T))
-        self.thermal(T)
+    # ------------------------------------------------------------------ data ranges
+    def check_range(self, T_service: float | np.ndarray, extrapolate: bool = False) -> None:
+        """InputError if a part's temperature leaves its material's data.
+
+        With ``extrapolate`` the data count as reaching
+        :data:`~clampstack.catalog.COLD_MARGIN` below their coldest point (what the model
+        evaluates, flagged by :meth:`extrapolations`); without, a property must be tabulated
+        at every part's temperature.  The message names the part, the material and the
+        property; the caller adds the key the temperatures came from.
+        """
+        for T in np.atleast_1d(np.asarray(T_service, dtype=float)).ravel():
+            for p in self.parts:
+                mat = p.material.material
+                if mat is None:
+                    continue
+                T_part = float(self.part_T(p.T_part, T))
+                for prop in p.props:
+                    try:
+                        mat.check(prop, T_part, extrapolate, p.label)
+                    except InputError as err:
+                        at = "" if abs(T_part - T) < 1e-9 else f" at {T - 273.15:g} degC in service"
+                        raise InputError(err.detail + at) from None
+
+    def extrapolations(self, T_service: float | np.ndarray) -> list[tuple[str, Extrapolation]]:
+        """``(part, Extrapolation)`` for every catalog property that the model extrapolates.
+
+        Over the parts' temperatures at the service temperature(s) ``T_service`` [K] and at
+        the assembly temperature; one entry per part and property, at its coldest point.
+        """
+        T = np.atleast_1d(np.asarray(T_service, dtype=float))
+        out = []
+        for p in self.parts:
+            if not p.props:
+                continue
+            Ts = np.append(self.part_T(p.T_part, T), self.T_assembly)
+            for x in p.material.material.extrapolations(Ts, p.props):  # type: ignore[union-attr]
+                out.append((p.label, x))
+        return out
+
+    def extrapolation_notes(self, T_service: float | np.ndarray) -> list[str]:
+        """:meth:`extrapolations` as sentences for a result's notes."""
+        return [x.text(label) for label, x in self.extrapolations(T_service)]
+
+
+def _catalog_props(pm: PartMaterial, props: tuple[str, ...]) -> tuple[str, ...]:
+    """The properties of ``props`` that come from the catalog (not given in the file)."""
+    if pm.material is None:
+        return ()
+    given = {"E": pm.modulus is not None, "alpha": pm.expansion is not None}
+    return tuple(p for p in props if not given[p])
 
 
 def _modulus(pm: PartMaterial, T: np.ndarray) -> np.ndarray:
     if pm.modulus is not None:
         return np.full(np.shape(T), pm.modulus) if np.ndim(T) else np.asarray(pm.modulus)
     assert pm.material is not None
-    return np.asarray(pm.material.modulus(T))
+    return np.asarray(pm.material.modulus(T, extrapolate=True))
 
 
 def _strain(pm: PartMaterial, T: np.ndarray) -> np.ndarray:
     if pm.expansion is not None:
         return pm.expansion * (T - 293.15)
     assert pm.material is not None
-    return np.asarray(pm.material.thermal_strain(T))
+    return np.asarray(pm.material.thermal_strain(T, extrapolate=True))

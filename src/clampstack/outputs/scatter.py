@@ -57,6 +57,10 @@ def scatter_text(r: ScatterResult, units: str = "si") -> str:
         )
     else:
         out.append(f"  NASA-STD-5020: {n.get('reason', 'not applied')}")
+    if r.notes:
+        out.append("")
+        out.append("Notes")
+        out.extend(f"  - {x}" for x in r.notes)
     out.append("")
     out.append(CAUTION)
     return "\n".join(out)

@@ -109,6 +109,10 @@ def sweep_text(r: SweepResult, units: str = "si") -> str:
             )
     for name, why in r.skipped.items():
         out.append(f"  {name} switched off: {why}")
+    if r.notes:
+        out.append("")
+        out.append("Notes")
+        out.extend(f"  - {n}" for n in r.notes)
     out.append("")
     out.append(CAUTION)
     return "\n".join(out)
@@ -142,11 +146,15 @@ def sweep_html_table(r: SweepResult, max_rows: int = MAX_ROWS) -> str:
         + "</li>"
         for lim in r.limits
     )
+    notes = "".join(f"<li>{e(n)}</li>" for n in r.notes)
     verdict = "PASS" if r.passed else "FAIL"
     shown = f"{idx.size} of {T.size} points" if T.size > idx.size else f"{T.size} points"
     return (
         f"<div><b>{e(r.spec.title)}</b>: {verdict} from {T[0] - C0:g} to {T[-1] - C0:g} degC "
-        f"({shown})" + (f"<ul>{limits}</ul>" if limits else "") + "<table><tr><th>T [degC]</th>"
+        f"({shown})"
+        + (f"<ul>{limits}</ul>" if limits else "")
+        + (f"<p>Notes:</p><ul>{notes}</ul>" if notes else "")
+        + "<table><tr><th>T [degC]</th>"
         "<th>preload min [kN]</th><th>preload max [kN]</th><th>residual clamp min [kN]</th>"
         "<th>bolt stress max [MPa]</th><th>smallest margin</th><th></th></tr>"
         f"{''.join(rows)}</table><p><small>{e(CAUTION)}</small></p></div>"

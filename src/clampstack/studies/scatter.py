@@ -34,7 +34,7 @@ from ..display import Shown
 from ..errors import InputError
 from ..joint.analysis import analyse
 from ..joint.model import DIST_KEYS, Dist, JointSpec
-from ..joint.prepare import Prepared, prepare, service_closed_form
+from ..joint.prepare import Prepared, prepare, service_closed_form, temperature_data_notes
 from .sampling import (  # noqa: F401  (re-exported for the flange study and callers)
     BINS,
     BLOCK,
@@ -198,6 +198,7 @@ class ScatterResult(Shown):
     exact: bool
     intervals: dict[str, dict[str, dict[str, float]]] = field(default_factory=dict)
     convergence: dict[str, Any] = field(default_factory=dict)
+    notes: tuple[str, ...] = ()
 
     def probability(self, name: str) -> dict[str, float]:
         """Estimate and 95 % interval of an event's probability."""
@@ -216,6 +217,7 @@ class ScatterResult(Shown):
             "percentiles_exact": self.exact,
             "deterministic": self.deterministic,
             "nasa_std_5020": self.nasa,
+            "notes": list(self.notes),
         }
 
 
@@ -252,7 +254,7 @@ def scatter(
         d = chain.dists["temperature"]
         lo, hi = (d.a, d.b) if d.kind == "uniform" else (d.a - 6 * d.b, d.a + 6 * d.b)
         try:
-            chain.prep.model.check_range(np.array([lo, hi]))
+            chain.prep.model.check_range(np.array([lo, hi]), extrapolate=True)
         except InputError as err:
             raise InputError(
                 err.detail + " (sampled temperatures, mean +- 6 std for normal)",
@@ -282,6 +284,11 @@ def scatter(
         "governing_check": governing,
     }
     nasa = _nasa(chain, det)
+    T_notes = np.array([spec.service.temperature])
+    if "temperature" in chain.dists:
+        d = chain.dists["temperature"]
+        T_notes = np.array([d.a, d.b] if d.kind == "uniform" else [d.a - 6 * d.b, d.a + 6 * d.b])
+    notes = temperature_data_notes(spec, chain.prep.model, T_notes)
     described = {k: v.describe(**_unit(k)) for k, v in chain.dists.items()}
     return ScatterResult(
         spec,
@@ -296,6 +303,7 @@ def scatter(
         got.exact,
         got.intervals,
         got.convergence,
+        tuple(notes),
     )
 
 

@@ -23,7 +23,13 @@ from ..display import Shown
 from ..errors import InputError, SolveError
 from ..joint.analysis import evaluate_checks, margins
 from ..joint.model import JointSpec
-from ..joint.prepare import Prepared, check_bolt_loads, prepare, service_closed_form
+from ..joint.prepare import (
+    Prepared,
+    check_bolt_loads,
+    prepare,
+    service_closed_form,
+    temperature_data_notes,
+)
 
 C0 = 273.15
 CHUNK = 20_000  # temperature points per piece when a progress bar is drawn
@@ -58,6 +64,7 @@ class SweepResult(Shown):
     cycle: dict[str, Any] | None = None
     check_basis: str = "permissible"  # preload of the checks R8-R10 (Prepared.check_basis)
     check_preload: float = 0.0  # that preload [N]; bolt_load_max and the stresses follow it
+    notes: tuple[str, ...] = ()  # material data extrapolated or held over the range
 
     @property
     def thermal_change_cold(self) -> float:
@@ -107,6 +114,7 @@ class SweepResult(Shown):
             "thermal_change_cold_N": self.thermal_change_cold,
             "thermal_change_hot_N": self.thermal_change_hot,
             "skipped": self.skipped,
+            "notes": list(self.notes),
             "ok": self.passed,
         }
         if self.cycle is not None:
@@ -190,6 +198,7 @@ def sweep(
         T = np.append(T, T_high)
     prep = prepare(spec)
     _check_range(prep, T)
+    notes = tuple(temperature_data_notes(spec, prep.model, np.array([T[0], T[-1]])))
     if progress is None or T.size <= CHUNK:
         ev = _evaluate(prep, T)
     else:  # the same vectorised evaluation in pieces, reporting as it goes
@@ -232,13 +241,19 @@ def sweep(
         cycle=cyc,
         check_basis=prep.check_basis,
         check_preload=prep.check_preload(),
+        notes=notes,
     )
 
 
 def _check_range(prep: Prepared, T: np.ndarray) -> None:
-    """Every part's temperature must lie inside its material data (no extrapolation)."""
+    """Every part's temperature within its material data, or at most the margin below them.
+
+    What lies below the data is extrapolated and named in the result's notes
+    (:func:`~clampstack.joint.prepare.temperature_data_notes`); the error names the part,
+    the material and the option the range came from.
+    """
     try:
-        prep.model.check_range(np.array([T[0], T[-1]]))
+        prep.model.check_range(np.array([T[0], T[-1]]), extrapolate=True)
         s = prep.spec
         from ..catalog import yield_at_temperature
 
