@@ -8,31 +8,10 @@ from __future__ import annotations
 
 import numpy as np
 import pytest
+from test_flange import data  # the same test flange (tests/flange/test_flange.py)
 
 from clampstack.flange.analysis import PCC1_LEGACY, analyse_flange, cross_order, cross_rule
 from clampstack.inputs.flange import flange_from_data
-
-
-def data() -> dict:
-    return {
-        "title": "test flange",
-        "flange": {
-            "bolt_count": 8,
-            "bolt_circle": "160 mm",
-            "thickness": "20 mm",
-            "inner_diameter": "90 mm",
-            "outer_diameter": "200 mm",
-        },
-        "bolt": {"thread": "M16", "grade": "8.8"},
-        "gasket": {
-            "type": "spiral-wound",
-            "inner_diameter": "95 mm",
-            "outer_diameter": "127 mm",
-            "thickness": "4.5 mm",
-        },
-        "loading": {"pressure": "40 bar"},
-    }
-
 
 PCC1 = {  # from memory, PCC-1-2013 Table 4 (bolts numbered clockwise)
     12: [1, 7, 4, 10, 2, 8, 5, 11, 3, 9, 6, 12],

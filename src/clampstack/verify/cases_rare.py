@@ -18,15 +18,15 @@ probability.
 
 from __future__ import annotations
 
+from functools import cache
+
 from .registry import Outcome, register
 
 G = "rare events and stripping"
 
 
-@register(
-    "stripping, bolt thread governs: m_eff,min with C1, C2 (M12 8.8, ISO nut)", G, kind="hand"
-)
-def stripping_bolt_thread() -> Outcome:
+@cache
+def _m12_stripping():
     from ..components import nut_dilation_factor, stripping_engagement
 
     st = stripping_engagement(
@@ -41,6 +41,14 @@ def stripping_bolt_thread() -> Outcome:
         D1=10.106e-3,
         D2=10.863e-3,
     )
+    return st
+
+
+@register(
+    "stripping, bolt thread governs: m_eff,min with C1, C2 (M12 8.8, ISO nut)", G, kind="hand"
+)
+def stripping_bolt_thread() -> Outcome:
+    st = _m12_stripping()
     return Outcome(
         st.external * 1e3,
         6.4743,
@@ -52,20 +60,7 @@ def stripping_bolt_thread() -> Outcome:
 
 @register("stripping, nut thread: m_eff,min with C1, C3 (M12 8.8, ISO nut)", G, kind="hand")
 def stripping_nut_thread() -> Outcome:
-    from ..components import nut_dilation_factor, stripping_engagement
-
-    st = stripping_engagement(
-        12e-3,
-        1.75e-3,
-        84.3e-6,
-        800e6,
-        0.65 * 800e6,
-        0.6 * 800e6,
-        float(nut_dilation_factor(18e-3, 12e-3)),
-        d2=10.863e-3,
-        D1=10.106e-3,
-        D2=10.863e-3,
-    )
+    st = _m12_stripping()
     return Outcome(
         st.internal * 1e3,
         5.6521,
