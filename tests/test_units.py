@@ -7,6 +7,9 @@ degF -> K: T/K = (T/degF + 459.67)/1.8.
 
 from __future__ import annotations
 
+import time
+from pathlib import Path
+
 import pytest
 
 from clampstack.errors import InputError
@@ -93,3 +96,64 @@ def test_to_unit_fast_and_pint_paths():
     assert to_unit(1e3, "kN") == 1.0
     assert to_unit(0.0254, "in") == pytest.approx(1.0)
     assert to_unit(1.0, "ft") == pytest.approx(1 / 0.3048)  # NIST SP 811: 1 ft = 0.3048 m
+
+
+# ---------------------------------------------------------------- hostile unit strings
+
+
+@pytest.mark.parametrize(
+    "text",
+    ["4 m*9**9**9", "4 m**9**9", "4 m^99", "1 mm*2**1000", "4 (m**2)**3**4", "4 m*9"],
+)
+def test_no_arithmetic_in_units(text):
+    # pint would evaluate a tower of powers for minutes; the grammar refuses it at once
+    t0 = time.perf_counter()
+    with pytest.raises(InputError) as err:
+        parse_quantity(text, "length", "bolt.length")
+    assert time.perf_counter() - t0 < 1.0
+    assert err.value.key == "bolt.length" and "\n" not in str(err.value)
+
+
+def test_the_temperature_option_refuses_a_power_tower_within_a_second(tmp_path):
+    from click.testing import CliRunner
+
+    from clampstack.cli import main
+
+    f = Path(__file__).parent.parent / "examples" / "gearbox-cover-cold-to-hot.toml"
+    t0 = time.perf_counter()
+    res = CliRunner().invoke(main, ["sweep", str(f), "--temperature", "4 m*9**9**9..5 degC"])
+    assert time.perf_counter() - t0 < 5.0  # start-up and reading included
+    assert res.exit_code == 2 and "--temperature" in res.stderr and res.stdout == ""
+
+
+@pytest.mark.parametrize(
+    ("text", "kind", "words"),
+    [
+        ("48 ± 1 N*m", "torque", "tolerance"),
+        ("48 +/- 1 N*m", "torque", "tolerance"),
+        ("20 rad*degC", "temperature", "absolute temperature"),
+        ("5 degC^2", "temperature", "absolute temperature"),
+        ("8 deg", "dimensionless", "angle"),
+        ("0.1 rad", "dimensionless", "angle"),
+    ],
+)
+def test_no_silently_dropped_text(text, kind, words):
+    with pytest.raises(InputError) as err:
+        parse_quantity(text, kind, "k")
+    assert words in str(err.value)
+
+
+@pytest.mark.parametrize(
+    ("text", "kind", "si"),
+    [
+        ("11e-6 /degC", "expansion", 11e-6),
+        ("2 mm^2", "area", 2e-6),
+        ("2 (mm)^2", "area", 2e-6),
+        ("1.5 N*m/rad", "torque", 1.5),
+        ("10 µm", "length", 10e-6),
+        ("5 delta_degC", "temperature_difference", 5.0),
+        ("120 kN/mm", "stiffness", 1.2e8),
+    ],
+)
+def test_ordinary_units_still_read(text, kind, si):
+    assert parse_quantity(text, kind) == pytest.approx(si)

@@ -44,6 +44,49 @@ KINDS: dict[str, tuple[str, str, str]] = {
 
 _NUMBER = re.compile(r"^\s*([+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?)\s*(.*?)\s*$")
 _OFFSET_UNITS = {"degree_Celsius", "degree_Fahrenheit", "degree_Rankine", "degree_Reaumur"}
+_ANGLE_UNITS = {"radian", "degree", "arcminute", "arcsecond", "turn", "gradian", "revolution"}
+#: Tokens of a unit expression: names, operators, parentheses, small integer exponents.
+_UNIT_TOKEN = re.compile(
+    r"\s*(\*\*|\^|[*/()]|[A-Za-z_%\u00b0\u00b5\u03bc\u03a9][A-Za-z0-9_]*|[+-]?\d+|\S)"
+)
+MAX_UNIT_POWER = 4  # largest exponent of a unit written in a file (m^3, mm^4)
+
+
+def check_unit_text(unit_text: str, shown: str) -> None:
+    """Refuse anything in a unit but names, ``*``, ``/``, parentheses and small exponents.
+
+    The unit goes to pint only after this: pint would evaluate arbitrary arithmetic
+    (``"m*9**9**9"`` is a tower of powers that runs for minutes).  An exponent is an
+    integer of at most :data:`MAX_UNIT_POWER` in size after a name or ``)``, not followed
+    by another exponent; a bare number is allowed only as the ``1`` of ``1/K``.
+    """
+    toks = _UNIT_TOKEN.findall(unit_text)
+    prev = ""
+    for i, t in enumerate(toks):
+        if t in ("**", "^"):
+            nxt = toks[i + 1] if i + 1 < len(toks) else ""
+            ok_base = bool(prev) and (prev == ")" or prev[0].isalpha() or prev[0] in "%_")
+            if not ok_base or not re.fullmatch(r"[+-]?\d+", nxt):
+                raise InputError(f"expected a unit with integer powers, got {shown}")
+            if abs(int(nxt)) > MAX_UNIT_POWER or (i + 2 < len(toks) and toks[i + 2] in ("**", "^")):
+                raise InputError(
+                    f"unit powers beyond {MAX_UNIT_POWER} are not accepted, got {shown}"
+                )
+        elif re.fullmatch(r"[+-]?\d+", t):
+            if prev not in ("**", "^") and not (
+                t == "1" and i + 1 < len(toks) and toks[i + 1] == "/"
+            ):
+                raise InputError(f"expected a unit after the number, got {shown}")
+        elif t in ("\u00b1", "+/-") or t == "+" or t == "-":
+            raise InputError(
+                f"a tolerance is not read in {shown}: give a single value, or a range "
+                '"low..high" where the key takes one'
+            )
+        elif not (
+            t in ("*", "/", "(", ")") or t[0].isalpha() or t[0] in "%_\u00b0\u00b5\u03bc\u03a9"
+        ):
+            raise InputError(f"unexpected {t!r} in the unit of {shown}")
+        prev = t
 
 
 @lru_cache(maxsize=1)
@@ -112,6 +155,7 @@ def _parse_cached(text: str, kind: str) -> float:
         if kind == "angle":
             raise InputError(f"expected {human} with a unit (deg or rad), got {_show(text)}")
         raise InputError(f"expected {human} with a unit, got {_show(text)}")
+    check_unit_text(unit_text, _show(text))
     ureg = registry()
     try:
         ut = unit_text.replace("^", "**")
@@ -123,6 +167,17 @@ def _parse_cached(text: str, kind: str) -> float:
     except Exception:  # pragma: no cover
         units_names = set()
     is_offset = bool(units_names & _OFFSET_UNITS)
+    # pint turns degC in a product into delta_degC: look at what was written
+    offset_written = is_offset or re.search(
+        r"(?<!delta_)(degC|degF|degree_Celsius|degree_Fahrenheit|\u00b0C|\u00b0F)", unit_text
+    )
+    if offset_written and (len(units_names) > 1 or any(abs(e) != 1 for e in unit._units.values())):
+        raise InputError(
+            f"an absolute temperature unit (degC, degF) cannot be part of a product or power: "
+            f"{_show(text)}"
+        )
+    if kind in ("dimensionless",) and units_names & _ANGLE_UNITS:
+        raise InputError(f"expected a plain number, got the angle {_show(text)}")
     if kind == "temperature_difference" and is_offset:
         raise InputError(
             f"expected a temperature difference, got {_show(text)} (an absolute temperature); "

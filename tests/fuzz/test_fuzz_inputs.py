@@ -270,8 +270,9 @@ def mutated(draw, names: list[str], ops: tuple[str, ...] = OPS) -> dict[str, Any
 # ----------------------------------------------------------------------------- runner
 
 
-class Hang(Exception):
-    """A command ran past TIME_LIMIT_S."""
+class Hang(BaseException):
+    """A command ran past TIME_LIMIT_S (a BaseException: no ``except Exception`` in the
+    code under test can swallow it and hide the hang)."""
 
 
 @contextmanager

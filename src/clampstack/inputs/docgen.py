@@ -51,7 +51,11 @@ def input_reference() -> str:
         'Input files are TOML. Quantities are strings with units: `"12 mm"`, `"0.5 in"`, '
         '`"85 N*m"`, `"65 ft*lbf"`, `"20 degC"`, `"11.5e-6 / K"`; SI and US customary '
         'both work. A range is `"low..high"` (`"0.10..0.16"`, `"0..10 kN"`). '
-        "Temperature *differences* are written in `K` or `delta_degC`. Unknown keys are "
+        "Temperature *differences* are written in `K` or `delta_degC`; an absolute `degC` "
+        "or `degF` stands alone (`/degC` in an expansion coefficient is fine). A unit is "
+        "unit names joined by `*` and `/`, with integer powers up to 4 (`mm^2`, `mm**4`); "
+        "no other arithmetic, no tolerances (`48 ± 1 N*m` is refused: write a range where "
+        "the key takes one), no angle where a plain number is meant. Unknown keys are "
         "errors, so a typo never passes silently. Arrays of tables are counted from 1 in "
         "error messages (`part[2].length` is the second `[[part]]`).",
         "",
