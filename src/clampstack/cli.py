@@ -22,7 +22,7 @@ EXIT_OK, EXIT_FAIL, EXIT_INPUT = 0, 1, 2
 
 
 def _fail_input(message: str) -> None:
-    click.echo(f"clampstack: error: {message}", err=True)
+    _echo(f"clampstack: error: {message}", err=True)
     sys.exit(EXIT_INPUT)
 
 
@@ -55,8 +55,15 @@ def _in_file(path: str, fn: Callable[..., Any], *args: Any) -> Any:
         raise SolveError(f"{path}: {err}") from None
 
 
+def _echo(text: str = "", err: bool = False, nl: bool = True) -> None:
+    """Print ``text`` with control characters from the input shown escaped."""
+    from .outputs.text import terminal_safe
+
+    click.echo(terminal_safe(str(text)), err=err, nl=nl)
+
+
 def _print_json(obj: Any) -> None:
-    click.echo(json.dumps(obj, indent=2, allow_nan=False))
+    click.echo(json.dumps(obj, indent=2, allow_nan=False))  # ASCII: escapes all
 
 
 class _Group(click.Group):
@@ -70,17 +77,17 @@ class _Group(click.Group):
             rv = super().main(*args, **kwargs)
         except click.exceptions.UsageError as err:
             if type(err).__name__ == "NoArgsIsHelpError" and err.ctx is not None:
-                click.echo(err.ctx.get_help())  # bare `clampstack`: the help, as usual
+                _echo(err.ctx.get_help())  # bare `clampstack`: the help, as usual
                 sys.exit(0)
             msg = " ".join(err.format_message().split())
             where = f"{err.ctx.info_name}: " if err.ctx is not None and err.ctx.info_name else ""
-            click.echo(f"clampstack: error: {where}{msg} (see --help)", err=True)
+            _echo(f"clampstack: error: {where}{msg} (see --help)", err=True)
             sys.exit(EXIT_INPUT)
         except click.exceptions.Abort:
-            click.echo("clampstack: aborted", err=True)
+            _echo("clampstack: aborted", err=True)
             sys.exit(1)
         except click.exceptions.ClickException as err:
-            click.echo(f"clampstack: error: {' '.join(err.format_message().split())}", err=True)
+            _echo(f"clampstack: error: {' '.join(err.format_message().split())}", err=True)
             sys.exit(err.exit_code)
         sys.exit(rv if isinstance(rv, int) else 0)
 
@@ -124,7 +131,7 @@ def solve(file: str, as_json: bool, units: str) -> None:
     if as_json:
         _print_json(result.to_dict())
     else:
-        click.echo(assembly_text(result, units))
+        _echo(assembly_text(result, units))
     sys.exit(EXIT_OK)
 
 
@@ -144,7 +151,7 @@ def check(file: str, as_json: bool, units: str) -> None:
     if as_json:
         _print_json(result.to_dict())
     else:
-        click.echo(joint_text(result, units))
+        _echo(joint_text(result, units))
     sys.exit(EXIT_OK if result.ok else EXIT_FAIL)
 
 
@@ -208,9 +215,9 @@ def sweep(
     if as_json:
         _print_json(result.to_dict())
     elif as_csv:
-        click.echo(sweep_csv(result), nl=False)
+        _echo(sweep_csv(result), nl=False)
     else:
-        click.echo(sweep_text(result, units))
+        _echo(sweep_text(result, units))
     sys.exit(EXIT_OK if result.passed else EXIT_FAIL)
 
 
@@ -230,7 +237,7 @@ def flange(file: str, as_json: bool, units: str) -> None:
     if as_json:
         _print_json(result.to_dict())
     else:
-        click.echo(flange_text(result, units))
+        _echo(flange_text(result, units))
     sys.exit(EXIT_OK if result.ok else EXIT_FAIL)
 
 
@@ -321,7 +328,7 @@ def scatter(
         if as_json:
             _print_json(fres.to_dict())
         else:
-            click.echo(flange_scatter_text(fres, units))
+            _echo(flange_scatter_text(fres, units))
         sys.exit(EXIT_OK if fres.deterministic["ok"] else EXIT_FAIL)
     doc, spec = read_joint_file(file)
     dists = spec.distributions or {}
@@ -332,7 +339,7 @@ def scatter(
     if as_json:
         _print_json(result.to_dict())
     else:
-        click.echo(scatter_text(result, units))
+        _echo(scatter_text(result, units))
     sys.exit(EXIT_OK if result.deterministic["ok"] else EXIT_FAIL)
 
 
@@ -378,7 +385,7 @@ def size(file: str, as_json: bool, units: str) -> None:
         if as_json:
             _print_json(fres)
         else:
-            click.echo(flange_size_text(fres, units))
+            _echo(flange_size_text(fres, units))
         sys.exit(EXIT_OK if fres["designs"] else EXIT_FAIL)
     from .inputs.joint import joint_from_data
 
@@ -390,7 +397,7 @@ def size(file: str, as_json: bool, units: str) -> None:
     if as_json:
         _print_json(result.to_dict())
     else:
-        click.echo(size_text(result, units))
+        _echo(size_text(result, units))
     sys.exit(EXIT_OK if result.designs else EXIT_FAIL)
 
 
@@ -407,7 +414,7 @@ def catalog(what: str, as_json: bool) -> None:
     if as_json:
         _print_json([dict(zip(headers, r, strict=True)) for r in rows])
     else:
-        click.echo(table(headers, rows))
+        _echo(table(headers, rows))
 
 
 @main.command()
@@ -425,7 +432,7 @@ def demo(out_dir: str) -> None:
     from .demo import run_demo
 
     for line in run_demo(out_dir):
-        click.echo(line)
+        _echo(line)
 
 
 @main.command()
@@ -478,9 +485,9 @@ def report(file: str, out_dir: str, units: str, as_json: bool) -> None:
     if as_json:
         _print_json({"ok": result.ok, "report": str(page), "files": [str(p) for p in written]})
     else:
-        click.echo(f"{'PASS' if result.ok else 'FAIL'}: {spec.title}")
-        click.echo(f"Report: {page}")
-        click.echo("Beside it: " + ", ".join(p.name for p in written if p != page))
+        _echo(f"{'PASS' if result.ok else 'FAIL'}: {spec.title}")
+        _echo(f"Report: {page}")
+        _echo("Beside it: " + ", ".join(p.name for p in written if p != page))
     sys.exit(EXIT_OK if result.ok else EXIT_FAIL)
 
 
@@ -497,13 +504,13 @@ def verify(as_json: bool) -> None:
     if as_json:
         _print_json(doc)
     else:
-        click.echo(table(HEADERS, rows(results)))
-        click.echo("")
-        click.echo(
+        _echo(table(HEADERS, rows(results)))
+        _echo("")
+        _echo(
             f"{doc['passed']} of {len(results)} cases pass"
             + ("." if doc["ok"] else f"; {doc['failed']} FAIL.")
         )
-        click.echo(CAUTION)
+        _echo(CAUTION)
     sys.exit(EXIT_OK if doc["ok"] else EXIT_FAIL)
 
 

@@ -178,6 +178,8 @@ def read_value(key: Key, raw: Any, kp: str, depth: int = 0) -> Any:
             raise InputError(
                 f"text is too long ({len(raw)} characters; at most {MAX_TEXT})", key=kp
             )
+        # a title or name is one line: a line break in it is kept visible as \\n
+        raw = raw.replace("\r\n", "\\n").replace("\n", "\\n").replace("\r", "\\r")
         if key.choices and raw not in key.choices:
             near = difflib.get_close_matches(raw, key.choices, n=1)
             hint = f"; did you mean {_show(near[0])}?" if near else ""

@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+import re
 from collections.abc import Sequence
 from dataclasses import dataclass
 
@@ -95,3 +96,22 @@ def table(
 
     rule = "  ".join("-" * w for w in width)
     return "\n".join([line(headers), rule, *(line(r) for r in rows)])
+
+
+#: Characters that act on a terminal: C0 controls but the line feed, DEL, C1 controls, and
+#: the Unicode bidirectional overrides and isolates (they reorder what is shown).
+_TERMINAL_UNSAFE = re.compile("[\x00-\x09\x0b-\x1f\x7f-\x9f\u200e\u200f\u202a-\u202e\u2066-\u2069]")
+
+
+def terminal_safe(text: str) -> str:
+    """``text`` with every control character shown escaped (``\\x1b``, ``\\u202e``).
+
+    Line feeds are kept: they are the output's own line structure (a line feed inside a
+    title or name is escaped where the file is read, see :func:`single_line`).
+    """
+
+    def esc(m: re.Match[str]) -> str:
+        c = ord(m.group(0))
+        return f"\\x{c:02x}" if c < 0x100 else f"\\u{c:04x}"
+
+    return _TERMINAL_UNSAFE.sub(esc, text)
