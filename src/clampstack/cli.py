@@ -340,7 +340,7 @@ def scatter(
         _print_json(result.to_dict())
     else:
         _echo(scatter_text(result, units))
-    sys.exit(EXIT_OK if result.deterministic["ok"] else EXIT_FAIL)
+    sys.exit(EXIT_OK if result.ok else EXIT_FAIL)
 
 
 def _progress(total: int, quiet: bool, label: str):

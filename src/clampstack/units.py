@@ -197,6 +197,8 @@ def _parse_cached(text: str, kind: str) -> float:
         raise
     except Exception:  # pint refuses some combinations (offset units in products, ...)
         raise InputError(f"cannot convert {_show(text)} to {human}") from None
+    if kind == "temperature" and value < 0:
+        raise InputError(f"{_show(text)} is below absolute zero")
     return check_magnitude(value, _show(text))
 
 

@@ -10,7 +10,7 @@ from __future__ import annotations
 from typing import Any
 
 from ..errors import InputError
-from ..joint.model import DIST_KEYS, Dist
+from ..joint.model import DIST_KEYS, DIST_LOWER_BOUNDS, MAX_TRUNCATED, Dist
 from ..units import parse_quantity
 
 
@@ -34,7 +34,23 @@ def parse_distributions(raw: Any) -> dict[str, Dist]:
             )
             raise InputError(f"unknown key{hint}", key=key)
         kind = DIST_KEYS[name][0]
-        out[name] = _parse_one(spec, kind, key, name == "temperature")
+        d = _parse_one(spec, kind, key, name == "temperature")
+        bound = DIST_LOWER_BOUNDS.get(name)
+        if bound is not None:
+            below = d.share_below(bound)
+            if d.kind == "uniform" and below > 0:
+                raise InputError(
+                    f"the range reaches below {_bound_text(name, bound)}, which "
+                    f"{DIST_KEYS[name][1]} cannot be",
+                    key=key,
+                )
+            if below > MAX_TRUNCATED:
+                raise InputError(
+                    f"{below:.2g} of the samples would fall below {_bound_text(name, bound)} "
+                    f"(at most {MAX_TRUNCATED:g} are truncated): give a narrower distribution",
+                    key=key,
+                )
+        out[name] = d
     if "torque" in out and "torque_factor" in out:
         raise InputError("give torque or torque_factor, not both", key="distributions.torque")
     return out
@@ -71,3 +87,7 @@ def _parse_one(spec: Any, kind: str, key: str, absolute_temperature: bool) -> Di
     if form == "lognormal" and a <= 0:
         raise InputError("a lognormal variable needs a positive mean", key=f"{key}.{form}")
     return Dist(form, a, b)
+
+
+def _bound_text(name: str, bound: float) -> str:
+    return "absolute zero" if name == "temperature" else f"{bound:g}"

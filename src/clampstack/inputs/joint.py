@@ -351,6 +351,14 @@ REQUIREMENTS = Schema(
             default="permissible",
             choices=("permissible", "actual"),
         ),
+        Key(
+            "max_failure_probability",
+            "number",
+            "scatter: largest allowed probability of separation, bolt yield or slip (the 95 % "
+            "upper bound is compared; exceeded: exit code 1)",
+            default="no limit",
+            positive=True,
+        ),
     ),
 )
 
@@ -685,6 +693,7 @@ def requirement_table(
         slip_safety,
         rq["fatigue_safety"] or 1.2,
         rq["check_basis"] or "permissible",
+        rq["max_failure_probability"],
     )
 
 

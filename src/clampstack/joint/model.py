@@ -31,6 +31,24 @@ DIST_KEYS: dict[str, tuple[str, str]] = {
     "slip_friction": ("dimensionless", "interface friction mu_T"),
 }
 
+#: Physical lower bound of each sampled input (SI): frictions, torque, preload, embedding,
+#: tool factor and slip coefficient are not negative, a temperature not below 0 K, a yield
+#: strength positive (common practice, no source: what the quantities mean).
+DIST_LOWER_BOUNDS: dict[str, float] = {
+    "thread_friction": 0.0,
+    "head_friction": 0.0,
+    "torque": 0.0,
+    "torque_factor": 0.0,
+    "preload": 0.0,
+    "embedding": 0.0,
+    "temperature": 0.0,
+    "yield_strength": 0.0,
+    "slip_friction": 0.0,
+}
+#: A normal distribution may put at most this share of its samples below the bound (they
+#: are truncated to it, with a note); a larger share is refused.
+MAX_TRUNCATED = 1e-3
+
 
 @dataclass(frozen=True)
 class Dist:
@@ -39,6 +57,20 @@ class Dist:
     kind: str
     a: float
     b: float = 0.0
+
+    def share_below(self, bound: float) -> float:
+        """Share of the samples that fall below ``bound`` (exact for each kind)."""
+        if self.kind == "fixed":
+            return 1.0 if self.a < bound else 0.0
+        if self.kind == "uniform":
+            if self.b <= self.a:
+                return 1.0 if self.a < bound else 0.0
+            return min(max((bound - self.a) / (self.b - self.a), 0.0), 1.0)
+        if self.kind == "normal":
+            if self.b == 0:
+                return 1.0 if self.a < bound else 0.0
+            return 0.5 * math.erfc((self.a - bound) / (self.b * math.sqrt(2)))
+        return 0.0 if bound <= 0 else float("nan")  # lognormal: positive
 
     def sample(self, rng: np.random.Generator, n: int) -> np.ndarray:
         if self.kind == "uniform":
@@ -184,6 +216,9 @@ class RequirementSpec:
     fatigue_safety: float
     #: preload of the checks R8-R10: "permissible" (F_M,zul, VDI 2230-1) or "actual" (F_M,max)
     check_basis: str = "permissible"
+    #: largest probability of separation, bolt yield or slip a scatter study may show
+    #: (95 % upper bound); None: no limit
+    max_failure_probability: float | None = None
 
 
 @dataclass(frozen=True)

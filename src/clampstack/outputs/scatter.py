@@ -57,6 +57,13 @@ def scatter_text(r: ScatterResult, units: str = "si") -> str:
         )
     else:
         out.append(f"  NASA-STD-5020: {n.get('reason', 'not applied')}")
+    pc = r.probability_check
+    if pc["limit"] is not None:
+        out.append(
+            f"  probability limit ([requirements] max_failure_probability = {pc['limit']:g}, "
+            "95 % upper bound): "
+            + ("met" if pc["ok"] else f"EXCEEDED by {', '.join(pc['exceeded'])}")
+        )
     if r.notes:
         out.append("")
         out.append("Notes")

@@ -33,7 +33,7 @@ from ..components import permissible_preload
 from ..display import Shown
 from ..errors import InputError
 from ..joint.analysis import analyse
-from ..joint.model import DIST_KEYS, Dist, JointSpec
+from ..joint.model import DIST_KEYS, DIST_LOWER_BOUNDS, Dist, JointSpec
 from ..joint.prepare import Prepared, prepare, service_closed_form, temperature_data_notes
 from .sampling import (  # noqa: F401  (re-exported for the flange study and callers)
     BINS,
@@ -125,7 +125,7 @@ def evaluate(chain: Chain, x: dict[str, np.ndarray], n: int) -> dict[str, np.nda
         FM = x["preload"]
     FM = np.maximum(FM, 0.0)
     dSa, dPa = prep.springs.delta_S, prep.springs.delta_P
-    fZ = x.get("embedding", np.full(n, prep.embedding_amount))
+    fZ = np.maximum(x.get("embedding", np.full(n, prep.embedding_amount)), 0.0)
     # temperature: the model's resiliences and free elongations at the sampled temperatures
     if "temperature" in x:
         Ts = x["temperature"]
@@ -204,6 +204,27 @@ class ScatterResult(Shown):
         """Estimate and 95 % interval of an event's probability."""
         return event_probability(self.counts[name], self.samples)
 
+    @property
+    def probability_check(self) -> dict[str, Any]:
+        """The file's ``max_failure_probability`` against the 95 % upper bounds."""
+        limit = self.spec.requirements.max_failure_probability
+        events = ("separation", "bolt_yield", "slip")
+        applies = self.convergence.get("events", {}) if self.convergence else {}
+        over = [
+            e
+            for e in events
+            if limit is not None
+            and applies.get(e, {}).get("state") != "does not apply"
+            and self.probability(e)["high"] > limit
+        ]
+        return {"limit": limit, "exceeded": over, "ok": not over}
+
+    @property
+    def ok(self) -> bool:
+        """Exit rule of ``scatter``: the deterministic checks pass and no failure probability
+        exceeds the file's ``[requirements] max_failure_probability`` (95 % upper bound)."""
+        return bool(self.deterministic["ok"]) and self.probability_check["ok"]
+
     def to_dict(self) -> dict[str, Any]:
         return {
             "title": self.spec.title,
@@ -218,6 +239,8 @@ class ScatterResult(Shown):
             "deterministic": self.deterministic,
             "nasa_std_5020": self.nasa,
             "notes": list(self.notes),
+            "probability_limit": self.probability_check,
+            "ok": self.ok,
         }
 
 
@@ -289,6 +312,15 @@ def scatter(
         d = chain.dists["temperature"]
         T_notes = np.array([d.a, d.b] if d.kind == "uniform" else [d.a - 6 * d.b, d.a + 6 * d.b])
     notes = temperature_data_notes(spec, chain.prep.model, T_notes)
+    for name, dist in chain.dists.items():  # truncated tails (at most MAX_TRUNCATED)
+        bound = DIST_LOWER_BOUNDS.get(name)
+        share = dist.share_below(bound) if bound is not None else 0.0
+        if share > 1e-12:
+            notes.append(
+                f"{name}: about {share:.2g} of the samples fall below "
+                f"{'absolute zero' if name == 'temperature' else f'{bound:g}'} and are "
+                "truncated to it (the quantity cannot be negative)"
+            )
     described = {k: v.describe(**_unit(k)) for k, v in chain.dists.items()}
     return ScatterResult(
         spec,
