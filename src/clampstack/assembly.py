@@ -127,9 +127,38 @@ class AssemblyResult(Shown):
     assembly: Assembly
     cases: tuple[CaseResult, ...]
 
+    @property
+    def notes(self) -> tuple[str, ...]:
+        """Warnings: a curve part whose force lies beyond its curve's points (the end
+        slope carries on there: data the file did not give)."""
+        out = []
+        for c in self.cases:
+            for part in self.assembly.parts:
+                cv = part.curve
+                if cv is None:
+                    continue
+                F = c.force[part.name]
+                tol = 1e-9 * max(abs(float(cv.f[-1])), abs(float(cv.f[0])), 1.0)
+                side = None
+                if F > float(cv.f[-1]) + tol:
+                    side, end = "last", float(cv.f[-1])
+                elif F < float(cv.f[0]) - tol:
+                    side, end = "first", float(cv.f[0])
+                if side:
+                    out.append(
+                        f"case {c.name!r}: part {part.name!r} ({part.key}) carries "
+                        f"{F / 1e3:.4g} kN, beyond its curve's {side} point ({end / 1e3:.4g} kN): "
+                        "the end slope is carried on there; extend the curve"
+                    )
+        return tuple(out)
+
     def to_dict(self) -> dict[str, Any]:
         """JSON form per DESIGN.md."""
-        return {"title": self.assembly.title, "cases": [c.to_dict() for c in self.cases]}
+        return {
+            "title": self.assembly.title,
+            "cases": [c.to_dict() for c in self.cases],
+            "notes": list(self.notes),
+        }
 
 
 ASSEMBLY_CASE = "assembly"
@@ -179,16 +208,32 @@ def _load_vector(
     return f
 
 
-def _with_names(err: Exception, names: tuple[str, ...]) -> str:
-    """The network's message with node numbers replaced by the assembly's node names."""
+def _with_names(err: Exception, names: tuple[str, ...], asm: Assembly | None = None) -> str:
+    """The network's message with node numbers replaced by the assembly's node names, and
+    the parts that join those nodes named."""
     import re
+
+    touched: list[str] = []
 
     def repl(m: re.Match[str]) -> str:
         ids = [int(x) for x in m.group(1).split(", ")]
-        return "nodes " + ", ".join(names[i] if 0 <= i < len(names) else str(i) for i in ids)
+        shown = [names[i] if 0 <= i < len(names) else str(i) for i in ids]
+        touched.extend(shown)
+        return "nodes " + ", ".join(shown)
 
     text = re.sub(r"nodes (\d+(?:, \d+)*)", repl, str(err))
-    return re.sub(r"carry a load of (-?[0-9.e+-]+) ", r"carry a load of \1 N ", text)
+    text = re.sub(r"carry a load of (-?[0-9.e+-]+) ", r"carry a load of \1 N ", text)
+    if asm is not None and touched:
+        parts = [p for p in asm.parts if p.ends[0] in touched or p.ends[1] in touched]
+        if parts:
+            shown = ", ".join(
+                f"{p.name!r} ({p.key or 'part'}"
+                + (f", {p.behaviour} only" if p.behaviour in ("compression", "tension") else "")
+                + ")"
+                for p in parts[:6]
+            )
+            text += f"; parts at those nodes: {shown}"
+    return text
 
 
 def solve_assembly(asm: Assembly) -> AssemblyResult:
@@ -199,7 +244,7 @@ def solve_assembly(asm: Assembly) -> AssemblyResult:
     try:
         return _solve_assembly(asm)
     except SolveError as err:
-        raise SolveError(_with_names(err, names)) from None
+        raise SolveError(_with_names(err, names, asm)) from None
 
 
 def _solve_assembly(asm: Assembly) -> AssemblyResult:

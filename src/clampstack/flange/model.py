@@ -134,9 +134,29 @@ def check_fit(spec: FlangeSpec) -> None:
             key="gasket.outer_diameter",
         )
     ring_in, ring_out = spec.ring_inner_diameter, spec.ring_outer_diameter
-    if not ring_in < Dbc - hole or not ring_out > Dbc + hole:
+    given = spec.given
+    inner_key = (
+        "flange.inner_diameter" if "flange.inner_diameter" in given else ("gasket.inner_diameter")
+    )
+    if ring_in >= ring_out:
         raise InputError(
-            "the bolt holes must lie within the flange ring", key="flange.outer_diameter"
+            f"the flange ring's inner diameter {ring_in * 1e3:g} mm is not below its outer "
+            f"diameter {ring_out * 1e3:g} mm",
+            key=inner_key,
+        )
+    if not ring_in < Dbc - hole:
+        raise InputError(
+            f"the flange ring's inner diameter {ring_in * 1e3:g} mm reaches the bolt holes "
+            f"(bolt circle {Dbc * 1e3:g} mm minus hole {hole * 1e3:g} mm)",
+            key=inner_key,
+        )
+    if not ring_out > Dbc + hole:
+        raise InputError(
+            f"the flange ring's outer diameter {ring_out * 1e3:g} mm does not reach past the "
+            f"bolt holes (bolt circle {Dbc * 1e3:g} mm plus hole {hole * 1e3:g} mm)",
+            key="flange.outer_diameter"
+            if "flange.outer_diameter" in given
+            else "flange.bolt_circle",
         )
     if ring_out < Dbc + dW * (1 - 1e-9):
         raise InputError(

@@ -73,5 +73,8 @@ def assembly_text(result: AssemblyResult, units: str = "si") -> str:
         "Signs: part force tension +; displacement, loads and reactions along +axis "
         "(first end -> second end of a part)."
     )
+    if result.notes:
+        out.append("Warnings")
+        out.extend(f"  - {n}" for n in result.notes)
     out.append(CAUTION)
     return "\n".join(out)
