@@ -1,4 +1,6 @@
-"""A small self-contained HTML page of a ``solve`` result (no external fetches)."""
+"""A small self-contained HTML page of a ``solve`` result (no external fetches), the HTML
+tables of the notebook views, and the escaping of input text for HTML and CSS
+(:func:`html_text`, :func:`css_string`) that the calculation reports use too."""
 
 from __future__ import annotations
 
@@ -23,8 +25,33 @@ th{background:#eef3f1;font-weight:600}td.l,th.l{text-align:left}
 """
 
 
-def _e(x: object) -> str:
-    return html.escape(str(x))
+# --------------------------------------------------------------------------- escaping
+#
+# Every text that comes from an input file (titles, names, notes, reasons, file names)
+# is escaped for the context it lands in with one of these two helpers, here and in the
+# calculation reports (clampstack.report); markup of our own never goes through them.
+
+_CSS_SAFE = frozenset("abcdefghijklmnopqrstuvwxyzABCDEFGHIJKLMNOPQRSTUVWXYZ0123456789 -_.,:()/+")
+
+
+def html_text(x: object) -> str:
+    """``x`` as HTML text or a quoted attribute value: ``& < > " '`` as character
+    references (valid XML as well, so also for text inside inline SVG)."""
+    return html.escape(str(x), quote=True)
+
+
+def css_string(x: object) -> str:
+    """``x`` as the content of a double-quoted CSS string (``content:"..."``).
+
+    Every character outside ASCII letters, digits, space and ``-_.,:()/+`` becomes a
+    CSS hex escape of six digits and a space (``<`` is ``\\00003c ``), so no quote,
+    backslash, newline or ``</style>`` can appear in the style sheet; the browser
+    shows the text unchanged.
+    """
+    return "".join(c if c in _CSS_SAFE else f"\\{ord(c):06x} " for c in str(x))
+
+
+_e = html_text
 
 
 def _page(title: str, body: str) -> str:

@@ -8,12 +8,12 @@ they look alike on screen and on paper.
 from __future__ import annotations
 
 import csv
-import html
 import io
 import re
 from collections.abc import Callable, Iterable, Sequence
 from typing import Any
 
+from ..outputs.html import css_string, html_text
 from ..outputs.joint import _margin
 from ..outputs.joint import check_value as _check_value
 from ..outputs.text import DisplayUnits
@@ -80,8 +80,9 @@ section.newpage{break-before:page;page-break-before:always}
 
 
 def _e(x: object) -> str:
-    """Escape text for HTML; ``scheme://`` is written with an entity so the file names no URL."""
-    s = html.escape(str(x))
+    """Escape text for HTML text and quoted attributes (:func:`~clampstack.outputs.html.html_text`);
+    ``scheme://`` is written with an entity so the file names no URL."""
+    s = html_text(x)
     return s.replace("http://", "http&#58;//").replace("https://", "https&#58;//")
 
 
@@ -131,10 +132,13 @@ def _figure(fig: Any, prefix: str, title: str, caption: str) -> str:
 
 
 def _css_string(text: str) -> str:
+    """The page footer text for ``content:"..."``: one line of at most 90 characters, every
+    character outside a small safe set as a CSS escape (the title and the file name come
+    from the input, and ``</style>`` must not end the style sheet)."""
     t = " ".join(text.split())
     if len(t) > 90:
         t = t[:87] + "..."
-    return t.replace("\\", "\\\\").replace('"', '\\"')
+    return css_string(t)
 
 
 # --------------------------------------------------------------------------- checks
