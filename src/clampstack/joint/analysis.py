@@ -740,6 +740,13 @@ def analyse(spec: JointSpec) -> JointResult:
             "given. See the failing checks."
         )
     checks = checks + plastic_checks(cycle, skip)
+    present = {c.name for c in checks}
+    for name, reason in spec.skips:
+        if name not in present:
+            notes.append(
+                f"[[skip]] {name}: this joint has no such check (it does not apply here), so "
+                f"nothing was switched off; the reason given was: {reason}"
+            )
     if cycle is not None and cycle.permanent_loss > 0:
         notes.append(
             f"Yielding on the way from assembly to service and back ({', '.join(cycle.yielded)}): "

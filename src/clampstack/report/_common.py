@@ -186,6 +186,13 @@ def _checks_table(
     )
 
 
+def csv_text(text: str) -> str:
+    """A text cell that a spreadsheet will not run as a formula: a leading ``=``, ``+``,
+    ``-``, ``@``, tab or carriage return gets a ``'`` before it (common practice against
+    CSV formula injection, e.g. the OWASP guidance; no standard)."""
+    return "'" + text if text[:1] in ("=", "+", "-", "@", "\t", "\r") else text
+
+
 def _checks_csv(checks: Sequence[dict[str, Any]]) -> str:
     """CSV of the checks' JSON form (``Check.to_dict()``), SI numbers in full precision."""
     buf = io.StringIO()
@@ -201,8 +208,8 @@ def _checks_csv(checks: Sequence[dict[str, Any]]) -> str:
             elif isinstance(v, float):
                 row.append(repr(v))
             else:
-                row.append("" if v is None else str(v))
-        w.writerow([*row, c["detail"], c["title"]])
+                row.append("" if v is None else csv_text(str(v)))
+        w.writerow([*row, csv_text(c["detail"]), csv_text(c["title"])])
     return buf.getvalue()
 
 
