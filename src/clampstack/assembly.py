@@ -186,10 +186,14 @@ def build_network(asm: Assembly) -> tuple[Network, dict[str, int]]:
     net = Network.from_arrays(len(names), i, j, k, d0, beh, gap, curves, fixed)
     unheld = net.unheld_groups()
     if unheld:
-        group = ", ".join(names[n] for n in unheld[0][:8])
+        loose = [names[n] for n in unheld[0]]
+        group = ", ".join(loose[:8])
+        parts_at = [p for p in parts if p.ends[0] in loose or p.ends[1] in loose]
+        shown = ", ".join(f"{p.name!r} ({p.key or 'part'})" for p in parts_at[:6])
         raise InputError(
-            f"nodes {group} are not joined to any fixed node (a floating sub-assembly); "
-            "add a support or a part that ties them in",
+            f"nodes {group} are not joined to any fixed node (a floating sub-assembly"
+            + (f" of {shown}" if shown else "")
+            + "); add a support or a part that ties them in",
             key="supports.fixed",
         )
     return net, index

@@ -57,3 +57,14 @@ def test_a_curve_beyond_its_last_point_warns(tmp_path):
     assert "part[1]" in notes[0] and "'big pull'" in notes[0]
     res = _run("solve", str(p))
     assert "Warnings" in res.stdout
+
+
+def test_a_floating_group_names_its_parts(tmp_path):
+    p = tmp_path / "f.toml"
+    p.write_text(
+        'title = "floating"\n[[part]]\nname = "rod"\nends = ["A", "B"]\n'
+        'stiffness = "100 kN/mm"\n[[part]]\nname = "loose pair"\nends = ["C", "D"]\n'
+        'stiffness = "100 kN/mm"\n[supports]\nfixed = ["A"]\n'
+    )
+    res = _run("solve", str(p))
+    assert res.exit_code == 2 and "'loose pair' (part[2])" in res.stderr
