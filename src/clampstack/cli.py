@@ -196,8 +196,9 @@ def sweep(
 
     from .errors import InputError
     from .inputs.joint import read_joint_file
-    from .outputs.sweep import sweep_csv, sweep_text
+    from .outputs.sweep import sweep_csv_chunks, sweep_json_chunks, sweep_text
     from .studies.sweep import sweep as run_sweep
+    from .studies.sweep import temperature_points
 
     if as_json and as_csv:
         raise InputError("choose --json or --csv, not both", key="--csv")
@@ -207,15 +208,18 @@ def sweep(
 
     if step is not None and not (math.isfinite(step) and step > 0):
         raise InputError(f"the step must be a positive number of kelvin, got {step}", key="--step")
-    n_points = int((hi - lo) / step) + 2 if step else 101
+    n_points = _in_file(doc.path, temperature_points, lo, hi, step).size  # refused before a bar
     progress = _progress(n_points, as_json or as_csv, "sweep")
     result = _in_file(doc.path, run_sweep, spec, lo, hi, step, cycle, progress)
     if progress is not None:
         progress(None)
-    if as_json:
-        _print_json(result.to_dict())
+    if as_json:  # streamed: the text of _print_json(result.to_dict()), a piece at a time
+        for piece in sweep_json_chunks(result):
+            click.echo(piece, nl=False)  # ASCII: json escapes all
+        click.echo("")
     elif as_csv:
-        _echo(sweep_csv(result), nl=False)
+        for piece in sweep_csv_chunks(result):
+            _echo(piece, nl=False)
     else:
         _echo(sweep_text(result, units))
     sys.exit(EXIT_OK if result.passed else EXIT_FAIL)
@@ -457,7 +461,6 @@ def demo(out_dir: str) -> None:
 @handle_errors
 def report(file: str, out_dir: str, units: str, as_json: bool) -> None:
     """HTML calculation report of the joint or flange in FILE, JSON and CSV beside it (exit 1 on a fail)."""
-    from .errors import InputError
     from .inputs.files import load_toml
     from .outputs.files import write_files
 
@@ -477,10 +480,7 @@ def report(file: str, out_dir: str, units: str, as_json: bool) -> None:
         doc, spec = read_joint_file(file)
         result = _in_file(doc.path, analyse, spec)
         files = _in_file(doc.path, render_joint_report, doc, result, units)  # all rendered first
-    try:
-        written = write_files(out_dir, files)
-    except OSError as err:
-        raise InputError(f"cannot write the report ({err.strerror})", source=out_dir) from None
+    written = write_files(out_dir, files)  # all or nothing; an OSError is an InputError
     page = next(p for p in written if p.suffix == ".html")
     if as_json:
         _print_json({"ok": result.ok, "report": str(page), "files": [str(p) for p in written]})

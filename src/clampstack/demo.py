@@ -22,7 +22,10 @@ def run_demo(out_dir: str) -> list[str]:
     The joint gets the full calculation report (HTML with its JSON and CSV
     files, :mod:`clampstack.report`) and the readable ``check`` output; the
     assembly its JSON and HTML.  Returns the lines to print.  Everything is
-    rendered before anything is written, and each file is replaced atomically.
+    rendered before anything is written, and the set is written all or nothing
+    (:func:`clampstack.outputs.files.write_files`, the report page last); a
+    folder that cannot be written is an :class:`~clampstack.errors.InputError`
+    naming it.
     """
     from .assembly import solve_assembly
     from .inputs.assembly import read_assembly_file

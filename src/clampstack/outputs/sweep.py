@@ -3,6 +3,8 @@
 from __future__ import annotations
 
 import html
+import json
+from collections.abc import Iterator
 
 import numpy as np
 
@@ -161,8 +163,21 @@ def sweep_html_table(r: SweepResult, max_rows: int = MAX_ROWS) -> str:
     )
 
 
+#: points per piece of the streamed ``--json`` and ``--csv`` output
+BLOCK = 5_000
+
+
 def sweep_csv(result: SweepResult) -> str:
-    """One row per temperature point, margins as columns."""
+    """One row per temperature point, margins as columns (all of :func:`sweep_csv_chunks`)."""
+    return "".join(sweep_csv_chunks(result))
+
+
+def sweep_csv_chunks(result: SweepResult, block: int = BLOCK) -> Iterator[str]:
+    """The text of :func:`sweep_csv` in pieces of ``block`` rows (the header first).
+
+    ``sweep --csv`` writes them as they come, so a million points never sit in memory
+    as one text.
+    """
     names = list(result.margins)
     head = [
         "temperature_degC",
@@ -174,17 +189,77 @@ def sweep_csv(result: SweepResult) -> str:
         "ok",
         *(f"margin_{n}" for n in names),
     ]
-    lines = [",".join(head)]
-    for i, T in enumerate(result.temperature):
-        vals = [
-            T - C0,
-            result.preload_min[i],
-            result.preload_max[i],
-            result.residual_min[i],
-            result.bolt_load_max[i],
-            result.bolt_stress_max[i] * 1e-6,
+    yield ",".join(head) + "\n"
+    for start in range(0, result.temperature.size, block):
+        sl = slice(start, start + block)
+        cols = [
+            (result.temperature[sl] - C0).tolist(),
+            result.preload_min[sl].tolist(),
+            result.preload_max[sl].tolist(),
+            result.residual_min[sl].tolist(),
+            result.bolt_load_max[sl].tolist(),
+            (result.bolt_stress_max[sl] * 1e-6).tolist(),
         ]
-        row = [f"{v:.6g}" for v in vals] + [str(bool(result.ok[i])).lower()]
-        row += [f"{result.margins[n][i]:.6g}" for n in names]
-        lines.append(",".join(row))
-    return "\n".join(lines) + "\n"
+        oks = ["true" if x else "false" for x in result.ok[sl].tolist()]
+        margins = [result.margins[n][sl].tolist() for n in names]
+        lines = []
+        for i, ok in enumerate(oks):
+            row = [f"{c[i]:.6g}" for c in cols]
+            row.append(ok)
+            row += [f"{m[i]:.6g}" for m in margins]
+            lines.append(",".join(row))
+        yield "\n".join(lines) + "\n"
+
+
+_POINTS_MARK = "\x00points"  # stands for the points in the frame of the JSON text
+
+
+def sweep_json_chunks(result: SweepResult, block: int = BLOCK) -> Iterator[str]:
+    """``json.dumps(result.to_dict(), indent=2, allow_nan=False)`` in pieces, byte for byte.
+
+    The frame (title, limits, cycle, ...) is encoded by :mod:`json`; the points are
+    written ``block`` at a time from the result's arrays, never as a list of dicts.
+    Anything that cannot be encoded (a value that is not finite) raises before the
+    first piece.  ``sweep --json`` writes the pieces as they come, then a line feed.
+    """
+    frame = result.to_dict(points=False)
+    frame["points"] = _POINTS_MARK
+    text = json.dumps(frame, indent=2, allow_nan=False)
+    mark = '\n  "points": ' + json.dumps(_POINTS_MARK)
+    at = text.index(mark) + len(mark) - len(json.dumps(_POINTS_MARK))
+    head, tail = text[:at], text[at + len(json.dumps(_POINTS_MARK)) :]
+    n = result.temperature.size
+    for arr in (
+        result.temperature,
+        result.preload_min,
+        result.preload_max,
+        result.residual_min,
+        result.bolt_load_max,
+        result.bolt_stress_max,
+    ):
+        if not np.all(np.isfinite(arr)):
+            raise ValueError("Out of range float values are not JSON compliant")
+    if n == 0:
+        yield head + "[]" + tail
+        return
+    keys = [json.dumps(k).replace("%", "%%") for k in result.point_columns(0, 0)]
+    names = [json.dumps(m).replace("%", "%%") for m in result.margins]
+    ind, ind2 = "\n      ", "\n        "
+    fields = "".join(f"{ind}{k}: %s," for k in keys)
+    if names:
+        inner = ",".join(f"{ind2}{m}: %s" for m in names)
+        template = "{" + fields + f'{ind}"margins": {{' + inner + "\n      }\n    }"
+    else:
+        template = "{" + fields + f'{ind}"margins": {{}}\n    }}'
+    yield head + "[\n    "
+    for start in range(0, n, block):
+        stop = min(start + block, n)
+        cols = [
+            [("true" if x else "false") if isinstance(x, bool) else repr(x) for x in v]
+            for v in result.point_columns(start, stop).values()
+        ]
+        for v in result.margin_columns(start, stop).values():
+            cols.append(["null" if x is None else repr(x) for x in v])
+        rows = [template % values for values in zip(*cols, strict=True)]
+        yield ",\n    ".join(rows) + (",\n    " if stop < n else "")
+    yield "\n  ]" + tail

@@ -2,7 +2,7 @@
 
 :func:`render_joint_report` renders the report of an analysed joint,
 :func:`render_flange_report` that of a gasketed flange, each with its JSON and
-CSV companions, in memory; :func:`clampstack.inputs.files.write_files`
+CSV companions, in memory; :func:`clampstack.outputs.files.write_files`
 then writes them, each file replaced atomically.  Nothing is written until
 everything has been rendered.
 """

@@ -7,7 +7,7 @@ the defaults applied, the ASME BPVC VIII-1 Appendix 2 bolt loads, the gasket
 stress window, every bolt after every tightening pass and in service, the
 checks with their sources and margins, the notes, the references and the
 pressure-equipment caution (:data:`clampstack.outputs.flange.FLANGE_CAUTION`).
-Everything is rendered in memory; :func:`clampstack.inputs.files.write_files`
+Everything is rendered in memory; :func:`clampstack.outputs.files.write_files`
 writes it.
 """
 

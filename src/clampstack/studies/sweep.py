@@ -13,6 +13,7 @@ not just the nearest grid point.
 
 from __future__ import annotations
 
+import math
 from collections.abc import Callable
 from dataclasses import dataclass
 from typing import Any
@@ -32,7 +33,8 @@ from ..joint.prepare import (
 )
 
 C0 = 273.15
-CHUNK = 20_000  # temperature points per piece when a progress bar is drawn
+CHUNK = 20_000  # temperature points per piece of the evaluation (and of a progress bar)
+MAX_POINTS = 1_000_001  # temperature points of one sweep
 
 
 @dataclass(frozen=True)
@@ -82,23 +84,46 @@ class SweepResult(Shown):
         cycles_ok = all(c.get("ok", True) for c in (self.cycle or {}).values())
         return bool(np.all(self.ok)) and cycles_ok
 
-    def to_dict(self) -> dict[str, Any]:
-        """JSON form per DESIGN.md (``sweep --json``)."""
-        names = list(self.margins)
-        points = []
-        for i, T in enumerate(self.temperature):
-            points.append(
-                {
-                    "temperature_degC": float(T - C0),
-                    "preload_min_N": float(self.preload_min[i]),
-                    "preload_max_N": float(self.preload_max[i]),
-                    "residual_clamp_load_min_N": float(self.residual_min[i]),
-                    "bolt_load_max_N": float(self.bolt_load_max[i]),
-                    "bolt_stress_max_MPa": float(self.bolt_stress_max[i] * 1e-6),
-                    "ok": bool(self.ok[i]),
-                    "margins": {n: _finite(self.margins[n][i]) for n in names},
-                }
-            )
+    def point_columns(self, start: int = 0, stop: int | None = None) -> dict[str, list[Any]]:
+        """The per-point values of the JSON form for the points ``start:stop``, column-wise.
+
+        Python floats and bools (``ndarray.tolist``: the same values as ``float(x)``), in
+        the order of the keys of a point; the margins are in :meth:`margin_columns`.
+        """
+        sl = slice(start, stop)
+        return {
+            "temperature_degC": (self.temperature[sl] - C0).tolist(),
+            "preload_min_N": self.preload_min[sl].tolist(),
+            "preload_max_N": self.preload_max[sl].tolist(),
+            "residual_clamp_load_min_N": self.residual_min[sl].tolist(),
+            "bolt_load_max_N": self.bolt_load_max[sl].tolist(),
+            "bolt_stress_max_MPa": (self.bolt_stress_max[sl] * 1e-6).tolist(),
+            "ok": self.ok[sl].tolist(),
+        }
+
+    def margin_columns(self, start: int = 0, stop: int | None = None) -> dict[str, list[Any]]:
+        """Every check's margin at the points ``start:stop`` (None where not finite)."""
+        sl = slice(start, stop)
+        return {
+            n: [x if math.isfinite(x) else None for x in m[sl].tolist()]
+            for n, m in self.margins.items()
+        }
+
+    def to_dict(self, points: bool = True) -> dict[str, Any]:
+        """JSON form per DESIGN.md (``sweep --json``).
+
+        It holds one dict per point; for a long sweep the command line streams the same
+        text instead (:func:`clampstack.outputs.sweep.sweep_json_chunks`).  With
+        ``points=False`` the ``points`` entry is an empty list (in its place).
+        """
+        rows: list[dict[str, Any]] = []
+        if points:
+            cols = self.point_columns()
+            mcols = self.margin_columns()
+            for i in range(self.temperature.size):
+                row = {k: v[i] for k, v in cols.items()}
+                row["margins"] = {n: v[i] for n, v in mcols.items()}
+                rows.append(row)
         out: dict[str, Any] = {
             "title": self.spec.title,
             "assembly_temperature_degC": self.spec.service.assembly_temperature - C0,
@@ -106,7 +131,7 @@ class SweepResult(Shown):
             "assembly_preload_max_N": self.assembly_range[1],
             "check_basis": self.check_basis,
             "check_preload_N": self.check_preload,
-            "points": points,
+            "points": rows,
             "limits": [
                 {"check": lim.check, "temperature_degC": lim.temperature - C0, "fails": lim.fails}
                 for lim in self.limits
@@ -120,10 +145,6 @@ class SweepResult(Shown):
         if self.cycle is not None:
             out["cycle"] = self.cycle
         return out
-
-
-def _finite(x: float) -> float | None:
-    return float(x) if np.isfinite(x) else None
 
 
 def _evaluate(prep: Prepared, T: np.ndarray) -> dict[str, Any]:
@@ -175,6 +196,64 @@ def _evaluate(prep: Prepared, T: np.ndarray) -> dict[str, Any]:
     }
 
 
+def temperature_points(T_low: float, T_high: float, step: float | None = None) -> np.ndarray:
+    """The sweep's temperatures [K]: ``T_low`` in steps of ``step`` (default 100 intervals),
+    and ``T_high`` as the last point.
+
+    At most :data:`MAX_POINTS` (an ``InputError`` on ``--step`` beyond), so that every
+    accepted sweep stays within a few hundred MB (the points' arrays are kept for the
+    limits, the table and the streamed ``--json``/``--csv``).
+    """
+    if not T_high > T_low:
+        raise InputError("the temperature range must run from low to high", key="--temperature")
+    if step is None:
+        step = (T_high - T_low) / 100.0
+    if not step > 0:
+        raise InputError("the step must be greater than zero", key="--step")
+    span = (T_high - T_low) / step
+    n = int(np.floor(span + 1e-9)) + 1 if span < 2 * MAX_POINTS else None  # span may be inf
+    if n is None or n > MAX_POINTS:
+        many = n if n is not None else f"about {span:.3g}" if math.isfinite(span) else "endless"
+        raise InputError(
+            f"a step of {step:g} K gives {many} temperature points, too many (at most "
+            f"1 000 001, a step of at least {_up3((T_high - T_low) / (MAX_POINTS - 1)):g} K)",
+            key="--step",
+        )
+    T = T_low + step * np.arange(n)
+    if T[-1] < T_high - 1e-9:
+        T = np.append(T, T_high)
+    return T
+
+
+def _up3(x: float) -> float:
+    """``x`` > 0 rounded up to three significant digits."""
+    unit = 10.0 ** (math.floor(math.log10(x)) - 2)
+    return math.ceil(x / unit * (1 - 1e-12)) * unit
+
+
+def _evaluate_all(
+    prep: Prepared, T: np.ndarray, progress: Callable[[int], None] | None
+) -> dict[str, Any]:
+    """:func:`_evaluate` over ``T``; beyond :data:`CHUNK` points in pieces, into arrays
+    allocated once, so that the temporaries of the evaluation stay those of one piece."""
+    if T.size <= CHUNK:
+        return _evaluate(prep, T)
+    ev: dict[str, Any] = {}
+    for start in range(0, T.size, CHUNK):
+        stop = min(start + CHUNK, T.size)
+        part = _evaluate(prep, T[start:stop])
+        if not ev:
+            ev = {k: np.empty(T.size) for k in ("pre_min", "pre_max", "residual", "bolt_max")}
+            ev["margins"] = {name: np.empty(T.size) for name in part["margins"]}
+        for k in ("pre_min", "pre_max", "residual", "bolt_max"):
+            ev[k][start:stop] = part[k]
+        for name, v in part["margins"].items():
+            ev["margins"][name][start:stop] = v
+        if progress is not None:
+            progress(stop)
+    return ev
+
+
 def sweep(
     spec: JointSpec,
     T_low: float,
@@ -184,36 +263,11 @@ def sweep(
     progress: Callable[[int], None] | None = None,
 ) -> SweepResult:
     """Sweep the service temperature from ``T_low`` to ``T_high`` [K] in steps of ``step`` [K]."""
-    if not T_high > T_low:
-        raise InputError("the temperature range must run from low to high", key="--temperature")
-    if step is None:
-        step = (T_high - T_low) / 100.0
-    if not step > 0:
-        raise InputError("the step must be greater than zero", key="--step")
-    n = int(np.floor((T_high - T_low) / step + 1e-9)) + 1
-    if n > 1_000_001:
-        raise InputError(f"{n} temperature points is too many (at most 1 000 001)", key="--step")
-    T = T_low + step * np.arange(n)
-    if T[-1] < T_high - 1e-9:
-        T = np.append(T, T_high)
+    T = temperature_points(T_low, T_high, step)
     prep = prepare(spec)
     _check_range(prep, T)
     notes = tuple(temperature_data_notes(spec, prep.model, np.array([T[0], T[-1]])))
-    if progress is None or T.size <= CHUNK:
-        ev = _evaluate(prep, T)
-    else:  # the same vectorised evaluation in pieces, reporting as it goes
-        parts = []
-        for start in range(0, T.size, CHUNK):
-            parts.append(_evaluate(prep, T[start : start + CHUNK]))
-            progress(min(start + CHUNK, T.size))
-        ev = {
-            k: np.concatenate([p[k] for p in parts])
-            for k in ("pre_min", "pre_max", "residual", "bolt_max")
-        }
-        ev["margins"] = {
-            name: np.concatenate([p["margins"][name] for p in parts])
-            for name in parts[0]["margins"]
-        }
+    ev = _evaluate_all(prep, T, progress)
     skipped = dict(spec.skips)
     active = [k for k in ev["margins"] if k not in skipped]
     ok = np.ones(T.shape, dtype=bool)
