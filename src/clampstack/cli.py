@@ -406,11 +406,15 @@ def size(file: str, as_json: bool, units: str) -> None:
 
 
 @main.command()
-@click.argument("what", type=click.Choice(["threads", "grades", "materials", "gaskets"]))
+@click.argument(
+    "what",
+    type=click.Choice(["threads", "grades", "materials", "gaskets", "friction", "tools"]),
+)
 @click.option("--json", "as_json", is_flag=True, help="Machine-readable listing on stdout.")
 @handle_errors
 def catalog(what: str, as_json: bool) -> None:
-    """List what the catalog holds (threads, grades, materials, gaskets), with sources."""
+    """List what the catalog holds (threads, grades, materials, gaskets, friction of
+    lubricants and coatings, torque tools), with sources."""
     from .catalog import listing
     from .outputs.text import table
 

@@ -12,7 +12,7 @@ from clampstack.catalog.materials import ZERO_C, materials
 from clampstack.catalog.threads import threads
 from clampstack.errors import InputError
 
-KINDS = ("threads", "grades", "materials", "gaskets")
+KINDS = ("threads", "grades", "materials", "gaskets", "friction", "tools")
 
 _MM = 1e-3
 _MPA = 1e6
@@ -143,6 +143,18 @@ def _gasket_listing() -> tuple[list[str], list[list[str]]]:
     return gasket_listing()
 
 
+def _friction_listing() -> tuple[list[str], list[list[str]]]:
+    from clampstack.catalog.friction import friction_listing
+
+    return friction_listing()
+
+
+def _tool_listing() -> tuple[list[str], list[list[str]]]:
+    from clampstack.catalog.friction import tool_listing
+
+    return tool_listing()
+
+
 def listing(kind: str) -> tuple[list[str], list[list[str]]]:
     """Return a display table of one part of the catalog.
 
@@ -168,6 +180,8 @@ def listing(kind: str) -> tuple[list[str], list[list[str]]]:
         "grades": _grade_listing,
         "materials": _material_listing,
         "gaskets": _gasket_listing,
+        "friction": _friction_listing,
+        "tools": _tool_listing,
     }
     builder = builders.get(str(kind).strip().lower())
     if builder is None:

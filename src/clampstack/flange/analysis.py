@@ -629,6 +629,14 @@ class FlangeResult(Shown):
             "assembly_preload_max_N": self.assembly_range[1],
             "permissible_preload_N": self.permissible_preload,
             "tightening_factor": self.alpha_A,
+            "tightening": {
+                "method": s.method,
+                "thread_friction": list(s.thread_friction),
+                "head_friction": list(s.head_friction),
+                "torque_tolerance": s.torque_tolerance,
+                "lubricant": s.lubricant,
+                "tool": s.tool,
+            },
             "target_bolt_stress_ratio": self.target / s.thread.As / float(s.grade.Rp02),
             "torque": torque,
             "bolts": [

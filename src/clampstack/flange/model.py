@@ -83,6 +83,8 @@ class FlangeSpec:
     unused: tuple[str, ...] = ()  # keys accepted for a joint that the flange model does not use
     bolt_length: float | None = None  # given nominal length (checked to reach through the joint)
     given: frozenset[str] = frozenset()  # key paths the file set ("flange.outer_diameter", ...)
+    lubricant: str | None = None  # friction catalog key that set both friction ranges
+    tool: str | None = None  # tool catalog key that set the torque tolerance
 
 
 def bolt_allowable_stress(grade: Grade, thread: Thread) -> tuple[float, str]:

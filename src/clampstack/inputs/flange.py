@@ -262,7 +262,7 @@ def flange_from_data(data: dict[str, Any]) -> FlangeSpec:
     ring = ring_table(f, gasket, hole, rec)
     bolts = bolt_table(b, raw["nut"] or {}, thr, grd, hole, ring["mating"], rec)
     tr = raw["tightening"] or empty(TIGHTENING)
-    tight = tightening(tr, thr, grd, Defaults())
+    tight = tightening(tr, thr, grd, rec)
     passes, patterns, order = pass_sequence(tr, n, rec)
     spec = FlangeSpec(
         title=raw["title"] or "untitled flange",
@@ -283,6 +283,8 @@ def flange_from_data(data: dict[str, Any]) -> FlangeSpec:
         scatter=tight.scatter,
         utilization=tight.utilization,
         torque_tolerance=tight.torque_tolerance,
+        lubricant=tight.lubricant,
+        tool=tight.tool,
         passes=passes,
         patterns=patterns,
         order=order,

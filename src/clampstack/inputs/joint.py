@@ -281,8 +281,19 @@ TIGHTENING = Schema(
             "torque_tolerance",
             "number",
             "relative tolerance of the applied torque (+-)",
-            default="0.06",
+            default="0.06, or the tool's",
             minimum=0.0,
+        ),
+        Key(
+            "lubricant",
+            "text",
+            "lubricant or coating (a key of `clampstack catalog friction`): sets both friction "
+            "ranges",
+        ),
+        Key(
+            "tool",
+            "text",
+            "torque tool class (a key of `clampstack catalog tools`): sets the torque tolerance",
         ),
     ),
 )

@@ -133,8 +133,33 @@ def tightening(tr: dict[str, Any], thr: Thread, grd: Grade, rec: Defaults) -> Ti
     """
     method = rec.pick("tightening.method", tr["method"], "torque", "torque")
     _check_methods(tr, method)
-    muG = rec.pick("tightening.thread_friction", tr["thread_friction"], (0.10, 0.16), "0.10..0.16")
-    muK = rec.pick("tightening.head_friction", tr["head_friction"], muG, "as thread friction")
+    lub = None
+    if tr.get("lubricant") is not None:
+        from ..catalog.friction import lubricant
+
+        given = [k for k in ("thread_friction", "head_friction") if tr[k] is not None]
+        if given:
+            raise InputError(
+                f"give a lubricant or friction coefficients, not both (also given: "
+                f"tightening.{given[0]})",
+                key="tightening.lubricant",
+            )
+        try:
+            lub = lubricant(tr["lubricant"])
+        except InputError as err:
+            raise InputError(err.detail, key="tightening.lubricant") from None
+        muG, muK = lub.thread, lub.head
+        rng = f"{muG[0]:.2f}..{muG[1]:.2f}"
+        rec.note("tightening.thread_friction", f"{rng} (lubricant {lub.key})")
+        rec.note(
+            "tightening.head_friction",
+            f"{lub.head[0]:.2f}..{lub.head[1]:.2f} (lubricant {lub.key})",
+        )
+    else:
+        muG = rec.pick(
+            "tightening.thread_friction", tr["thread_friction"], (0.10, 0.16), "0.10..0.16"
+        )
+        muK = rec.pick("tightening.head_friction", tr["head_friction"], muG, "as thread friction")
     for name, mu in (("thread_friction", muG), ("head_friction", muK)):
         if mu[1] > 1.0:
             raise InputError(
@@ -144,9 +169,26 @@ def tightening(tr: dict[str, Any], thr: Thread, grd: Grade, rec: Defaults) -> Ti
     nu = rec.pick("tightening.utilization", tr["utilization"], 0.9, "0.9")
     if nu > 1.0:
         raise InputError("utilization must not exceed 1", key="tightening.utilization")
-    tol = tr["torque_tolerance"] if tr["torque_tolerance"] is not None else 0.06
-    if tr["torque_tolerance"] is None and method == "torque":
-        rec.note("tightening.torque_tolerance", "+-6 %")
+    tool_ = None
+    if tr.get("tool") is not None:
+        from ..catalog.friction import tool
+
+        if tr["torque_tolerance"] is not None:
+            raise InputError(
+                "give a tool or a torque tolerance, not both (also given: "
+                "tightening.torque_tolerance)",
+                key="tightening.tool",
+            )
+        try:
+            tool_ = tool(tr["tool"])
+        except InputError as err:
+            raise InputError(err.detail, key="tightening.tool") from None
+        tol = tool_.tolerance
+        rec.note("tightening.torque_tolerance", f"+-{tol:.0%} (tool {tool_.key})")
+    else:
+        tol = tr["torque_tolerance"] if tr["torque_tolerance"] is not None else 0.06
+        if tr["torque_tolerance"] is None and method == "torque":
+            rec.note("tightening.torque_tolerance", "+-6 %")
     if tol >= 0.5:
         raise InputError("torque tolerance must be below 0.5", key="tightening.torque_tolerance")
     if tr["preload"] is not None and tr["preload"] > thr.As * grd.Rm:
@@ -155,4 +197,15 @@ def tightening(tr: dict[str, Any], thr: Thread, grd: Grade, rec: Defaults) -> Ti
             f"(As x Rm = {thr.As * grd.Rm / 1e3:.4g} kN)",
             key="tightening.preload",
         )
-    return TighteningSpec(method, tr["torque"], tr["preload"], muG, muK, tr["scatter"], nu, tol)
+    return TighteningSpec(
+        method,
+        tr["torque"],
+        tr["preload"],
+        muG,
+        muK,
+        tr["scatter"],
+        nu,
+        tol,
+        lub.key if lub else None,
+        tool_.key if tool_ else None,
+    )

@@ -471,6 +471,9 @@ class JointResult(Shown):
                 "tightening_factor_basis": self.alpha_A_basis,
                 "thread_friction": list(s.tightening.thread_friction),
                 "head_friction": list(s.tightening.head_friction),
+                "torque_tolerance": s.tightening.torque_tolerance,
+                "lubricant": s.tightening.lubricant,
+                "tool": s.tightening.tool,
             },
             "preload": {
                 "assembly_min_N": self.assembly_min,

@@ -197,6 +197,8 @@ class TighteningSpec:
     scatter: float | None
     utilization: float
     torque_tolerance: float
+    lubricant: str | None = None  # key of the friction catalog that set both ranges
+    tool: str | None = None  # key of the tool catalog that set the torque tolerance
 
 
 @dataclass(frozen=True)

@@ -104,7 +104,10 @@ def joint_text(r: JointResult, units: str = "si") -> str:
     tr = s.tightening
     out.append("Tightening specification")
     mu = f"thread friction {_mu(tr.thread_friction)}, head friction {_mu(tr.head_friction)}"
-    out.append(f"  method {tr.method}; {mu}")
+    extra = "".join(
+        f"; {name} {v}" for name, v in (("lubricant", tr.lubricant), ("tool", tr.tool)) if v
+    )
+    out.append(f"  method {tr.method}; {mu}{extra}")
     if r.torque is not None:
         T = u.label("torque")
         out.append(

@@ -75,6 +75,16 @@ def make_chain(spec: JointSpec, dists: dict[str, Dist]) -> Chain:
     ):
         if name not in d:
             d[name] = Dist("uniform", *rng_) if rng_[0] != rng_[1] else Dist("fixed", rng_[0])
+    if (
+        tr.method == "torque"
+        and "torque" not in d
+        and "torque_factor" not in d
+        and tr.torque_tolerance > 0
+    ):
+        # the tool's torque tolerance (given, from `tool`, or the +-6 % default) as a uniform
+        # scatter of the applied torque, as the deterministic range takes it
+        tol = tr.torque_tolerance
+        d["torque_factor"] = Dist("uniform", 1 - tol, 1 + tol)
     if tr.method == "tension" and "preload" not in d:
         # a tensioner's scatter: the deterministic range (tightening factor) as a uniform
         d["preload"] = Dist("uniform", prep.assembly_min, prep.assembly_max)
