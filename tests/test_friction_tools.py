@@ -97,3 +97,34 @@ def test_a_flange_takes_them_too_and_shows_its_defaults(tmp_path):
 def test_catalog_command_lists_them(what):
     res = CliRunner().invoke(main, ["catalog", what])
     assert res.exit_code == 0 and "source" in res.stdout
+
+
+# ---------------------------------------------------------------- nut factor T = K F d
+
+
+def test_nut_factor_gives_t_equals_k_f_d_at_both_ends():
+    # Shigley eq. (8-27): T = K F d; F_M,max = T_max / (K_min d), F_M,min = T_min / (K_max d)
+    r = analyse(joint_from_data(_joint(nut_factor="0.18..0.22")))
+    d = 12e-3
+    assert r.assembly_max == pytest.approx(70 * 1.06 / (0.18 * d), rel=1e-9)
+    assert r.assembly_min == pytest.approx(70 * 0.94 / (0.22 * d), rel=1e-9)
+    j = r.to_dict()["tightening"]
+    assert j["nut_factor"] == [0.18, 0.22]
+    mu = j["thread_friction"]
+    assert mu == j["head_friction"] and 0.1 < mu[0] < mu[1] < 0.25
+    assert "implied by the nut factor" in dict(r.defaults)["tightening.thread_friction"]
+
+
+@pytest.mark.parametrize(
+    ("tightening", "words"),
+    [
+        ({"nut_factor": 0.2, "thread_friction": 0.12}, "not both"),
+        ({"nut_factor": 0.2, "lubricant": "mos2-paste"}, "not both"),
+        ({"nut_factor": 0.8}, "outside 0.05..0.6"),
+        ({"nut_factor": 0.03}, "outside 0.05..0.6"),
+    ],
+)
+def test_bad_nut_factors_are_refused(tightening, words):
+    with pytest.raises(InputError) as err:
+        joint_from_data(_joint(**tightening))
+    assert err.value.key == "tightening.nut_factor" and words in str(err.value)

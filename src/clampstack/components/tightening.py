@@ -30,6 +30,7 @@ __all__ = [
     "iso16047_head_friction",
     "iso16047_thread_friction",
     "permissible_preload",
+    "friction_from_nut_factor",
     "preload_from_torque",
     "thread_torque",
     "tightening_factor",
@@ -186,6 +187,21 @@ def head_torque(F: FloatArray, muK: FloatArray, DKm: FloatArray) -> FloatArray:
 def _torque_coefficient(P, d2, muG, muK, DKm):
     """``M_A / F`` [m] of VDI 2230-1 / ISO 16047."""
     return 0.16 * P + 0.58 * d2 * muG + 0.5 * muK * DKm
+
+
+def friction_from_nut_factor(
+    K: FloatArray, d: FloatArray, P: FloatArray, d2: FloatArray, DKm: FloatArray
+) -> FloatArray:
+    """The friction coefficient (thread and bearing face alike) that a nut factor implies.
+
+    The short-form torque relation ``T = K F d`` (Shigley, *Mechanical Engineering
+    Design*, eq. 8-27; K lumps pitch, friction and geometry) equals VDI 2230-1 R13 /
+    ISO 16047 ``T = F (0.16 P + 0.58 d2 mu_G + mu_K D_Km / 2)`` with ``mu_G = mu_K = mu``
+    when ``mu = (K d - 0.16 P) / (0.58 d2 + D_Km / 2)``.  SI units; the result may be
+    negative for a nut factor too small for the thread (the caller refuses it).
+    """
+    K_a, d_a, P_a, d2_a, D_a = (as_array(v) for v in (K, d, P, d2, DKm))
+    return out((K_a * d_a - 0.16 * P_a) / (0.58 * d2_a + 0.5 * D_a))
 
 
 def assembly_torque(

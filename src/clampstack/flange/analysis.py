@@ -636,6 +636,7 @@ class FlangeResult(Shown):
                 "torque_tolerance": s.torque_tolerance,
                 "lubricant": s.lubricant,
                 "tool": s.tool,
+                "nut_factor": None if s.nut_factor is None else list(s.nut_factor),
             },
             "target_bolt_stress_ratio": self.target / s.thread.As / float(s.grade.Rp02),
             "torque": torque,

@@ -85,6 +85,7 @@ class FlangeSpec:
     given: frozenset[str] = frozenset()  # key paths the file set ("flange.outer_diameter", ...)
     lubricant: str | None = None  # friction catalog key that set both friction ranges
     tool: str | None = None  # tool catalog key that set the torque tolerance
+    nut_factor: tuple[float, float] | None = None  # K of T = K F d (friction implied from it)
 
 
 def bolt_allowable_stress(grade: Grade, thread: Thread) -> tuple[float, str]:

@@ -262,7 +262,8 @@ def flange_from_data(data: dict[str, Any]) -> FlangeSpec:
     ring = ring_table(f, gasket, hole, rec)
     bolts = bolt_table(b, raw["nut"] or {}, thr, grd, hole, ring["mating"], rec)
     tr = raw["tightening"] or empty(TIGHTENING)
-    tight = tightening(tr, thr, grd, rec)
+    DKm = 0.5 * (bolts["bearing_diameter"] + hole)  # the turned nut (ISO 16047)
+    tight = tightening(tr, thr, grd, rec, DKm)
     passes, patterns, order = pass_sequence(tr, n, rec)
     spec = FlangeSpec(
         title=raw["title"] or "untitled flange",
@@ -285,6 +286,7 @@ def flange_from_data(data: dict[str, Any]) -> FlangeSpec:
         torque_tolerance=tight.torque_tolerance,
         lubricant=tight.lubricant,
         tool=tight.tool,
+        nut_factor=tight.nut_factor,
         passes=passes,
         patterns=patterns,
         order=order,

@@ -285,6 +285,13 @@ TIGHTENING = Schema(
             minimum=0.0,
         ),
         Key(
+            "nut_factor",
+            "range:dimensionless",
+            "nut factor K of T = K F d, value or range, instead of friction coefficients "
+            "(it lumps friction and geometry; the friction it implies is printed)",
+            minimum=0.0,
+        ),
+        Key(
             "lubricant",
             "text",
             "lubricant or coating (a key of `clampstack catalog friction`): sets both friction "
@@ -467,7 +474,8 @@ def joint_from_data(data: dict[str, Any]) -> JointSpec:
     )
     bolt = replace(bolt, shank_length=shank(b, bolt, lK, rec))
     rough, amount = embedding(raw["embedding"], rec)
-    tight = tightening(raw["tightening"] or empty(TIGHTENING), thr, grd, rec)
+    DKm = 0.5 * ((dW if nut is None else nut.bearing_diameter) + layers[0].hole)
+    tight = tightening(raw["tightening"] or empty(TIGHTENING), thr, grd, rec, DKm)
     service = service_loads(srv, T_srv, T_asm, rec)
     requirements = requirement_table(raw["requirements"], service, rec)
     skips = skipped_checks(raw["skip"])

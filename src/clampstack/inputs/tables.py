@@ -124,7 +124,9 @@ def _check_methods(tr: dict[str, Any], method: str) -> None:
         )
 
 
-def tightening(tr: dict[str, Any], thr: Thread, grd: Grade, rec: Defaults) -> TighteningSpec:
+def tightening(
+    tr: dict[str, Any], thr: Thread, grd: Grade, rec: Defaults, DKm: float | None = None
+) -> TighteningSpec:
     """The ``[tightening]`` table: method, torque or preload, friction, utilisation, tolerance.
 
     Defaults: thread friction 0.10..0.16, head friction as the thread's, utilisation
@@ -134,7 +136,41 @@ def tightening(tr: dict[str, Any], thr: Thread, grd: Grade, rec: Defaults) -> Ti
     method = rec.pick("tightening.method", tr["method"], "torque", "torque")
     _check_methods(tr, method)
     lub = None
-    if tr.get("lubricant") is not None:
+    nut_factor = tr.get("nut_factor")
+    if nut_factor is not None:
+        from ..components import friction_from_nut_factor
+
+        given = [k for k in ("thread_friction", "head_friction", "lubricant") if tr.get(k)]
+        if given:
+            raise InputError(
+                f"give a nut factor or friction (coefficients or a lubricant), not both (also "
+                f"given: tightening.{given[0]})",
+                key="tightening.nut_factor",
+            )
+        if not (0.05 <= nut_factor[0] and nut_factor[1] <= 0.6):
+            raise InputError(
+                f"nut factor {nut_factor[0]:g}..{nut_factor[1]:g} is outside 0.05..0.6, the "
+                "range of any lubricated or dry steel thread (common practice)",
+                key="tightening.nut_factor",
+            )
+        assert DKm is not None
+        mu = tuple(
+            float(friction_from_nut_factor(K, thr.d, thr.P, thr.d2, DKm)) for K in nut_factor
+        )
+        if mu[0] <= 0:
+            raise InputError(
+                f"nut factor {nut_factor[0]:g} is too small for a {thr.designation} thread: it "
+                "implies no friction at all",
+                key="tightening.nut_factor",
+            )
+        muG = muK = (mu[0], mu[1])
+        text = f"{mu[0]:.3f}..{mu[1]:.3f}" if mu[1] > mu[0] else f"{mu[0]:.3f}"
+        rec.note(
+            "tightening.thread_friction",
+            f"{text} (implied by the nut factor; thread and bearing face alike)",
+        )
+        rec.note("tightening.head_friction", f"{text} (implied by the nut factor)")
+    elif tr.get("lubricant") is not None:
         from ..catalog.friction import lubricant
 
         given = [k for k in ("thread_friction", "head_friction") if tr[k] is not None]
@@ -208,4 +244,5 @@ def tightening(tr: dict[str, Any], thr: Thread, grd: Grade, rec: Defaults) -> Ti
         tol,
         lub.key if lub else None,
         tool_.key if tool_ else None,
+        nut_factor,
     )

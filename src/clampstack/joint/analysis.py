@@ -474,6 +474,9 @@ class JointResult(Shown):
                 "torque_tolerance": s.tightening.torque_tolerance,
                 "lubricant": s.tightening.lubricant,
                 "tool": s.tightening.tool,
+                "nut_factor": None
+                if s.tightening.nut_factor is None
+                else list(s.tightening.nut_factor),
             },
             "preload": {
                 "assembly_min_N": self.assembly_min,

@@ -199,6 +199,7 @@ class TighteningSpec:
     torque_tolerance: float
     lubricant: str | None = None  # key of the friction catalog that set both ranges
     tool: str | None = None  # key of the tool catalog that set the torque tolerance
+    nut_factor: tuple[float, float] | None = None  # K of T = K F d; the friction follows it
 
 
 @dataclass(frozen=True)

@@ -107,6 +107,12 @@ def joint_text(r: JointResult, units: str = "si") -> str:
     extra = "".join(
         f"; {name} {v}" for name, v in (("lubricant", tr.lubricant), ("tool", tr.tool)) if v
     )
+    if tr.nut_factor is not None:
+        K = tr.nut_factor
+        extra += (
+            f"; nut factor K = {_mu(K)} (T = K F d: it lumps friction and geometry; the "
+            "friction shown is what it implies)"
+        )
     out.append(f"  method {tr.method}; {mu}{extra}")
     if r.torque is not None:
         T = u.label("torque")
