@@ -46,6 +46,7 @@ JOINTS = [
     "gearbox-cover-cold-to-hot.toml",
     "m10-cover-screw-aluminium.toml",
     "m16-through-bolt-alternating.toml",
+    "stainless-bracket-anti-seize.toml",
 ]
 FLANGES = ["pump-outlet-flange-8-bolts.toml", "ring-flange-24-bolts-moment.toml"]
 
