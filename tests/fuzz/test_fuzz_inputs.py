@@ -42,6 +42,7 @@ ASSEMBLIES = [
 ]
 JOINTS = [
     "bolt-in-aluminium-sleeve-hot.toml",
+    "conrod-cap-angle-tightened.toml",
     "exhaust-flange-hot.toml",
     "gearbox-cover-cold-to-hot.toml",
     "m10-cover-screw-aluminium.toml",

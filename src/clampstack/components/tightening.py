@@ -595,3 +595,46 @@ def yield_controlled_preload_range(
     f_min = permissible_preload(As, d0, d2, P, Rp02_min, muG_max, nu=1.0)
     f_max = permissible_preload(As, d0, d2, P, as_array(Rp02_min) * yield_ratio, muG_min, nu=1.0)
     return f_min, f_max
+
+
+#: Plastic strain of the bolt's free loaded length between the yield point and the tensile
+#: strength, for the bilinear hardening law of angle tightening (from memory: quenched and
+#: tempered bolt steels of classes 8.8 to 12.9 reach R_m at about 2 % plastic strain over the
+#: loaded length; an approximation of ours, stated in the output).
+HARDENING_STRAIN = 0.02
+
+
+def angle_preload(
+    F_snug: FloatArray,
+    angle: FloatArray,
+    P: float,
+    delta_S: float,
+    delta_P: float,
+    F_yield: FloatArray,
+    F_ultimate: FloatArray,
+    loaded_length: float,
+) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
+    """Preload after turning the nut by ``angle`` [rad] from the snug preload ``F_snug`` [N].
+
+    The turn stretches bolt and clamped parts together by ``P angle / (2 pi)`` (the lead of
+    a single-start thread).  Elastic: ``F = F_snug + P angle / (2 pi (delta_S + delta_P))``
+    (VDI 2230-1, joint resilience; from the compatibility of bolt and parts).  Past
+    ``F_yield`` (the yield preload under tension and thread torsion, VDI 2230-1 R7 with
+    ``nu = 1``) the bolt follows a bilinear law up to ``F_ultimate``, the plastic stiffness
+    ``k_p = (F_u - F_y) / (HARDENING_STRAIN l + (F_u - F_y) delta_S)`` over its loaded length
+    ``l``; the clamped parts stay elastic.  Returns ``(F, plastic elongation, broke)``:
+    the preload [N], the bolt's permanent elongation [m] and whether ``F_ultimate`` would be
+    exceeded (the bolt breaks; ``F`` is then ``F_ultimate``).  Vectorised.
+    """
+    Fs, th, Fy, Fu = (np.asarray(v, dtype=float) for v in (F_snug, angle, F_yield, F_ultimate))
+    c = delta_S + delta_P
+    u = Fs * c + P * th / (2 * math.pi)  # total stretch of bolt and parts
+    F_el = u / c
+    kp = (Fu - Fy) / (HARDENING_STRAIN * loaded_length + (Fu - Fy) * delta_S)
+    F_pl = (Fy + (u - Fy * delta_S) * kp) / (1 + delta_P * kp)
+    plastic = F_el > Fy
+    F = np.where(plastic, F_pl, F_el)
+    broke = F > Fu
+    F = np.minimum(F, Fu)
+    perm = np.where(plastic, np.maximum(u - F * c, 0.0), 0.0)
+    return F, perm, broke

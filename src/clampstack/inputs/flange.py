@@ -264,6 +264,12 @@ def flange_from_data(data: dict[str, Any]) -> FlangeSpec:
     tr = raw["tightening"] or empty(TIGHTENING)
     DKm = 0.5 * (bolts["bearing_diameter"] + hole)  # the turned nut (ISO 16047)
     tight = tightening(tr, thr, grd, rec, DKm)
+    if tight.method == "angle":
+        raise InputError(
+            "angle-controlled tightening is modelled for single-bolt joints (clampstack "
+            "check); for a flange use method torque, yield or tension",
+            key="tightening.method",
+        )
     passes, patterns, order = pass_sequence(tr, n, rec)
     spec = FlangeSpec(
         title=raw["title"] or "untitled flange",

@@ -284,6 +284,20 @@ TIGHTENING = Schema(
             default="0.06, or the tool's",
             minimum=0.0,
         ),
+        Key("snug_torque", "torque", "snug torque before the angle (method angle)", positive=True),
+        Key(
+            "angle",
+            "range:angle",
+            "nut rotation after the snug torque (method angle), value or range",
+            minimum=0.0,
+        ),
+        Key(
+            "angle_tolerance",
+            "angle",
+            "tolerance of the rotation (+-), method angle",
+            default="0 deg",
+            minimum=0.0,
+        ),
         Key(
             "nut_factor",
             "range:dimensionless",

@@ -112,11 +112,28 @@ def part_material(
 def _check_methods(tr: dict[str, Any], method: str) -> None:
     if tr["torque"] is not None and tr["preload"] is not None:
         raise InputError("give torque or preload, not both", key="tightening.preload")
-    if method in ("angle", "yield") and (tr["torque"] is not None or tr["preload"] is not None):
+    if method == "yield" and (tr["torque"] is not None or tr["preload"] is not None):
         raise InputError(
-            f"method {method!r} tightens to the yield point; remove torque and "
+            "method 'yield' tightens to the yield point; remove torque and "
             'preload, or use method "torque"',
             key="tightening.method",
+        )
+    angle_keys = [k for k in ("snug_torque", "angle", "angle_tolerance") if tr.get(k) is not None]
+    if method == "angle":
+        if tr["torque"] is not None or tr["preload"] is not None:
+            raise InputError(
+                "method 'angle' takes snug_torque and angle, not torque or preload",
+                key="tightening.torque" if tr["torque"] is not None else "tightening.preload",
+            )
+        for k in ("snug_torque", "angle"):
+            if tr.get(k) is None:
+                raise InputError(
+                    f"method 'angle' needs {k} (a snug torque, then the angle turned)",
+                    key=f"tightening.{k}",
+                )
+    elif angle_keys:
+        raise InputError(
+            f'{angle_keys[0]} applies to method = "angle" only', key=f"tightening.{angle_keys[0]}"
         )
     if method == "tension" and tr["torque"] is not None:
         raise InputError(
@@ -245,4 +262,7 @@ def tightening(
         lub.key if lub else None,
         tool_.key if tool_ else None,
         nut_factor,
+        tr.get("snug_torque"),
+        tr.get("angle"),
+        tr.get("angle_tolerance") or 0.0,
     )

@@ -101,7 +101,9 @@ def evaluate_checks(
     thr, grd = b.thread, b.grade
     notes: list[str] = []
     rows: list[CheckRow] = []
-    yield_method = tr.method in ("yield", "angle")
+    yield_method = tr.method == "yield" or (
+        tr.method == "angle" and prep.angle is not None and prep.angle["yields_max"]
+    )
     if yield_method:
         notes.append(
             "Assembly preload not checked against F_M,zul: the bolt is tightened to its "
@@ -123,7 +125,7 @@ def evaluate_checks(
             )
         )
     Rp_T, basis = yield_at_temperature(grd, T_bolt)
-    if yield_method:  # the maximum branch is a bolt of the highest yield point of the lot
+    if yield_method:  # preload tied to the bolt's yield: the strongest bolt of the lot
         Rp_T = 1.2 * np.asarray(Rp_T)
         basis += "; x 1.2 for the strongest bolt of a yield-tightened lot (from memory)"
     sigma = bolt_load_max / prep.A0
@@ -396,6 +398,7 @@ class JointResult(Shown):
     assumptions: tuple[str, ...]
     defaults: tuple[tuple[str, str], ...] = field(default=())
     cycle: Any = None  # permanent-loss cycle (clampstack.joint.plastic.CycleResult)
+    angle: dict[str, Any] | None = None  # method angle (Prepared.angle)
 
     @property
     def preload_at_limit_by_design(self) -> bool:
@@ -477,6 +480,16 @@ class JointResult(Shown):
                 "nut_factor": None
                 if s.tightening.nut_factor is None
                 else list(s.tightening.nut_factor),
+                **(
+                    {
+                        "snug_torque_Nm": s.tightening.snug_torque,
+                        "angle_deg": [math.degrees(a) for a in s.tightening.angle or ()],
+                        "angle_tolerance_deg": math.degrees(s.tightening.angle_tolerance),
+                        "angle": self.angle,
+                    }
+                    if s.tightening.method == "angle"
+                    else {}
+                ),
             },
             "preload": {
                 "assembly_min_N": self.assembly_min,
@@ -796,4 +809,5 @@ def analyse(spec: JointSpec) -> JointResult:
         assumptions=prep.assumptions,
         defaults=spec.defaults,
         cycle=cycle,
+        angle=prep.angle,
     )

@@ -29,6 +29,7 @@ DIST_KEYS: dict[str, tuple[str, str]] = {
     "axial_load": ("force", "largest axial working load"),
     "yield_strength": ("stress", "bolt yield strength R_p0.2"),
     "slip_friction": ("dimensionless", "interface friction mu_T"),
+    "angle": ("angle", "nut rotation after the snug torque (method angle)"),
 }
 
 #: Physical lower bound of each sampled input (SI): frictions, torque, preload, embedding,
@@ -44,6 +45,7 @@ DIST_LOWER_BOUNDS: dict[str, float] = {
     "temperature": 0.0,
     "yield_strength": 0.0,
     "slip_friction": 0.0,
+    "angle": 0.0,
 }
 #: A normal distribution may put at most this share of its samples below the bound (they
 #: are truncated to it, with a note); a larger share is refused.
@@ -200,6 +202,9 @@ class TighteningSpec:
     lubricant: str | None = None  # key of the friction catalog that set both ranges
     tool: str | None = None  # key of the tool catalog that set the torque tolerance
     nut_factor: tuple[float, float] | None = None  # K of T = K F d; the friction follows it
+    snug_torque: float | None = None  # method angle [N*m]
+    angle: tuple[float, float] | None = None  # method angle: rotation after snug [rad]
+    angle_tolerance: float = 0.0  # +- [rad]
 
 
 @dataclass(frozen=True)

@@ -26,6 +26,7 @@ from ..components import (
     tightening_factor,
     yield_controlled_preload_range,
 )
+from ..components.tightening import HARDENING_STRAIN, angle_preload
 from ..network import COMPRESSION, TENSION, Network
 from .model import JointSpec
 from .thermal import TemperatureModel
@@ -91,6 +92,7 @@ class Prepared:
     embedding_loss: float
     notes: tuple[str, ...]
     assumptions: tuple[str, ...]
+    angle: dict[str, Any] | None = None  # method angle: snug, window, yield, elongation
 
     @property
     def check_basis(self) -> str:
@@ -229,6 +231,7 @@ def prepare(spec: JointSpec, model: TemperatureModel | None = None) -> Prepared:
     else:
         FMzul = float(permissible_preload(A0, d0, thr.d2, thr.P, Rp, muG_lo, tr.utilization))
     torque: tuple[float, float, float] | None = None
+    angle_info: dict[str, Any] | None = None
     if tr.method == "torque":
         torque, FM_min, FM_max, alpha, basis, note = torque_preload_range(
             tr.torque,
@@ -242,7 +245,61 @@ def prepare(spec: JointSpec, model: TemperatureModel | None = None) -> Prepared:
         )
         if note:
             notes.append(note)
-    elif tr.method in ("yield", "angle"):
+    elif tr.method == "angle":
+        # snug torque (torque relation, tool tolerance), then the nut turned by the angle:
+        # elastic stretch of bolt and parts, past yield a bilinear bolt (angle_preload)
+        assert tr.snug_torque is not None and tr.angle is not None
+        tol, dth = tr.torque_tolerance, tr.angle_tolerance
+        T_snug = (tr.snug_torque * (1 - tol), tr.snug_torque * (1 + tol))
+        F_snug = (T_snug[0] / k_torque(muG_hi, muK_hi), T_snug[1] / k_torque(muG_lo, muK_lo))
+        th = (max(tr.angle[0] - dth, 0.0), tr.angle[1] + dth)
+        lK = spec.clamp_length
+        # weakest bolt at the highest thread friction, strongest (1.2 R_p0.2min) at the lowest
+        Fy = (
+            float(permissible_preload(A0, d0, thr.d2, thr.P, Rp, muG_hi, 1.0)),
+            float(permissible_preload(A0, d0, thr.d2, thr.P, 1.2 * Rp, muG_lo, 1.0)),
+        )
+        Fu = (Fy[0] * grd.Rm / Rp, Fy[1] * grd.Rm / Rp)
+        lo = angle_preload(F_snug[0], th[0], thr.P, dSa, dPa, Fy[0], Fu[0], lK)
+        hi = angle_preload(F_snug[1], th[1], thr.P, dSa, dPa, Fy[1], Fu[1], lK)
+        FM_min, FM_max = float(lo[0]), float(hi[0])
+        FMzul = float(permissible_preload(A0, d0, thr.d2, thr.P, Rp, muG_lo, tr.utilization))
+        alpha = FM_max / FM_min
+        basis = (
+            "snug torque with its tolerance and friction, angle window, bolt yield scatter "
+            "(R_p0.2 to 1.2 R_p0.2, from memory)"
+        )
+        if tr.scatter is not None:
+            alpha, basis = tr.scatter, "given"
+            FM_min = FM_max / alpha
+        torque = (tr.snug_torque, T_snug[0], T_snug[1])
+        angle_info = {
+            "snug_torque_Nm": tr.snug_torque,
+            "snug_preload_min_N": F_snug[0],
+            "snug_preload_max_N": F_snug[1],
+            "angle_min_deg": math.degrees(th[0]),
+            "angle_max_deg": math.degrees(th[1]),
+            "yield_preload_min_N": Fy[0],
+            "yield_preload_max_N": Fy[1],
+            "utilization_min": FM_min / Fy[0],
+            "utilization_max": FM_max / Fy[1],
+            "yields_min": bool(lo[0] > Fy[0]),
+            "yields_max": bool(hi[0] > Fy[1]),
+            "permanent_elongation_min_um": float(lo[1]) * 1e6,
+            "permanent_elongation_max_um": float(hi[1]) * 1e6,
+            "breaks": bool(hi[2]),
+        }
+        if hi[2]:
+            notes.append(
+                "Angle tightening: at the largest angle the strongest bolt reaches its "
+                "tensile strength (it would break): reduce the angle."
+            )
+        notes.append(
+            "Method angle: snug torque, then the nut turned by the angle; the torque shown "
+            "is the snug torque. Past the yield point the bolt follows a bilinear law up to "
+            f"R_m at {HARDENING_STRAIN:.0%} plastic strain of the clamp length (from memory)."
+        )
+    elif tr.method == "yield":
         FM_min, FM_max = (
             float(x)
             for x in yield_controlled_preload_range(A0, d0, thr.d2, thr.P, Rp, muG_lo, muG_hi)
@@ -263,8 +320,8 @@ def prepare(spec: JointSpec, model: TemperatureModel | None = None) -> Prepared:
         )
         torque = (0.5 * (T_lo + T_hi), T_lo, T_hi)
         notes.append(
-            f"Method {tr.method}: the joint is tightened to the yield point; the torque "
-            "range is indicative (the angle or yield signal controls)."
+            "Method yield: the joint is tightened to the yield point; the torque range is "
+            "indicative (the yield signal controls)."
         )
         assumptions.append(
             "Yield-controlled tightening: permissible preload with nu = 1 and "
@@ -321,6 +378,7 @@ def prepare(spec: JointSpec, model: TemperatureModel | None = None) -> Prepared:
         FZ,
         tuple(notes),
         tuple(assumptions),
+        angle_info,
     )
 
 

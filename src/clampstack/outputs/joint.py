@@ -114,7 +114,25 @@ def joint_text(r: JointResult, units: str = "si") -> str:
             "friction shown is what it implies)"
         )
     out.append(f"  method {tr.method}; {mu}{extra}")
-    if r.torque is not None:
+    if r.angle is not None:
+        a, T = r.angle, u.label("torque")
+        out.append(
+            f"  snug torque {u.fmt('torque', r.torque[0])} {T} "
+            f"(min {u.fmt('torque', r.torque[1])}, max {u.fmt('torque', r.torque[2])} {T}), "
+            f"then turn {a['angle_min_deg']:.4g}..{a['angle_max_deg']:.4g} deg"
+        )
+        out.append(
+            f"  preload after snug {u.fmt('force', a['snug_preload_min_N'])} .. "
+            f"{u.fmt('force', a['snug_preload_max_N'])} {F}; bolt utilisation "
+            f"{a['utilization_min']:.0%} .. {a['utilization_max']:.0%} of its yield preload"
+            + (
+                f"; the bolt yields (permanent elongation up to "
+                f"{a['permanent_elongation_max_um']:.3g} um)"
+                if a["yields_max"]
+                else "; elastic"
+            )
+        )
+    elif r.torque is not None:
         T = u.label("torque")
         out.append(
             f"  tightening torque {u.fmt('torque', r.torque[0])} {T} "

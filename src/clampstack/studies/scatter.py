@@ -30,6 +30,7 @@ import numpy as np
 
 from ..catalog import yield_at_temperature
 from ..components import permissible_preload
+from ..components.tightening import angle_preload
 from ..display import Shown
 from ..errors import InputError
 from ..joint.analysis import analyse
@@ -75,8 +76,13 @@ def make_chain(spec: JointSpec, dists: dict[str, Dist]) -> Chain:
     ):
         if name not in d:
             d[name] = Dist("uniform", *rng_) if rng_[0] != rng_[1] else Dist("fixed", rng_[0])
+    if tr.method == "angle" and "angle" not in d:
+        assert tr.angle is not None
+        d["angle"] = Dist(
+            "uniform", max(tr.angle[0] - tr.angle_tolerance, 0.0), tr.angle[1] + tr.angle_tolerance
+        )
     if (
-        tr.method == "torque"
+        tr.method in ("torque", "angle")
         and "torque" not in d
         and "torque_factor" not in d
         and tr.torque_tolerance > 0
@@ -129,7 +135,22 @@ def evaluate(chain: Chain, x: dict[str, np.ndarray], n: int) -> dict[str, np.nda
         else:
             T = prep.torque[0] * x.get("torque_factor", np.ones(n))
         FM = T / prep.k_torque_fn(muG, muK)
-    elif tr.method in ("yield", "angle"):
+    elif tr.method == "angle":
+        # snug torque through the torque relation, then the angle (bilinear bolt past yield)
+        F_snug = tr.snug_torque * x.get("torque_factor", np.ones(n)) / prep.k_torque_fn(muG, muK)
+        Fy = np.asarray(permissible_preload(prep.A0, prep.d0, thr.d2, thr.P, Rp_arr, muG, 1.0))
+        Fu = Fy * s.bolt.grade.Rm / s.bolt.grade.Rp02
+        FM, _, _ = angle_preload(
+            F_snug,
+            x["angle"],
+            thr.P,
+            prep.springs.delta_S,
+            prep.springs.delta_P,
+            Fy,
+            Fu,
+            s.clamp_length,
+        )
+    elif tr.method == "yield":
         FM = np.asarray(permissible_preload(prep.A0, prep.d0, thr.d2, thr.P, Rp_arr, muG, 1.0))
     else:  # tension
         FM = x["preload"]
@@ -371,6 +392,7 @@ def _unit(key: str) -> dict[str, Any]:
         "embedding": {"unit": "um", "factor": 1e-6},
         "temperature": {"unit": "degC", "offset": 273.15, "spread_unit": "K"},
         "yield_strength": {"unit": "MPa", "factor": 1e6},
+        "angle": {"unit": "deg", "factor": math.pi / 180},
     }.get(key, {})
 
 

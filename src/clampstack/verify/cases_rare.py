@@ -115,3 +115,43 @@ def monte_carlo_exact_tail() -> Outcome:
         "exact normal tail 1 - Phi(3.09) (scipy.stats.norm) for the torque at which the "
         "VDI 2230-1 R7 yield preload is reached; adaptive sampling to a 10 % interval",
     )
+
+
+# angle tightening (hand, from the compatibility of bolt and parts; bilinear bolt past yield):
+# F_snug = 10 kN, P = 1.5 mm, theta = 30 deg -> stretch 1.5/12 = 0.125 mm;
+# delta_S = 3e-9, delta_P = 1e-9 m/N.  Elastic: F = 10 + 0.125e-3/4e-9 N = 41.25 kN.
+# Past F_y = 35 kN (F_u = 45 kN, l = 40 mm, 2 % strain): k_p = 10e3/(8e-4 + 3e-5)
+# = 1.20482e7 N/m; u = 4e-5 + 1.25e-4 = 1.65e-4 m; F = (35e3 + (1.65e-4 - 1.05e-4) k_p)
+# / (1 + 1e-9 k_p) = 35 297.6 N; permanent elongation u - F (dS + dP) = 23.81 um.
+
+
+@register("angle tightening, elastic: F_snug + P theta / (360 deg (dS + dP))", G, kind="hand")
+def angle_elastic() -> Outcome:
+    import math
+
+    from ..components.tightening import angle_preload
+
+    F, _, _ = angle_preload(10e3, math.radians(30), 1.5e-3, 3e-9, 1e-9, 1e9, 2e9, 0.04)
+    return Outcome(
+        float(F) / 1e3,
+        41.25,
+        1e-9,
+        "hand calculation from the compatibility of bolt and parts",
+        "kN",
+    )
+
+
+@register("angle tightening past yield: bilinear bolt, preload", G, kind="hand")
+def angle_plastic() -> Outcome:
+    import math
+
+    from ..components.tightening import angle_preload
+
+    F, _, _ = angle_preload(10e3, math.radians(30), 1.5e-3, 3e-9, 1e-9, 35e3, 45e3, 0.04)
+    return Outcome(
+        float(F) / 1e3,
+        35.2976,
+        2e-6,
+        "hand calculation, bilinear bolt up to R_m at 2 % plastic strain (from memory)",
+        "kN",
+    )
