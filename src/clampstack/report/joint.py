@@ -93,7 +93,18 @@ def _summary(r: JointResult, u: DisplayUnits) -> str:
     tr = s.tightening
     gov = governing(r)
     verdict = verdict_html(r.checks, gov)
-    if r.torque is not None:
+    if r.angle is not None:
+        a = r.angle
+        t0, t1, t2 = r.torque
+        spec = (
+            f'<div class="spec"><span>Snug torque, then angle</span>'
+            f'<span class="big">{_f(u, "torque", t0)} + {a["angle_min_deg"]:.4g}..'
+            f"{a['angle_max_deg']:.4g}&deg;</span>"
+            f"<span>snug min {_f(u, 'torque', t1)} &middot; max {_f(u, 'torque', t2)}</span>"
+            f"<span>method angle; thread friction {_e(_mu(tr.thread_friction))}, "
+            f"head friction {_e(_mu(tr.head_friction))}</span></div>"
+        )
+    elif r.torque is not None:
         t0, t1, t2 = r.torque
         spec = (
             f'<div class="spec"><span>Tightening torque</span>'
@@ -293,7 +304,44 @@ def _tightening(r: JointResult, u: DisplayUnits) -> str:
     s = r.spec
     tr = s.tightening
     rows = [("Method", _e(tr.method))]
-    if r.torque is not None:
+    if tr.lubricant:
+        rows.append(("Lubricant or coating", f"<code>{_e(tr.lubricant)}</code> (catalog friction)"))
+    if tr.tool:
+        rows.append(("Torque tool", f"<code>{_e(tr.tool)}</code> (catalog tools)"))
+    if tr.nut_factor is not None:
+        rows.append(
+            (
+                "Nut factor K (T = K F d)",
+                f"{_e(_mu(tr.nut_factor))}; it lumps friction and geometry, the friction below "
+                "is what it implies",
+            )
+        )
+    if r.angle is not None:
+        a = r.angle
+        rows += [
+            (
+                "Snug torque, then angle",
+                f"<b>{_f(u, 'torque', r.torque[0])}</b> (range {_f(u, 'torque', r.torque[1])} .. "
+                f"{_f(u, 'torque', r.torque[2])}), then {a['angle_min_deg']:.4g} .. "
+                f"{a['angle_max_deg']:.4g}&deg;",
+            ),
+            (
+                "Preload after the snug torque",
+                f"{_f(u, 'force', a['snug_preload_min_N'])} .. "
+                f"{_f(u, 'force', a['snug_preload_max_N'])}",
+            ),
+            (
+                "Bolt utilisation of its yield preload",
+                f"{a['utilization_min']:.0%} .. {a['utilization_max']:.0%}"
+                + (
+                    f"; the bolt yields, permanent elongation up to "
+                    f"{a['permanent_elongation_max_um']:.3g} &micro;m"
+                    if a["yields_max"]
+                    else "; elastic"
+                ),
+            ),
+        ]
+    elif r.torque is not None:
         rows += [
             ("Tightening torque, nominal", f"<b>{_f(u, 'torque', r.torque[0])}</b>"),
             (
