@@ -299,6 +299,13 @@ TIGHTENING = Schema(
             minimum=0.0,
         ),
         Key(
+            "load_transfer_factor",
+            "number",
+            "method tension: residual preload / applied tension",
+            default="1 / (1 + d / l_K)",
+            positive=True,
+        ),
+        Key(
             "nut_factor",
             "range:dimensionless",
             "nut factor K of T = K F d, value or range, instead of friction coefficients "

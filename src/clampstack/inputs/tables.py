@@ -141,6 +141,21 @@ def _check_methods(tr: dict[str, Any], method: str) -> None:
         )
 
 
+def _load_transfer(tr: dict[str, Any], method: str) -> float | None:
+    ltf = tr.get("load_transfer_factor")
+    if ltf is not None and method != "tension":
+        raise InputError(
+            'load_transfer_factor applies to method = "tension" only',
+            key="tightening.load_transfer_factor",
+        )
+    if ltf is not None and not 0.3 <= ltf <= 1.0:
+        raise InputError(
+            "a load transfer factor lies between 0.3 and 1 (residual / applied tension)",
+            key="tightening.load_transfer_factor",
+        )
+    return ltf
+
+
 def tightening(
     tr: dict[str, Any], thr: Thread, grd: Grade, rec: Defaults, DKm: float | None = None
 ) -> TighteningSpec:
@@ -265,4 +280,5 @@ def tightening(
         tr.get("snug_torque"),
         tr.get("angle"),
         tr.get("angle_tolerance") or 0.0,
+        _load_transfer(tr, method),
     )

@@ -102,7 +102,7 @@ def evaluate_checks(
     notes: list[str] = []
     rows: list[CheckRow] = []
     yield_method = tr.method == "yield" or (
-        tr.method == "angle" and prep.angle is not None and prep.angle["yields_max"]
+        tr.method == "angle" and prep.method_info is not None and prep.method_info["yields_max"]
     )
     if yield_method:
         notes.append(
@@ -113,11 +113,14 @@ def evaluate_checks(
         mu_text = (
             "no torsion" if tr.method == "tension" else f"mu_G,min = {tr.thread_friction[0]:g}"
         )
+        tension = tr.method == "tension" and prep.method_info is not None
         rows.append(
             CheckRow(
                 "assembly_preload",
-                "Maximum assembly preload within the permissible preload",
-                prep.assembly_max / 1e3,
+                "Largest applied tension within the permissible preload"
+                if tension
+                else "Maximum assembly preload within the permissible preload",
+                (prep.method_info["applied_tension_max_N"] if tension else prep.assembly_max) / 1e3,
                 prep.permissible_preload / 1e3,
                 "kN",
                 "<=",
@@ -398,7 +401,8 @@ class JointResult(Shown):
     assumptions: tuple[str, ...]
     defaults: tuple[tuple[str, str], ...] = field(default=())
     cycle: Any = None  # permanent-loss cycle (clampstack.joint.plastic.CycleResult)
-    angle: dict[str, Any] | None = None  # method angle (Prepared.angle)
+    angle: dict[str, Any] | None = None  # method angle (Prepared.method_info)
+    tension: dict[str, Any] | None = None  # method tension: load transfer (Prepared.method_info)
 
     @property
     def preload_at_limit_by_design(self) -> bool:
@@ -490,6 +494,7 @@ class JointResult(Shown):
                     if s.tightening.method == "angle"
                     else {}
                 ),
+                **(self.tension or {}),
             },
             "preload": {
                 "assembly_min_N": self.assembly_min,
@@ -809,5 +814,6 @@ def analyse(spec: JointSpec) -> JointResult:
         assumptions=prep.assumptions,
         defaults=spec.defaults,
         cycle=cycle,
-        angle=prep.angle,
+        angle=prep.method_info if spec.tightening.method == "angle" else None,
+        tension=prep.method_info if spec.tightening.method == "tension" else None,
     )

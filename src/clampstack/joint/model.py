@@ -205,6 +205,7 @@ class TighteningSpec:
     snug_torque: float | None = None  # method angle [N*m]
     angle: tuple[float, float] | None = None  # method angle: rotation after snug [rad]
     angle_tolerance: float = 0.0  # +- [rad]
+    load_transfer_factor: float | None = None  # method tension: residual / applied tension
 
 
 @dataclass(frozen=True)

@@ -92,7 +92,8 @@ class Prepared:
     embedding_loss: float
     notes: tuple[str, ...]
     assumptions: tuple[str, ...]
-    angle: dict[str, Any] | None = None  # method angle: snug, window, yield, elongation
+    #: method angle: snug, window, yield, elongation; method tension: load transfer
+    method_info: dict[str, Any] | None = None
 
     @property
     def check_basis(self) -> str:
@@ -336,13 +337,29 @@ def prepare(spec: JointSpec, model: TemperatureModel | None = None) -> Prepared:
                 f"VDI 2230-1 Table A8, hydraulic tensioning, middle of 1.2-1.6 ({alpha:g}, from memory)"
             )
         )
+        # load transfer: the nut takes less than the tool applied (thread and nut deflect
+        # when the tool lets go); LTF = residual / applied = 1 / (1 + d / l_K) unless given
+        # (tensioner practice, from memory: the loss grows as the grip shortens)
+        ltf = tr.load_transfer_factor or 1.0 / (1.0 + thr.d / spec.clamp_length)
         if tr.preload is not None:
             FM_min = 2 * tr.preload / (1 + alpha)
             FM_max = alpha * FM_min
-        else:
-            FM_max = FMzul
+        else:  # the tool's largest tension takes the bolt to F_M,zul (no torsion)
+            FM_max = FMzul * ltf
             FM_min = FM_max / alpha
-        notes.append("Method tension: no thread torsion at assembly; no torque specification.")
+        angle_info = {
+            "load_transfer_factor": ltf,
+            "load_transfer_basis": "given"
+            if tr.load_transfer_factor
+            else "1 / (1 + d / l_K) (tensioner practice, from memory; use the tool maker's data)",
+            "applied_tension_min_N": FM_min / ltf,
+            "applied_tension_max_N": FM_max / ltf,
+        }
+        notes.append(
+            "Method tension: no thread torsion at assembly; no torque specification. The "
+            f"tensioner applies {FM_min / ltf / 1e3:.4g} .. {FM_max / ltf / 1e3:.4g} kN; the "
+            f"nut keeps {ltf:.0%} of it (load transfer factor)."
+        )
 
     if spec.embedding_amount is not None:
         fZ = spec.embedding_amount

@@ -132,6 +132,13 @@ def joint_text(r: JointResult, units: str = "si") -> str:
                 else "; elastic"
             )
         )
+    elif r.tension is not None:
+        t = r.tension
+        out.append(
+            f"  applied tension {u.fmt('force', t['applied_tension_min_N'])} .. "
+            f"{u.fmt('force', t['applied_tension_max_N'])} {F}; load transfer factor "
+            f"{t['load_transfer_factor']:.3g} ({t['load_transfer_basis']})"
+        )
     elif r.torque is not None:
         T = u.label("torque")
         out.append(
