@@ -49,7 +49,11 @@ JOINTS = [
     "m16-through-bolt-alternating.toml",
     "stainless-bracket-anti-seize.toml",
 ]
-FLANGES = ["pump-outlet-flange-8-bolts.toml", "ring-flange-24-bolts-moment.toml"]
+FLANGES = [
+    "pump-outlet-flange-8-bolts.toml",
+    "ring-flange-24-bolts-moment.toml",
+    "cooling-water-flange-nut-factor.toml",
+]
 
 # a joint with every kind of [distributions] entry, for the scatter command
 WITH_DISTRIBUTIONS = "m16-through-bolt-alternating.toml+distributions"
