@@ -980,11 +980,9 @@ def temperature_notes(spec: FlangeSpec) -> list[str]:
     if spec.nut_material is not None:
         parts.append(("nut", spec.nut_material, (spec.T_assembly,), ("E",)))
     for label, pm, Ts, props in parts:
-        if pm.material is None:
-            continue
-        given = {"E": pm.modulus is not None, "alpha": pm.expansion is not None}
-        use = tuple(p for p in props if not given[p])
-        out.extend(x.text(label) for x in pm.material.extrapolations(np.array(Ts), use))
+        use = pm.from_catalog(props)
+        if use:
+            out.extend(x.text(label) for x in pm.material.extrapolations(np.array(Ts), use))
     return out
 
 

@@ -51,6 +51,7 @@ from .prepare import (
     check_bolt_loads,
     joint_network,
     prepare,
+    service_preload,
     solve_service,
 )
 from .thermal import TemperatureModel
@@ -647,7 +648,7 @@ def analyse(spec: JointSpec) -> JointResult:
 
     def check_loads(FM: float) -> tuple[float, float]:
         # R8-R10 loads from the check preload (VDI 2230-1 rule of the thermal term)
-        FV_hot = (FM * (dSa + dPa) - th_bolt + th_clamp) / (dSs + dPs)
+        FV_hot = service_preload(FM, dSa + dPa, dSs + dPs, th_bolt - th_clamp)
         bm, mean_load = check_bolt_loads(FM, FV_hot, phi_n_s, FA_lo, FA_hi)
         return float(bm), float(mean_load)
 

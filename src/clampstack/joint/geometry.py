@@ -94,15 +94,11 @@ def check_temperature(
     extrapolates there and flags it in the notes).  ``key`` is the key the error names:
     the one the temperature came from; ``part`` names the part in the message.
     """
-    if pm.material is None:
-        return
-    given = {"E": pm.modulus is not None, "alpha": pm.expansion is not None}
-    for prop in props:
-        if not given[prop]:
-            try:
-                pm.material.check(prop, T, extrapolate, part)
-            except InputError as err:
-                raise InputError(err.detail, key=key) from None
+    for prop in pm.from_catalog(props):
+        try:
+            pm.material.check(prop, T, extrapolate, part)  # type: ignore[union-attr]
+        except InputError as err:
+            raise InputError(err.detail, key=key) from None
 
 
 def temperature_key(own: str, given: frozenset[str], *fallbacks: str) -> str:

@@ -115,6 +115,14 @@ class PartMaterial:
     modulus: float | None = None  # Pa, overrides the catalog
     expansion: float | None = None  # 1/K mean, overrides the catalog
 
+    def from_catalog(self, props: tuple[str, ...] = ("E", "alpha")) -> tuple[str, ...]:
+        """The properties of ``props`` (``"E"``, ``"alpha"``) taken from the catalog, not
+        given in the file (none for a material given only by modulus and expansion)."""
+        if self.material is None:
+            return ()
+        given = {"E": self.modulus is not None, "alpha": self.expansion is not None}
+        return tuple(p for p in props if not given[p])
+
     def E(self, T: float, extrapolate: bool = False) -> float:
         """Young's modulus at temperature ``T`` [K] (catalog table, linear interpolation;
         ``extrapolate``: at most ``COLD_MARGIN`` below the data, see the catalog)."""

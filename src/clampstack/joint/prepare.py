@@ -469,6 +469,19 @@ def service_closed_form(
     return FS, FK
 
 
+def service_preload(
+    FM: Any, resilience_assembly: float, resilience_service: Any, thermal: Any, embedding: Any = 0.0
+) -> Any:
+    """Preload at service temperature [N] of an assembly preload ``FM`` [N] (vectorised).
+
+    The bolt's misfit ``F_M (delta_S + delta_P)`` at assembly, less the embedding ``f_Z``
+    and the net free thermal elongation ``thermal`` (bolt minus clamped stack) [m], over
+    the joint's resilience at service temperature (VDI 2230-1:2015, 5.4.2.3, with the
+    moduli at temperature); the closed form of the joint network without working load.
+    """
+    return (FM * resilience_assembly - embedding - thermal) / resilience_service
+
+
 def check_bolt_loads(
     FM: Any, FV_T: Any, phi: Any, FA_lo: float, FA_hi: float
 ) -> tuple[np.ndarray, np.ndarray]:

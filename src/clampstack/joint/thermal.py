@@ -78,7 +78,7 @@ class TemperatureModel:
                 _Part(f"{lay.kind} {lay.name!r}", lay.material, lay.temperature, ("E", "alpha"))
             )
         self.parts = tuple(
-            _Part(p.label, p.material, p.T_part, _catalog_props(p.material, p.props)) for p in parts
+            _Part(p.label, p.material, p.T_part, p.material.from_catalog(p.props)) for p in parts
         )
         # the bolt's segments with a reference modulus of 1 Pa: resilience x E = coefficient
         try:
@@ -300,14 +300,6 @@ class TemperatureModel:
     def extrapolation_notes(self, T_service: float | np.ndarray) -> list[str]:
         """:meth:`extrapolations` as sentences for a result's notes."""
         return [x.text(label) for label, x in self.extrapolations(T_service)]
-
-
-def _catalog_props(pm: PartMaterial, props: tuple[str, ...]) -> tuple[str, ...]:
-    """The properties of ``props`` that come from the catalog (not given in the file)."""
-    if pm.material is None:
-        return ()
-    given = {"E": pm.modulus is not None, "alpha": pm.expansion is not None}
-    return tuple(p for p in props if not given[p])
 
 
 def _modulus(pm: PartMaterial, T: np.ndarray) -> np.ndarray:

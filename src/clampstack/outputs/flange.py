@@ -8,7 +8,7 @@ import numpy as np
 
 from ..flange.analysis import FlangeResult
 from .joint import check_value
-from .text import UNIT_SYSTEMS, table
+from .text import UNIT_SYSTEMS, defaults_block, notes_block, table
 
 FLANGE_CAUTION = (
     "Caution: pressure equipment. These results support, and do not replace, the judgement "
@@ -150,14 +150,8 @@ def flange_text(r: FlangeResult, units: str = "si") -> str:
         "  bolt: the governing bolt (or its gasket sector), from the per-bolt loads after the "
         "last pass and in service; the assembly scatter scales the preload part of each load."
     )
-    if r.notes:
-        out.append("")
-        out.append("Notes")
-        out.extend(f"  - {x}" for x in r.notes)
-    if r.defaults:
-        out.append("")
-        out.append("Defaults applied")
-        out.extend(f"  {k} = {v}" for k, v in r.defaults)
+    out.extend(notes_block(r.notes))
+    out.extend(defaults_block(r.defaults))
     out.append("")
     out.append(FLANGE_CAUTION)
     return "\n".join(out)

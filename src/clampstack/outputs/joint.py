@@ -7,7 +7,15 @@ import math
 from dataclasses import replace
 
 from ..joint.analysis import JointResult
-from .text import CAUTION, UNIT_SYSTEMS, DisplayUnits, fmt_number, table
+from .text import (
+    CAUTION,
+    UNIT_SYSTEMS,
+    DisplayUnits,
+    defaults_block,
+    fmt_number,
+    notes_block,
+    table,
+)
 
 
 def _joint_line(r: JointResult) -> str:
@@ -220,14 +228,8 @@ def joint_text(r: JointResult, units: str = "si") -> str:
     for c in r.checks:
         if c.skipped:
             out.append(f"  {c.name} switched off: {c.skipped}")
-    if r.notes:
-        out.append("")
-        out.append("Notes")
-        out.extend(f"  - {n}" for n in r.notes)
-    if r.defaults:
-        out.append("")
-        out.append("Defaults applied")
-        out.extend(f"  {k} = {v}" for k, v in r.defaults)
+    out.extend(notes_block(r.notes))
+    out.extend(defaults_block(r.defaults))
     out.append("")
     out.append(CAUTION)
     return "\n".join(out)

@@ -3,7 +3,7 @@
 from __future__ import annotations
 
 from ..studies.scatter import QUANTS, ScatterResult
-from .text import CAUTION, UNIT_SYSTEMS, table
+from .text import CAUTION, UNIT_SYSTEMS, notes_block, table
 
 _LABELS = {
     "assembly_preload": "assembly preload",
@@ -64,10 +64,7 @@ def scatter_text(r: ScatterResult, units: str = "si") -> str:
             "95 % upper bound): "
             + ("met" if pc["ok"] else f"EXCEEDED by {', '.join(pc['exceeded'])}")
         )
-    if r.notes:
-        out.append("")
-        out.append("Notes")
-        out.extend(f"  - {x}" for x in r.notes)
+    out.extend(notes_block(r.notes))
     out.append("")
     out.append(CAUTION)
     return "\n".join(out)

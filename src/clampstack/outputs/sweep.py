@@ -10,7 +10,7 @@ import numpy as np
 
 from ..joint.analysis import BASIS_NAMES
 from ..studies.sweep import C0, SweepResult
-from .text import CAUTION, UNIT_SYSTEMS, table
+from .text import CAUTION, UNIT_SYSTEMS, notes_block, table
 
 MAX_ROWS = 25
 
@@ -111,10 +111,7 @@ def sweep_text(r: SweepResult, units: str = "si") -> str:
             )
     for name, why in r.skipped.items():
         out.append(f"  {name} switched off: {why}")
-    if r.notes:
-        out.append("")
-        out.append("Notes")
-        out.extend(f"  - {n}" for n in r.notes)
+    out.extend(notes_block(r.notes))
     out.append("")
     out.append(CAUTION)
     return "\n".join(out)

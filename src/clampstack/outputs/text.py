@@ -115,3 +115,13 @@ def terminal_safe(text: str) -> str:
         return f"\\x{c:02x}" if c < 0x100 else f"\\u{c:04x}"
 
     return _TERMINAL_UNSAFE.sub(esc, text)
+
+
+def notes_block(notes: Sequence[str], title: str = "Notes") -> list[str]:
+    """A blank line, ``title`` and one ``  - `` line per note; nothing without notes."""
+    return ["", title, *(f"  - {n}" for n in notes)] if notes else []
+
+
+def defaults_block(defaults: Sequence[tuple[str, str]]) -> list[str]:
+    """A blank line, "Defaults applied" and one ``  key = value`` line per default."""
+    return ["", "Defaults applied", *(f"  {k} = {v}" for k, v in defaults)] if defaults else []

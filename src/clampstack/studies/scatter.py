@@ -35,7 +35,13 @@ from ..display import Shown
 from ..errors import InputError
 from ..joint.analysis import analyse
 from ..joint.model import DIST_KEYS, DIST_LOWER_BOUNDS, Dist, JointSpec
-from ..joint.prepare import Prepared, prepare, service_closed_form, temperature_data_notes
+from ..joint.prepare import (
+    Prepared,
+    prepare,
+    service_closed_form,
+    service_preload,
+    temperature_data_notes,
+)
 from .sampling import (  # noqa: F401  (re-exported for the flange study and callers)
     BINS,
     BLOCK,
@@ -165,7 +171,7 @@ def evaluate(chain: Chain, x: dict[str, np.ndarray], n: int) -> dict[str, np.nda
     dS, dP = prep.model.resiliences(Ts)
     thb, thc = prep.model.thermal(Ts)
     phi = s.service.load_height * dP / (dS + dP)
-    FV = (FM * (dSa + dPa) - fZ - (thb - thc)) / (dS + dP)
+    FV = service_preload(FM, dSa + dPa, dS + dP, thb - thc, fZ)
     FA_hi = x.get("axial_load", np.full(n, chain.FA_hi))
     pre, _ = service_closed_form(FV, phi, 0.0)
     FS_hi, FK_hi = service_closed_form(FV, phi, FA_hi)
@@ -304,11 +310,13 @@ def scatter(
     if chunk_blocks < 1:
         raise InputError("chunk must be at least one block", key="chunk")
     chain = make_chain(spec, dists)
+    # the service temperatures the study reaches: sampled (mean +- 6 std for normal) or fixed
+    T_span = np.array([spec.service.temperature])
     if "temperature" in chain.dists:
         d = chain.dists["temperature"]
-        lo, hi = (d.a, d.b) if d.kind == "uniform" else (d.a - 6 * d.b, d.a + 6 * d.b)
+        T_span = np.array([d.a, d.b] if d.kind == "uniform" else [d.a - 6 * d.b, d.a + 6 * d.b])
         try:
-            chain.prep.model.check_range(np.array([lo, hi]), extrapolate=True)
+            chain.prep.model.check_range(T_span, extrapolate=True)
         except InputError as err:
             raise InputError(
                 err.detail + " (sampled temperatures, mean +- 6 std for normal)",
@@ -338,11 +346,7 @@ def scatter(
         "governing_check": governing,
     }
     nasa = _nasa(chain, det)
-    T_notes = np.array([spec.service.temperature])
-    if "temperature" in chain.dists:
-        d = chain.dists["temperature"]
-        T_notes = np.array([d.a, d.b] if d.kind == "uniform" else [d.a - 6 * d.b, d.a + 6 * d.b])
-    notes = temperature_data_notes(spec, chain.prep.model, T_notes)
+    notes = temperature_data_notes(spec, chain.prep.model, T_span)
     for name, dist in chain.dists.items():  # truncated tails (at most MAX_TRUNCATED)
         bound = DIST_LOWER_BOUNDS.get(name)
         share = dist.share_below(bound) if bound is not None else 0.0
@@ -368,19 +372,6 @@ def scatter(
         got.convergence,
         tuple(notes),
     )
-
-
-def accumulate(
-    blocks: Callable[[], Any], quants: tuple[str, ...], events: tuple[str, ...], exact: bool
-) -> tuple[dict[str, int], dict[str, dict[str, float]], dict[str, tuple[np.ndarray, np.ndarray]]]:
-    """Event counts, percentiles and histograms over the blocks ``blocks()`` yields."""
-    from .sampling import Accumulator
-
-    acc = Accumulator(quants, events, keep=exact)
-    for out in blocks():
-        acc.add(out)
-    pct, _, hist, _ = acc.percentiles(blocks)
-    return acc.counts, pct, hist
 
 
 def _unit(key: str) -> dict[str, Any]:

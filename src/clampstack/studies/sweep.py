@@ -29,6 +29,7 @@ from ..joint.prepare import (
     check_bolt_loads,
     prepare,
     service_closed_form,
+    service_preload,
     temperature_data_notes,
 )
 
@@ -163,7 +164,7 @@ def _evaluate(prep: Prepared, T: np.ndarray) -> dict[str, Any]:
         ("min", prep.assembly_min, prep.embedding_amount),
         ("max", prep.assembly_max, 0.0),
     ):
-        FV = (FM * (dSa + dPa) - fz - (thb - thc)) / (dS + dP)
+        FV = service_preload(FM, dSa + dPa, dS + dP, thb - thc, fz)
         pre, clamp0 = service_closed_form(FV, phi, 0.0)
         hi = service_closed_form(FV, phi, FA_hi)
         lo = service_closed_form(FV, phi, FA_lo) if alternating else hi
@@ -171,7 +172,7 @@ def _evaluate(prep: Prepared, T: np.ndarray) -> dict[str, Any]:
     pre_min, clamp0_min, hi_min, lo_min = res["min"]
     pre_max, _, hi_max, lo_max = res["max"]
     FM_check = prep.check_preload()
-    FV_check = (FM_check * (dSa + dPa) - (thb - thc)) / (dS + dP)
+    FV_check = service_preload(FM_check, dSa + dPa, dS + dP, thb - thc)
     bolt_max, mean_check = check_bolt_loads(FM_check, FV_check, phi, FA_lo, FA_hi)
     bolt_max = np.broadcast_to(bolt_max, T.shape)
     residual = np.minimum(hi_min[1], lo_min[1])
