@@ -53,6 +53,7 @@ FLANGES = [
     "pump-outlet-flange-8-bolts.toml",
     "ring-flange-24-bolts-moment.toml",
     "cooling-water-flange-nut-factor.toml",
+    "steam-header-flange-tensioned.toml",
 ]
 
 # a joint with every kind of [distributions] entry, for the scatter command

@@ -40,6 +40,11 @@ def candidate_data(
     tr.pop("torque", None)
     tr.pop("preload", None)
     tr["method"] = method
+    if method == "tension":  # tensioners on every bolt at once: no torque passes
+        for k in ("passes", "pattern", "order", "sequence"):
+            tr.pop(k, None)
+    else:
+        tr.pop("tensioning", None)
     d["tightening"] = tr
     return d
 
@@ -64,6 +69,11 @@ def flange_candidate_data(
     ):
         tr.pop("pattern")
     tr["method"] = method
+    if method == "tension":  # tensioners on every bolt at once: no torque passes
+        for k in ("passes", "pattern", "order", "sequence"):
+            tr.pop(k, None)
+    else:
+        tr.pop("tensioning", None)
     d["tightening"] = tr
     d.pop("nut", None)
     return d

@@ -30,6 +30,7 @@ OD minus ``2b``; ``H = 0.785 G^2 P``, ``H_p = 2 b pi G m P``,
 from __future__ import annotations
 
 import math
+from collections.abc import Sequence
 from dataclasses import dataclass, field
 from typing import Any
 
@@ -250,12 +251,12 @@ class Ring:
         return bolts, i_nodes, j_nodes, k, d0, beh, gasket_parts
 
     def gasket_table(
-        self, parts: np.ndarray, controlled: tuple[int, float] | None = None
+        self, parts: np.ndarray, held: Sequence[tuple[int, float]] = ()
     ) -> _CurveTable:
         """Sector laws with their unloading history, as one vectorised curve table.
 
-        ``controlled = (part, force)`` adds one row of constant force (a bolt held at its
-        target while it is tightened)."""
+        Each ``(part, force)`` of ``held`` adds one row of constant force (a bolt held at
+        its target while it is tightened, or by its tensioner)."""
         g = self.spec.gasket
         t = self.gasket_thickness
         A = self.sector_area
@@ -288,13 +289,14 @@ class Ring:
         Fv = np.take_along_axis(Fv, order, axis=1)
         below = np.full(n, last_slope)
         above = np.zeros(n)
-        if controlled is not None:
-            row_x = np.full((1, m), np.inf)
-            row_x[0, 0] = 0.0
+        if held:
+            h = len(held)
+            row_x = np.full((h, m), np.inf)
+            row_x[:, 0] = 0.0
             X = np.vstack((X, row_x))
-            Fv = np.vstack((Fv, np.full((1, m), controlled[1])))
-            parts = np.append(parts, controlled[0])
-            below, above = np.append(below, 0.0), np.append(above, 0.0)
+            Fv = np.vstack((Fv, np.repeat([[f] for _, f in held], m, axis=1)))
+            parts = np.append(parts, [p for p, _ in held])
+            below, above = np.append(below, np.zeros(h)), np.append(above, np.zeros(h))
         return _CurveTable.from_arrays(parts, X, Fv, below, above)
 
     def _network(self) -> Network:
@@ -308,8 +310,8 @@ class Ring:
             self._net = net
         return net
 
-    def solve(self, loads_F: np.ndarray, controlled: tuple[int, float] | None = None):
-        """Solve the ring; ``controlled = (bolt, force)`` holds that bolt at a given force."""
+    def solve(self, loads_F: np.ndarray, held: Sequence[tuple[int, float]] = ()):
+        """Solve the ring; each ``(bolt, force)`` of ``held`` holds that bolt at that force."""
         n = self.n
         net = self._network()
         base = getattr(self, "_base", None)
@@ -329,11 +331,11 @@ class Ring:
         net.free_elongation = free
         beh = base[2].copy()
         gparts = np.arange(2 * n, 3 * n)
-        if controlled is not None:
-            # the bolt being tightened carries exactly the target: a constant-force law
-            beh[controlled[0]] = CURVE
+        for b, _ in held:
+            # a bolt being tightened carries exactly its target: a constant-force law
+            beh[b] = CURVE
         net.behaviour = beh
-        net.curve_table = self.gasket_table(gparts, controlled)
+        net.curve_table = self.gasket_table(gparts, held)
         loads = np.zeros(self.n_nodes)
         loads[self.node_F] += loads_F
         sol = net.solve(loads, start=self.last_u)
@@ -348,7 +350,7 @@ class Ring:
 
     def tighten(self, bolt: int, target: float, loads_F: np.ndarray) -> np.ndarray:
         """Turn one nut until its bolt carries ``target`` (never loosen); bolt forces after."""
-        u, forces, _, _ = self.solve(loads_F, (bolt, target))
+        u, forces, _, _ = self.solve(loads_F, [(bolt, target)])
         new_free = (
             u[self.node_U[bolt]] - target / (self.k_bolt * self.scale_k[0]) - (self.thermal_bolt)
         )
@@ -357,6 +359,31 @@ class Ring:
             return forces
         # already tighter than the target: the nut does not turn
         return self.solve(loads_F)[1]
+
+    def tension(
+        self, bolts: Sequence[int], applied: float, loss: float, loads_F: np.ndarray
+    ) -> np.ndarray:
+        """Hydraulic tensioners on ``bolts`` at once: pull each to ``applied``, run the nuts
+        down, let go; bolt forces after.
+
+        A nut turns only where the tool stretches its bolt beyond what the nut already
+        holds; on release each turned nut's bolt loses the free elongation ``loss`` (the
+        load transfer: nut thread and bearing deflect as the nut takes the load).
+        """
+        active = np.asarray(bolts, dtype=np.int64)
+        kb = self.k_bolt * self.scale_k[0]
+        for _ in range(len(active) + 1):
+            if active.size == 0:
+                return self.solve(loads_F)[1]
+            u, _, _, _ = self.solve(loads_F, [(int(b), applied) for b in active])
+            pulled = u[self.node_U[active]] - applied / kb - self.thermal_bolt
+            turns = pulled < self.bolt_free[active]
+            if turns.all():
+                self.bolt_free[active] = pulled + loss
+                return self.solve(loads_F)[1]
+            # a bolt already above the applied tension keeps its nut: solve again without it
+            active = active[turns]
+        raise AssertionError("unreachable: the active set shrinks every round")
 
 
 def build_ring(spec: FlangeSpec) -> Ring:
@@ -459,6 +486,177 @@ def simulate_passes(
             forces = ring.tighten(b, frac * targets[b], zero)
         out.append(forces.copy())
     return out
+
+
+@dataclass(frozen=True)
+class Tensioning:
+    """A hydraulic-tensioning sequence and what it leaves (SI)."""
+
+    coverage: str  # all | half | sequence
+    load_transfer_factor: float  # residual / applied tension of one bolt with its sector
+    load_transfer_basis: str
+    sets: list[list[int]]  # bolts (0-based) tensioned in each pass
+    applied: list[float]  # applied tension of each pass [N]
+    passes: list[np.ndarray]  # bolt forces after each pass [N]
+    peak: np.ndarray  # each bolt's largest force during the passes (the tool's pull) [N]
+    labels: list[str]  # what each pass is
+    residual: float  # nominal residual preload per bolt [N]
+
+    @property
+    def overtension(self) -> float:
+        """Applied tension of the first pass over that of the last (1 unless "half")."""
+        return self.applied[0] / self.applied[-1]
+
+    def to_dict(self) -> dict[str, Any]:
+        return {
+            "coverage": self.coverage,
+            "load_transfer_factor": self.load_transfer_factor,
+            "load_transfer_basis": self.load_transfer_basis,
+            "applied_tension_N": list(self.applied),
+            "overtension_ratio": self.overtension,
+            "passes": list(self.labels),
+        }
+
+
+def load_transfer(spec: FlangeSpec) -> tuple[float, str]:
+    """Load transfer factor of the flange bolts: given, or 1 / (1 + d / l_K).
+
+    l_K is the grip (both rings and the gasket for a pair); tensioner practice, from
+    memory, as for a joint (the loss grows as the grip shortens); the tool maker's data
+    govern.
+    """
+    if spec.load_transfer_factor is not None:
+        return spec.load_transfer_factor, "given"
+    pair = spec.mating == "flange"
+    lK = (2 * spec.thickness if pair else spec.thickness) + spec.gasket.thickness
+    return 1.0 / (1.0 + spec.thread.d / lK), (
+        "1 / (1 + d / l_K) (tensioner practice, from memory; use the tool maker's data)"
+    )
+
+
+def transfer_loss(ring: Ring, ltf: float) -> float:
+    """Free elongation lost per unit applied tension when a tensioner lets go [m/N].
+
+    Defined so that one bolt with its own flange plate and gasket sector (unloading along
+    the gasket's unloading modulus) keeps ``ltf`` of the applied tension:
+    loss = (1 - LTF) x (1/k_bolt + 1/k_flange + t_g / (E_un A_sector)); our model of the
+    load transfer, the ring's interaction comes on top.
+    """
+    g = ring.spec.gasket
+    c = (
+        1.0 / ring.k_bolt
+        + 1.0 / ring.k_flange
+        + ring.gasket_thickness / (g.unload_modulus * ring.sector_area)
+    )
+    return (1.0 - ltf) * c
+
+
+def simulate_tensioning(
+    spec: FlangeSpec,
+    residual: float | None,
+    orders: list[list[int]],
+    hint: Tensioning | None = None,
+    pull: float | None = None,
+) -> tuple[Tensioning, Ring]:
+    """Tension the flange's bolts to a nominal residual preload ``residual`` [N] per bolt,
+    or, with ``residual=None``, with the largest applied tension ``pull`` [N].
+
+    * ``all``: a tensioner on every bolt, one pass at ``residual / LTF``.
+    * ``half``: every other bolt (1, 3, 5, ...), then the others, then a check pass on the
+      first set at the second set's tension (common practice of 50 % tool coverage, from
+      memory).  The first pass is overtensioned so that both sets end with the same mean
+      preload after the second pass (the overtension found by the secant method on the
+      ring model); that mean is the nominal residual; the check pass turns only nuts that
+      are still short.
+    * ``sequence``: one tool, bolt by bolt, in the order and fractions of the passes; the
+      nominal residual is LTF x the last pass's tension.
+
+    ``hint``: a sequence of the same flange at another level; its overtension starts the
+    search (secant on the overtension with the pull held; for a given residual, a secant
+    on the pull around it).  Returns the sequence and the ring in its state after the last pass.
+    """
+    if (residual is None) == (pull is None):
+        raise ValueError("give the residual preload or the largest pull, not both")
+    mode = spec.tensioning or "all"
+    n = spec.bolt_count
+    ltf, basis = load_transfer(spec)
+    zero = np.zeros(n)
+
+    def run(
+        sets: list[list[int]], applied: list[float]
+    ) -> tuple[list[np.ndarray], np.ndarray, Ring]:
+        ring = build_ring(spec)
+        loss = transfer_loss(ring, ltf)
+        out, peak = [], np.zeros(n)
+        for bolts, F in zip(sets, applied, strict=True):
+            if mode == "sequence":
+                for b in bolts:
+                    f = ring.tension([b], F, loss * F, zero)
+                    peak = np.maximum(peak, f)
+                    peak[b] = max(peak[b], F)
+            else:
+                f = ring.tension(bolts, F, loss * F, zero)
+                peak = np.maximum(peak, f)
+                peak[bolts] = np.maximum(peak[bolts], F)
+            out.append(f.copy())
+        return out, peak, ring
+
+    if mode == "all":
+        F_a = residual / ltf if residual is not None else pull
+        sets, applied, labels = [list(range(n))], [F_a], ["all bolts at once"]
+        nominal = ltf * F_a
+    elif mode == "sequence":
+        top = max(spec.passes)
+        F_a = residual / ltf if residual is not None else pull / top
+        sets = [list(o) for o in orders]
+        applied = [f * F_a for f in spec.passes]
+        labels = [f"bolt by bolt, {p}" for p in spec.patterns]
+        nominal = ltf * F_a
+    else:
+        first, second = list(range(0, n, 2)), list(range(1, n, 2))
+        sets = [first, second, first]
+        labels = [
+            "bolts 1, 3, 5, ... (overtensioned)",
+            "bolts 2, 4, 6, ...",
+            "check pass on bolts 1, 3, 5, ...",
+        ]
+        if residual is not None:
+            # the pull that leaves the residual: secant on the pull (the mean after the
+            # second pass is nearly proportional to it), each a search on r alone
+            p0 = residual / ltf * (hint.overtension if hint and hint.coverage == "half" else 1.3)
+            t0, _ = simulate_tensioning(spec, None, orders, hint=hint, pull=p0)
+            p1 = p0 * residual / t0.residual
+            for _ in range(30):
+                t1, _ = simulate_tensioning(spec, None, orders, hint=t0, pull=p1)
+                if abs(t1.residual / residual - 1) < 1e-8 or t1.residual == t0.residual:
+                    break
+                p0, p1, t0 = (
+                    p1,
+                    p1 + (residual - t1.residual) * (p1 - p0) / (t1.residual - t0.residual),
+                    t1,
+                )
+            applied, nominal = list(t1.applied), residual
+        else:
+
+            def gap(r: float) -> tuple[float, float]:
+                """(gap between the sets' means / pull, mean) after the second pass."""
+                p, _, _ = run(sets[:2], [pull, pull / r])
+                a, b = float(np.mean(p[-1][first])), float(np.mean(p[-1][second]))
+                return (a - b) / pull, 0.5 * (a + b)
+
+            if hint is not None and hint.coverage == "half":
+                r0, r1 = hint.overtension * 0.995, hint.overtension
+            else:
+                r0, r1 = 1.0, 1.2
+            g0, mean = gap(r0)
+            for _ in range(30):
+                g1, mean = gap(r1)
+                if abs(g1) < 1e-8 or g1 == g0:
+                    break
+                r0, r1, g0 = r1, min(max(r1 - g1 * (r1 - r0) / (g1 - g0), 1.0), 3.0), g1
+            applied, nominal = [pull, pull / r1, pull / r1], mean
+    passes, peak, ring = run(sets, applied)
+    return Tensioning(mode, ltf, basis, sets, applied, passes, peak, labels, nominal), ring
 
 
 def compensated_targets(
@@ -582,6 +780,9 @@ class FlangeResult(Shown):
     notes: tuple[str, ...]
     equilibrium_residual: float
     defaults: tuple[tuple[str, str], ...] = field(default=())
+    pass_fractions: tuple[float, ...] = ()  # each pass's target (or applied tension) / final
+    pass_labels: tuple[str, ...] = ()  # each pass's pattern, or which bolts a tensioner pass takes
+    tensioning: Tensioning | None = None  # method tension: the tensioning sequence
 
     @property
     def ok(self) -> bool:
@@ -637,6 +838,7 @@ class FlangeResult(Shown):
                 "lubricant": s.lubricant,
                 "tool": s.tool,
                 "nut_factor": None if s.nut_factor is None else list(s.nut_factor),
+                **({"tensioning": self.tensioning.to_dict()} if self.tensioning else {}),
             },
             "target_bolt_stress_ratio": self.target / s.thread.As / float(s.grade.Rp02),
             "torque": torque,
@@ -650,13 +852,14 @@ class FlangeResult(Shown):
                     "service_load_N": float(self.service_bolt[i]),
                     "gasket_force_assembly_N": float(self.assembly_gasket[i]),
                     "gasket_force_service_N": float(self.service_gasket[i]),
-                    "compensated_target_N": float(self.compensated_targets[i]),
+                    "compensated_target_N": _finite(self.compensated_targets[i]),
                 }
                 for i in range(n)
             ],
             "passes": [[float(f) for f in p] for p in self.passes],
             "pass_orders": [[b + 1 for b in o] for o in self.orders],
-            "pass_fractions": list(s.passes),
+            "pass_fractions": list(self.pass_fractions),
+            "pass_labels": list(self.pass_labels),
             "final_spread": self.final_spread,
             "compensated_final_spread": _spread(self.compensated_final),
             "equilibrium_residual_N": self.equilibrium_residual,
@@ -665,6 +868,11 @@ class FlangeResult(Shown):
             "notes": list(self.notes),
             "defaults": dict(self.defaults),
         }
+
+
+def _finite(x: float) -> float | None:
+    """A float for JSON, None where the figure does not apply (NaN)."""
+    return None if math.isnan(x) else float(x)
 
 
 def _spread(f: np.ndarray) -> float:
@@ -712,10 +920,20 @@ def analyse_flange(spec: FlangeSpec, compensate: bool = True) -> FlangeResult:
         (op_min, "gasket load in operation (H_p/N plus the loss in service)"),
     )
     crush = g.max_stress * g.area / n
-    hi_w, hi_reason = min((crush, "gasket crush limit"), (FMzul, "bolt permissible preload"))
+    bolt_hi, bolt_reason = FMzul, "bolt permissible preload"
+    if spec.method == "tension":
+        ltf, _ = load_transfer(spec)
+        bolt_hi = FMzul * ltf
+        bolt_reason = (
+            "bolt permissible preload reached by the tensioner's largest pull (x load transfer "
+            "and interaction)"
+        )
+    hi_w, hi_reason = min((crush, "gasket crush limit"), (bolt_hi, bolt_reason))
 
     # --- target and tightening
     torque = None
+    orders = pass_orders(spec)
+    tens: Tensioning | None = None
     if spec.method == "torque":
         torque, FM_min, FM_max, alpha, _, _ = torque_preload_range(
             spec.torque,
@@ -752,14 +970,25 @@ def analyse_flange(spec: FlangeSpec, compensate: bool = True) -> FlangeResult:
             f"Method {spec.method}: the bolts are tightened to their yield point; the "
             "torque is indicative."
         )
-    else:  # tension (a tensioner sets the preload directly)
+    else:  # tension: tensioners set the preload, the ring model says what the nuts keep
         alpha = (
             spec.scatter if spec.scatter is not None else tightening_factor("tension", bound="mid")
         )
+        hi_s = 2 * alpha / (1 + alpha)  # largest assembly preload / nominal
         if spec.preload is not None:
             target = spec.preload
+            tens, tens_ring = simulate_tensioning(spec, target, orders)
         else:
-            target = hi_w * (1 + alpha) / (2 * alpha)
+            # the tool's largest pull, at the largest assembly preload, meets F_M,zul
+            tens, tens_ring = simulate_tensioning(spec, None, orders, pull=FMzul / hi_s)
+            target = tens.residual
+        # the window's top for the bolt: the residual preload at which the largest pull
+        # reaches F_M,zul (F_M,zul x LTF for "all"; less where the passes interact)
+        bolt_hi = FMzul * target / float(np.max(tens.peak))
+        hi_w, hi_reason = min((crush, "gasket crush limit"), (bolt_hi, bolt_reason))
+        if spec.preload is None and crush < bolt_hi:
+            target = crush / hi_s
+            tens, tens_ring = simulate_tensioning(spec, target, orders, hint=tens)
         FM_min, FM_max = 2 * target / (1 + alpha), 2 * alpha * target / (1 + alpha)
     ratio = target / thr.As / Rp
     if not PCC1_RANGE[0] <= ratio <= PCC1_RANGE[1]:
@@ -774,14 +1003,33 @@ def analyse_flange(spec: FlangeSpec, compensate: bool = True) -> FlangeResult:
         )
 
     # --- tightening passes with elastic interaction
-    orders = pass_orders(spec)
-    ring = build_ring(spec)
-    targets = np.full(n, target)
-    passes = simulate_passes(ring, targets, spec.passes, orders)
+    if tens is not None:
+        ring = tens_ring
+        passes, orders, peak = tens.passes, tens.sets, tens.peak
+        fractions = tuple(F / tens.applied[-1] for F in tens.applied)
+        labels = tuple(tens.labels)
+        notes.append(
+            f"Method tension ({tens.coverage}): "
+            + "; ".join(
+                f"{lab}: {F / 1e3:.4g} kN applied"
+                for lab, F in zip(tens.labels, tens.applied, strict=True)
+            )
+            + f". The nuts keep about {tens.load_transfer_factor:.0%} of the applied tension "
+            f"(load transfer factor, {tens.load_transfer_basis}); no torque specification."
+        )
+    else:
+        ring = build_ring(spec)
+        targets = np.full(n, target)
+        passes = simulate_passes(ring, targets, spec.passes, orders)
+        peak = np.max(np.vstack(passes), axis=0)  # each bolt's largest force during the passes
+        fractions = spec.passes
+        labels = spec.patterns
     assembly_bolts = passes[-1]
     _, asm_bolts, asm_gasket, _ = ring.solve(np.zeros(n))
     comp_order = orders[0]
-    if compensate:
+    if tens is not None:  # compensated single-pass targets are a torque-pass figure
+        comp_t, comp_final = np.full(n, np.nan), np.full(n, target)
+    elif compensate:
         comp_t, comp_final = compensated_targets(spec, target, comp_order)
     else:
         comp_t, comp_final = np.full(n, np.nan), np.full(n, target)
@@ -814,7 +1062,6 @@ def analyse_flange(spec: FlangeSpec, compensate: bool = True) -> FlangeResult:
     # every load (exact for the linear ring): low = nominal x F_M,min/F_nom, high likewise.
     lo_s, hi_s = FM_min / target, FM_max / target
     after = assembly_bolts
-    peak = np.max(np.vstack(passes), axis=0)  # each bolt's largest force during the passes
     bolts_lo = after * lo_s
     gasket_asm_lo, gasket_asm_hi = asm_gasket * lo_s, asm_gasket * hi_s
     gasket_srv_lo = srv_gasket - (1 - lo_s) * asm_gasket
@@ -907,7 +1154,8 @@ def analyse_flange(spec: FlangeSpec, compensate: bool = True) -> FlangeResult:
     checks.append(
         Check(
             "assembly_preload",
-            "Largest bolt load during the passes within the permissible preload",
+            "Largest bolt load during the passes within the permissible preload"
+            + (" (the tensioner's pull)" if tens is not None else ""),
             float(peak[i]) * hi_s / 1e3,
             FMzul / 1e3,
             "kN",
@@ -932,7 +1180,7 @@ def analyse_flange(spec: FlangeSpec, compensate: bool = True) -> FlangeResult:
             extra={"governing_bolt": int(i) + 1},
         )
     )
-    if "cross" in spec.patterns:
+    if "cross" in spec.patterns and (tens is None or tens.coverage == "sequence"):
         notes.append(f"Cross passes: {cross_rule(n)}.")
     notes.extend(temperature_notes(spec))
     if spec.unused:
@@ -956,6 +1204,9 @@ def analyse_flange(spec: FlangeSpec, compensate: bool = True) -> FlangeResult:
         torque=torque,
         passes=passes,
         orders=orders,
+        pass_fractions=tuple(fractions),
+        pass_labels=tuple(labels),
+        tensioning=tens,
         final_spread=_spread(assembly_bolts),
         compensated_targets=comp_t,
         compensated_final=comp_final,

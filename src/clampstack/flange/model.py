@@ -86,6 +86,10 @@ class FlangeSpec:
     lubricant: str | None = None  # friction catalog key that set both friction ranges
     tool: str | None = None  # tool catalog key that set the torque tolerance
     nut_factor: tuple[float, float] | None = None  # K of T = K F d (friction implied from it)
+    #: method tension: "all" (a tensioner on every bolt, one pass), "half" (every other bolt,
+    #: then the rest, then a check pass) or "sequence" (one tool, bolt by bolt, in the passes)
+    tensioning: str | None = None
+    load_transfer_factor: float | None = None  # method tension: residual / applied tension
 
 
 def bolt_allowable_stress(grade: Grade, thread: Thread) -> tuple[float, str]:

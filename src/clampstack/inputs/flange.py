@@ -196,6 +196,15 @@ TIGHTENING = Schema(
         ),
         Key("order", "raw", "custom bolt order (1-based), with pattern custom"),
         Key("sequence", "raw", "the same as pattern (a name) or order (a list of bolt numbers)"),
+        Key(
+            "tensioning",
+            "text",
+            'method tension: "all" (a tensioner on every bolt at once), "half" (every other '
+            'bolt, then the rest, then a check pass) or "sequence" (one tool, bolt by bolt, '
+            "in the passes and pattern)",
+            default='"all"',
+            choices=("all", "half", "sequence"),
+        ),
     ),
 )
 
@@ -270,6 +279,7 @@ def flange_from_data(data: dict[str, Any]) -> FlangeSpec:
             "check); for a flange use method torque, yield or tension",
             key="tightening.method",
         )
+    tensioning = tensioning_mode(tr, tight.method, n, rec)
     passes, patterns, order = pass_sequence(tr, n, rec)
     spec = FlangeSpec(
         title=raw["title"] or "untitled flange",
@@ -293,6 +303,8 @@ def flange_from_data(data: dict[str, Any]) -> FlangeSpec:
         lubricant=tight.lubricant,
         tool=tight.tool,
         nut_factor=tight.nut_factor,
+        tensioning=tensioning,
+        load_transfer_factor=tight.load_transfer_factor,
         passes=passes,
         patterns=patterns,
         order=order,
@@ -301,6 +313,36 @@ def flange_from_data(data: dict[str, Any]) -> FlangeSpec:
     )
     check_fit(spec)
     return spec
+
+
+def tensioning_mode(tr: dict[str, Any], method: str, n: int, rec: Defaults) -> str | None:
+    """How the tensioners are applied (method tension): "all", "half" or "sequence".
+
+    With "all" and "half" the bolts of a pass are tensioned together, so the torque passes
+    (``passes``, ``pattern``, ``order``, ``sequence``) do not apply and are refused.
+    """
+    mode = tr.get("tensioning")
+    if method != "tension":
+        if mode is not None:
+            raise InputError(
+                'tensioning applies to method = "tension" only', key="tightening.tensioning"
+            )
+        return None
+    mode = rec.pick("tightening.tensioning", mode, "all", '"all" (a tensioner on every bolt)')
+    if mode in ("all", "half"):
+        for k in ("passes", "pattern", "order", "sequence"):
+            if tr.get(k) is not None:
+                raise InputError(
+                    f'with tensioning = "{mode}" the bolts of a pass are tensioned together; '
+                    f'{k} applies to torque passes or to tensioning = "sequence"',
+                    key=f"tightening.{k}",
+                )
+    if mode == "half" and n < 4:
+        raise InputError(
+            'tensioning = "half" needs at least 4 bolts (two sets of every other bolt)',
+            key="tightening.tensioning",
+        )
+    return mode
 
 
 def ring_table(f: dict[str, Any], gasket: GasketSpec, hole: float, rec: Defaults) -> dict[str, Any]:

@@ -20,7 +20,7 @@ FLANGE_CAUTION = (
 
 def _margin(c) -> str:
     m = c.margin
-    return "inf" if math.isinf(m) else f"{m * 100:+.1f} %"
+    return "inf" if math.isinf(m) else f"{round(m * 100, 1) + 0.0:+.1f} %"
 
 
 def flange_text(r: FlangeResult, units: str = "si") -> str:
@@ -75,6 +75,19 @@ def flange_text(r: FlangeResult, units: str = "si") -> str:
         f"{u.fmt('force', r.assembly_range[0])} .. {u.fmt('force', r.assembly_range[1])} {F}"
         f" (alpha_A {r.alpha_A:.3g})"
     )
+    tens = r.tensioning
+    if tens is not None:
+        applied = ", ".join(
+            f"{lab} {u.fmt('force', F)} {F_lab}"
+            for lab, F, F_lab in zip(
+                tens.labels, tens.applied, [F] * len(tens.applied), strict=True
+            )
+        )
+        out.append(f"  tensioners ({tens.coverage}), applied tension per bolt: {applied}")
+        out.append(
+            f"  load transfer factor {tens.load_transfer_factor:.3g} "
+            f"({tens.load_transfer_basis}); no torque specification"
+        )
     if r.torque is not None:
         T = u.label("torque")
         out.append(
@@ -82,14 +95,14 @@ def flange_text(r: FlangeResult, units: str = "si") -> str:
             f"{u.fmt('torque', r.torque[1])}, max {u.fmt('torque', r.torque[2])} {T})"
         )
     out.append("")
-    fr = [f"{100 * p:g} %" for p in s.passes]
+    fr = [f"{100 * p:.4g} %" for p in r.pass_fractions]
     rows = []
     for i in range(n):
         rows.append(
             [str(i + 1), f"{360 * i / n:.1f}"]
             + [u.fmt("force", float(p[i])) for p in r.passes]
+            + ([] if tens else [u.fmt("force", float(r.compensated_targets[i]))])
             + [
-                u.fmt("force", float(r.compensated_targets[i])),
                 u.fmt("force", float(r.working_loads[i])),
                 u.fmt("force", float(r.service_bolt[i])),
                 u.fmt("force", float(r.service_gasket[i])),
@@ -99,8 +112,8 @@ def flange_text(r: FlangeResult, units: str = "si") -> str:
         table(
             ["bolt", "angle"]
             + [f"pass {k + 1} ({f}) [{F}]" for k, f in enumerate(fr)]
+            + ([] if tens else [f"1-pass target [{F}]"])
             + [
-                f"1-pass target [{F}]",
                 f"F_A [{F}]",
                 f"in service [{F}]",
                 f"gasket in service [{F}]",
@@ -109,19 +122,27 @@ def flange_text(r: FlangeResult, units: str = "si") -> str:
             right=[True] * (len(rows[0])),
         )
     )
-    orders = "; ".join(f"pass {k + 1} {pat}" for k, pat in enumerate(s.patterns))
-    out.append(
-        f"  patterns: {orders}; cross order: {'-'.join(str(b + 1) for b in r.orders[0])}"
-        if r.orders
-        else ""
-    )
     final = r.passes[-1]
-    out.append(
+    spread = (
         f"  after the last pass: {u.fmt('force', float(np.min(final)))} .. "
-        f"{u.fmt('force', float(np.max(final)))} {F}, spread {r.final_spread:.1%}; "
-        f"single pass with the compensated targets (in pass-1 order): spread "
-        f"{_spread(r.compensated_final):.2%}"
+        f"{u.fmt('force', float(np.max(final)))} {F}, spread {r.final_spread:.1%}"
     )
+    if tens is not None:
+        out.append(
+            "  passes: "
+            + "; ".join(f"pass {k + 1} {lab}" for k, lab in enumerate(r.pass_labels))
+            + " (% of the last pass's applied tension)"
+        )
+        out.append(spread)
+    else:
+        orders = "; ".join(f"pass {k + 1} {pat}" for k, pat in enumerate(r.pass_labels))
+        out.append(
+            f"  patterns: {orders}; cross order: {'-'.join(str(b + 1) for b in r.orders[0])}"
+        )
+        out.append(
+            f"{spread}; single pass with the compensated targets (in pass-1 order): spread "
+            f"{_spread(r.compensated_final):.2%}"
+        )
     out.append("")
     crow = []
     for c in r.checks:

@@ -173,7 +173,7 @@ def checks_rows(checks) -> list[list[object]]:
                 c.name,
                 f"{c.value:.4g} {c.unit}",
                 f"{c.relation} {c.limit:.4g} {c.unit}",
-                "inf" if math.isinf(m) else f"{m * 100:+.1f} %",
+                "inf" if math.isinf(m) else f"{round(m * 100, 1) + 0.0:+.1f} %",
                 "off" if c.skipped else ("pass" if c.passed else "FAIL"),
                 c.source,
             ]

@@ -47,7 +47,7 @@ def check_value(c, u: DisplayUnits) -> tuple[str, str]:
 
 def _margin(c) -> str:
     m = c.margin
-    return "inf" if math.isinf(m) else f"{m * 100:+.1f} %"
+    return "inf" if math.isinf(m) else f"{round(m * 100, 1) + 0.0:+.1f} %"
 
 
 def _mu(rng: tuple[float, float]) -> str:

@@ -144,10 +144,10 @@ def _by_design(r: FlangeResult) -> set[str]:
     s = r.spec
     if s.torque is not None or s.preload is not None:
         return set()
-    return {
-        "bolt permissible preload": {"assembly_preload"},
-        "gasket crush limit": {"gasket_crush"},
-    }.get(r.window_reasons[1], set())
+    reason = r.window_reasons[1]
+    if reason.startswith("bolt permissible preload"):  # also x the load transfer factor
+        return {"assembly_preload"}
+    return {"gasket crush limit": {"gasket_crush"}}.get(reason, set())
 
 
 def _governing(r: FlangeResult) -> Any:
@@ -167,8 +167,9 @@ def _summary(r: FlangeResult, u: DisplayUnits) -> str:
     active = [c for c in r.checks if c.skipped is None]
     at_limit = [c.name for c in active if c.name in _by_design(r)]
     verdict = verdict_html(r.checks, gov)
-    fr = " / ".join(f"{100 * p:g}" for p in s.passes)
-    passes = f"{len(s.passes)} pass{'es' if len(s.passes) != 1 else ''} ({fr} %)"
+    fr = " / ".join(f"{100 * p:.4g}" for p in r.pass_fractions)
+    k = len(r.pass_fractions)
+    passes = f"{k} pass{'es' if k != 1 else ''} ({fr} %)"
     if r.torque is not None:
         t0, t1, t2 = r.torque
         spec = (
@@ -177,6 +178,20 @@ def _summary(r: FlangeResult, u: DisplayUnits) -> str:
             f"<span>min {_q(u, 'torque', t1)} &middot; max {_q(u, 'torque', t2)}</span>"
             f"<span>{n} bolts, {passes}; thread friction {_e(_mu(s.thread_friction))}, "
             f"head friction {_e(_mu(s.head_friction))}</span></div>"
+        )
+    elif r.tensioning is not None:
+        t = r.tensioning
+        applied = "; ".join(
+            f"{_e(lab)}: {_q(u, 'force', F)}" for lab, F in zip(t.labels, t.applied, strict=True)
+        )
+        spec = (
+            f'<div class="spec"><span>Applied tension per bolt (tensioners, '
+            f"{_e(t.coverage)})</span>"
+            f'<span class="big">{_q(u, "force", t.applied[0])}</span>'
+            f"<span>{applied}</span>"
+            f"<span>{n} bolts; the nuts keep about {t.load_transfer_factor:.0%} "
+            f"(load transfer factor, {_e(t.load_transfer_basis)}); residual preload "
+            f"{_q(u, 'force', r.target)} nominal; no torque specification</span></div>"
         )
     else:
         spec = (
@@ -502,6 +517,7 @@ def _bolts(r: FlangeResult, u: DisplayUnits) -> str:
     s = r.spec
     n = s.bolt_count
     F = _lab(u, "force")
+    tens = r.tensioning
     rows = []
     for i in range(n):
         rows.append(
@@ -509,7 +525,7 @@ def _bolts(r: FlangeResult, u: DisplayUnits) -> str:
                 str(i + 1),
                 f"{360.0 * i / n:.1f}",
                 *(_n(u, "force", float(p[i])) for p in r.passes),
-                _n(u, "force", float(r.compensated_targets[i])),
+                *([] if tens else [_n(u, "force", float(r.compensated_targets[i]))]),
                 _n(u, "force", float(r.working_loads[i])),
                 _n(u, "force", float(r.service_bolt[i])),
                 _n(u, "force", float(r.service_gasket[i])),
@@ -517,9 +533,9 @@ def _bolts(r: FlangeResult, u: DisplayUnits) -> str:
         )
     heads = (
         ["bolt", "angle [&deg;]"]
-        + [f"pass {k + 1} ({100 * f:g} %)" for k, f in enumerate(s.passes)]
+        + [f"pass {k + 1} ({100 * f:.4g} %)" for k, f in enumerate(r.pass_fractions)]
+        + ([] if tens else ["1-pass target"])
         + [
-            "1-pass target",
             "working load F<sub>A</sub>",
             "bolt in service",
             "gasket in service",
@@ -532,23 +548,36 @@ def _bolts(r: FlangeResult, u: DisplayUnits) -> str:
     )
     # a short table stays on one page with its heading; a long one may break between rows
     keep = ' class="keep"' if n <= 16 else ""
+    comp_text = (
+        ""
+        if tens
+        else (
+            "the compensated target of a single pass (each bolt tightened once, in the order of "
+            "pass 1, to the value that leaves every bolt at the target once all are done), "
+        )
+    )
+    comp_after = (
+        ""
+        if tens
+        else f"; a single pass with the compensated targets ends with a spread of {comp_spread:.2%}"
+    )
     return (
         f'<section id="bolts"><div{keep}><h2>6. Bolt by bolt</h2>'
-        f'<p class="lead">Forces per bolt [{F}]: the preload after each tightening pass, the '
-        "compensated target of a single pass (each bolt tightened once, in the order of pass 1, "
-        "to the value that leaves every bolt at the target once all are done), the working load "
+        f'<p class="lead">Forces per bolt [{F}]: the preload after each tightening pass, '
+        f"{comp_text}the working load "
         "from pressure, axial force and bending moment, and the bolt and gasket-sector loads in "
         "service. Angles are measured from bolt 1; a positive bending moment loads bolt 1 most."
         f"</p>{table}</div>"
         f"<p class=meta>After the last pass the preloads spread by {r.final_spread:.1%} "
-        f"((max &minus; min)/mean); a single pass with the compensated targets ends with a "
-        f"spread of {comp_spread:.2%}. Equilibrium residual in service: "
+        f"((max &minus; min)/mean){comp_after}. Equilibrium residual in service: "
         f"{_q(u, 'force', r.equilibrium_residual)}.</p></section>"
     )
 
 
 def _passes(r: FlangeResult, u: DisplayUnits, figure: str) -> str:
     s = r.spec
+    if r.tensioning is not None:
+        return _tension_passes(r, u, figure)
     rows = []
     for k, (frac, pattern, order, forces) in enumerate(
         zip(s.passes, s.patterns, r.orders, r.passes, strict=True)
@@ -583,6 +612,51 @@ def _passes(r: FlangeResult, u: DisplayUnits, figure: str) -> str:
         "<p>Each pass turns every nut, in the order given, until its bolt carries the pass's "
         "share of the target; tightening a bolt compresses the gasket and the ring under it and "
         "so unloads its neighbours (elastic interaction, ring network of the flange).</p>"
+        f"{table}</div>{figure}</section>"
+    )
+
+
+def _tension_passes(r: FlangeResult, u: DisplayUnits, figure: str) -> str:
+    """The tensioning passes: which bolts, the applied tension, the preloads left."""
+    t = r.tensioning
+    assert t is not None
+    F = _lab(u, "force")
+    rows = []
+    for k, (label, bolts, applied, forces) in enumerate(
+        zip(t.labels, t.sets, t.applied, r.passes, strict=True)
+    ):
+        rows.append(
+            [
+                str(k + 1),
+                _e(label),
+                _n(u, "force", applied),
+                "-".join(str(b + 1) for b in bolts) if len(bolts) < r.spec.bolt_count else "all",
+                f"{_n(u, 'force', float(np.min(forces)))}&nbsp;..&nbsp;"
+                f"{_n(u, 'force', float(np.max(forces)))}",
+            ]
+        )
+    table = _table(
+        ["pass", "tensioners", f"applied tension [{F}]", "bolts", f"after the pass [{F}]"],
+        rows,
+        left={1, 3},
+        cls="small",
+    )
+    how = {
+        "all": "A tensioner on every bolt pulls all bolts at once; the nuts are run down and "
+        "the tools let go together.",
+        "half": "Tensioners on every other bolt: the first set is overtensioned so that, once "
+        "the second set is tensioned (which unloads the first through the gasket and the ring), "
+        "both sets end with the same mean preload; a check pass on the first set turns only "
+        "the nuts that are still short (common practice of 50 % tool coverage, from memory).",
+        "sequence": "One tensioner, bolt by bolt, in the order and shares of the passes; each "
+        "bolt tensioned unloads its neighbours (elastic interaction).",
+    }[t.coverage]
+    return (
+        '<section id="passes"><div class="keep"><h2>5. Tensioning passes</h2>'
+        f"<p>{_e(how)} When a tool lets go, its nut keeps about "
+        f"{t.load_transfer_factor:.0%} of the applied tension (load transfer factor, "
+        f"{_e(t.load_transfer_basis)}); the ring network of the flange carries the interaction "
+        "between bolts.</p>"
         f"{table}</div>{figure}</section>"
     )
 
@@ -648,7 +722,7 @@ def _bolts_csv(r: FlangeResult) -> str:
     for i, b in enumerate(d["bolts"]):
         row = [str(b["bolt"]), repr(float(b["angle_deg"]))]
         row += [repr(float(p[i])) for p in d["passes"]]
-        row += [repr(float(b[k])) for k in keys[2 + len(r.passes) :]]
+        row += ["" if b[k] is None else repr(float(b[k])) for k in keys[2 + len(r.passes) :]]
         w.writerow(row)
     return buf.getvalue()
 

@@ -115,6 +115,10 @@ def flange_scatter(
             f"uniform {det.assembly_range[0]:.4g}..{det.assembly_range[1]:.4g} N (each bolt)"
         )
 
+    pull = None
+    if det.tensioning is not None:  # each bolt's largest pull per unit preload left
+        pull = det.tensioning.peak / np.maximum(det.passes[-1], 1e-300)
+
     def one_block(b: int, m: int) -> dict[str, np.ndarray]:
         rng = block_rng(seed, b)
         muG = rng.uniform(muG_lo, muG_hi, (m, n))
@@ -128,7 +132,9 @@ def flange_scatter(
             tau = np.zeros((m, n))
         gasket = FM - loss[None, :]
         FS = FM + gain[None, :]
-        s_asm = np.sqrt((FM / thr.As) ** 2 + 3 * (0.75 * tau) ** 2)  # plastic W_p, as R7
+        # at assembly a tensioned bolt carries the tool's pull, above what its nut keeps
+        F_asm = FM * pull[None, :] if pull is not None else FM
+        s_asm = np.sqrt((F_asm / thr.As) ** 2 + 3 * (0.75 * tau) ** 2)  # plastic W_p, as R7
         s_srv = np.sqrt((FS / thr.As) ** 2 + 3 * (0.5 * tau) ** 2)
         gmin = gasket.min(axis=1)
         y_asm = np.any(s_asm > Rp, axis=1)

@@ -63,10 +63,18 @@ def flange_candidate_spec(
     if "bolt.allowable_stress" not in given:
         Sb, notes["bolt.allowable_stress"] = bolt_allowable_stress(grd, thread)
     Sa = base.allowable_stress_ambient if "bolt.allowable_stress_ambient" in given else Sb
-    patterns = base.patterns
+    patterns, passes, tensioning = base.patterns, base.passes, base.tensioning
     if "custom" in patterns:
         n_p = len(base.passes)
         patterns = ("cross",) * (n_p - 1) + ("circular" if n_p >= 3 else "cross",)
+    if method == "tension" and base.method != "tension":
+        # tensioners on every bolt at once, as the reader's default; the torque passes
+        # of the file do not apply
+        tensioning = None
+        passes, patterns = (0.3, 0.7, 1.0, 1.0), ("cross", "cross", "cross", "circular")
+        notes["tightening.tensioning"] = '"all" (a tensioner on every bolt)'
+    elif method != "tension":
+        tensioning = None
     spec = replace(
         base,
         thread=thread,
@@ -85,6 +93,8 @@ def flange_candidate_spec(
         torque=None,
         preload=None,
         patterns=patterns,
+        passes=passes,
+        tensioning=tensioning,
         order=None,
         given=frozenset(k for k in given if not k.startswith("nut"))
         - {"bolt.hole", "bolt.bearing_diameter", "tightening.torque", "tightening.preload"},
