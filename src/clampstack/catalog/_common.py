@@ -9,9 +9,13 @@ from __future__ import annotations
 
 import csv
 import re
+from collections.abc import Iterable
 from functools import cache
+from typing import TypeVar
 
 from clampstack.errors import InputError
+
+T = TypeVar("T")
 
 #: Package that holds the data directory.
 _DATA_PACKAGE = "clampstack"
@@ -115,6 +119,17 @@ def unknown(
         msg += "; did you mean: " + ", ".join(hits[:5]) + "?"
     msg += f" ({hint})"
     return InputError(msg)
+
+
+def by_key(items: Iterable[T], key: str, kind: str, hint: str) -> T:
+    """The item of ``items`` whose ``.key`` matches ``key`` (case and punctuation ignored);
+    else the :func:`unknown` error for ``kind`` with near matches and ``hint``."""
+    items = tuple(items)
+    want = squash(key)
+    for x in items:
+        if squash(x.key) == want:  # type: ignore[attr-defined]
+            return x
+    raise unknown(kind, key, [x.key for x in items], hint)  # type: ignore[attr-defined]
 
 
 def fmt(value: float | None, digits: int = 3) -> str:

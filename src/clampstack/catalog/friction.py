@@ -12,7 +12,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 from functools import cache
 
-from clampstack.catalog._common import read_csv, squash, unknown
+from clampstack.catalog._common import by_key, read_csv
 
 
 @dataclass(frozen=True)
@@ -60,27 +60,12 @@ def _tools() -> tuple[Tool, ...]:
 def lubricant(key: str) -> Lubricant:
     """The lubricant or coating ``key`` (case and punctuation ignored); InputError with near
     matches if unknown."""
-    want = squash(key)
-    for x in _lubricants():
-        if squash(x.key) == want:
-            return x
-    raise unknown(
-        "lubricant",
-        key,
-        [x.key for x in _lubricants()],
-        "list them with `clampstack catalog friction`",
-    )
+    return by_key(_lubricants(), key, "lubricant", "list them with `clampstack catalog friction`")
 
 
 def tool(key: str) -> Tool:
     """The torque tool class ``key``; InputError with near matches if unknown."""
-    want = squash(key)
-    for x in _tools():
-        if squash(x.key) == want:
-            return x
-    raise unknown(
-        "torque tool", key, [x.key for x in _tools()], "list them with `clampstack catalog tools`"
-    )
+    return by_key(_tools(), key, "torque tool", "list them with `clampstack catalog tools`")
 
 
 def friction_listing() -> tuple[list[str], list[list[str]]]:

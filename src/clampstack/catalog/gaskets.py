@@ -14,7 +14,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 from functools import cache
 
-from clampstack.catalog._common import fmt, read_csv, squash, unknown
+from clampstack.catalog._common import by_key, fmt, read_csv
 
 PSI = 6894.757293168361
 MPA = 1e6
@@ -62,13 +62,7 @@ def gaskets() -> list[Gasket]:
 
 def gasket(key: str) -> Gasket:
     """The gasket type called ``key`` (case and punctuation ignored); InputError if unknown."""
-    want = squash(key)
-    for g in _all():
-        if squash(g.key) == want:
-            return g
-    raise unknown(
-        "gasket type", key, [g.key for g in _all()], "list them with `clampstack catalog gaskets`"
-    )
+    return by_key(_all(), key, "gasket type", "list them with `clampstack catalog gaskets`")
 
 
 def gasket_listing() -> tuple[list[str], list[list[str]]]:

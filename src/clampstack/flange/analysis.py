@@ -571,7 +571,7 @@ def simulate_tensioning(
     * ``sequence``: one tool, bolt by bolt, in the order and fractions of the passes; the
       nominal residual is LTF x the last pass's tension.
 
-    ``hint``: a sequence of the same flange at another level; its overtension starts the
+    ``hint``: a sequence of the same spec at another level; its overtension starts the
     search (secant on the overtension with the pull held; for a given residual, a secant
     on the pull around it).  Returns the sequence and the ring in its state after the last pass.
     """
@@ -589,15 +589,11 @@ def simulate_tensioning(
         loss = transfer_loss(ring, ltf)
         out, peak = [], np.zeros(n)
         for bolts, F in zip(sets, applied, strict=True):
-            if mode == "sequence":
-                for b in bolts:
-                    f = ring.tension([b], F, loss * F, zero)
-                    peak = np.maximum(peak, f)
-                    peak[b] = max(peak[b], F)
-            else:
-                f = ring.tension(bolts, F, loss * F, zero)
+            # one tool moves bolt by bolt; otherwise the tools of a pass act together
+            for group in [[b] for b in bolts] if mode == "sequence" else [bolts]:
+                f = ring.tension(group, F, loss * F, zero)
                 peak = np.maximum(peak, f)
-                peak[bolts] = np.maximum(peak[bolts], F)
+                peak[group] = np.maximum(peak[group], F)
             out.append(f.copy())
         return out, peak, ring
 
@@ -623,7 +619,7 @@ def simulate_tensioning(
         if residual is not None:
             # the pull that leaves the residual: secant on the pull (the mean after the
             # second pass is nearly proportional to it), each a search on r alone
-            p0 = residual / ltf * (hint.overtension if hint and hint.coverage == "half" else 1.3)
+            p0 = residual / ltf * (hint.overtension if hint else 1.3)
             t0, _ = simulate_tensioning(spec, None, orders, hint=hint, pull=p0)
             p1 = p0 * residual / t0.residual
             for _ in range(30):
@@ -644,7 +640,7 @@ def simulate_tensioning(
                 a, b = float(np.mean(p[-1][first])), float(np.mean(p[-1][second]))
                 return (a - b) / pull, 0.5 * (a + b)
 
-            if hint is not None and hint.coverage == "half":
+            if hint is not None:
                 r0, r1 = hint.overtension * 0.995, hint.overtension
             else:
                 r0, r1 = 1.0, 1.2
@@ -920,15 +916,13 @@ def analyse_flange(spec: FlangeSpec, compensate: bool = True) -> FlangeResult:
         (op_min, "gasket load in operation (H_p/N plus the loss in service)"),
     )
     crush = g.max_stress * g.area / n
-    bolt_hi, bolt_reason = FMzul, "bolt permissible preload"
-    if spec.method == "tension":
-        ltf, _ = load_transfer(spec)
-        bolt_hi = FMzul * ltf
+    bolt_reason = "bolt permissible preload"
+    if spec.method == "tension":  # the window's top follows from the tensioning below
         bolt_reason = (
             "bolt permissible preload reached by the tensioner's largest pull (x load transfer "
             "and interaction)"
         )
-    hi_w, hi_reason = min((crush, "gasket crush limit"), (bolt_hi, bolt_reason))
+    hi_w, hi_reason = min((crush, "gasket crush limit"), (FMzul, bolt_reason))
 
     # --- target and tightening
     torque = None
@@ -1027,9 +1021,7 @@ def analyse_flange(spec: FlangeSpec, compensate: bool = True) -> FlangeResult:
     assembly_bolts = passes[-1]
     _, asm_bolts, asm_gasket, _ = ring.solve(np.zeros(n))
     comp_order = orders[0]
-    if tens is not None:  # compensated single-pass targets are a torque-pass figure
-        comp_t, comp_final = np.full(n, np.nan), np.full(n, target)
-    elif compensate:
+    if compensate and tens is None:  # compensated single-pass targets: a torque-pass figure
         comp_t, comp_final = compensated_targets(spec, target, comp_order)
     else:
         comp_t, comp_final = np.full(n, np.nan), np.full(n, target)

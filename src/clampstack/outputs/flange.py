@@ -78,10 +78,8 @@ def flange_text(r: FlangeResult, units: str = "si") -> str:
     tens = r.tensioning
     if tens is not None:
         applied = ", ".join(
-            f"{lab} {u.fmt('force', F)} {F_lab}"
-            for lab, F, F_lab in zip(
-                tens.labels, tens.applied, [F] * len(tens.applied), strict=True
-            )
+            f"{lab} {u.fmt('force', Fa)} {F}"
+            for lab, Fa in zip(tens.labels, tens.applied, strict=True)
         )
         out.append(f"  tensioners ({tens.coverage}), applied tension per bolt: {applied}")
         out.append(
