@@ -40,6 +40,7 @@ KINDS: dict[str, tuple[str, str, str]] = {
     "angle": ("", "rad", "an angle"),
     "dimensionless": ("", "", "a plain number"),
     "moment": ("[force] * [length]", "N*m", "a moment"),
+    "second_moment": ("[length] ** 4", "m**4", "a second moment of area"),
 }
 
 _NUMBER = re.compile(r"^\s*([+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?)\s*(.*?)\s*$")
@@ -268,6 +269,7 @@ def _example_unit(kind: str) -> str:
         "temperature_difference": "K",
         "angle": "deg",
         "moment": "N*m",
+        "second_moment": "mm^4",
     }.get(kind, "")
 
 

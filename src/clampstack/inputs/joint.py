@@ -13,9 +13,11 @@ from ..catalog.parts import washer_size
 from ..errors import InputError
 from ..joint import geometry
 from ..joint.checks import CHECK_NAMES
+from ..joint.eccentric import Interface, substitute_inertia
 from ..joint.model import (
     ROOM,
     BoltSpec,
+    EccentricSpec,
     JointSpec,
     LayerSpec,
     NutSpec,
@@ -350,8 +352,96 @@ SERVICE = Schema(
             default="0.5",
             positive=True,
         ),
+        Key(
+            "bending_moment",
+            "range:moment",
+            "bending moment M_B on the interface per bolt, value or range acting with the "
+            "axial load's min..max (needs [eccentricity]); positive in the sense of an axial "
+            "load at positive load_offset",
+            default="0 N*m",
+        ),
         Key("temperature", "temperature", "service temperature", default="assembly temperature"),
         Key("assembly_temperature", "temperature", "temperature at assembly", default="20 degC"),
+    ),
+)
+
+INTERFACE = Schema(
+    "eccentricity.interface",
+    "The clamped interface: width and length (a rectangle, length along the bolt-load line), "
+    "a diameter (a circle), or area and second moment.",
+    (
+        Key("width", "length", "rectangle: extent across the bolt-load line", positive=True),
+        Key("length", "length", "rectangle: extent along the bolt-load line", positive=True),
+        Key("diameter", "length", "circle: diameter", positive=True),
+        Key("area", "area", "area A_D (with second_moment)", positive=True),
+        Key(
+            "second_moment",
+            "second_moment",
+            "second moment of area I_BT about the axis of symmetry, for bending along the "
+            "bolt-load line (with area)",
+            positive=True,
+        ),
+    ),
+)
+
+ECCENTRICITY = Schema(
+    "eccentricity",
+    "Eccentric clamping and loading (VDI 2230-1:2015, 5.1.2.3 and 5.3.2). Offsets are measured "
+    "from the interface's axis of symmetry along the line through bolt and load, positive "
+    "toward the load's side. Absent: the joint is concentric.",
+    (
+        Key("bolt_offset", "length", "s_sym: the bolt axis's offset", default="0 mm"),
+        Key("load_offset", "length", "a: the axial load's line of action", default="0 mm"),
+        Key(
+            "edge_distance",
+            "length",
+            "u: the edge that opens first (signed, negative on the far side)",
+            default="the edge of the interface that opens first under the load",
+        ),
+        Key("interface", "table", "the interface's shape", required=True, schema=INTERFACE),
+        Key(
+            "bending_inertia",
+            "second_moment",
+            "I_Bers: substitute moment of inertia of the deformation body (override)",
+            default="VDI 2230-1 cone and sleeve, at most I_BT",
+            positive=True,
+        ),
+    ),
+)
+
+LOAD_INTRODUCTION = Schema(
+    "load_introduction",
+    "The load introduction factor n from the joint's geometry: VDI 2230-1:2015, 5.2.2.2, "
+    "joint types SV1 to SV6 (table values from memory). A given service.load_height overrides.",
+    (
+        Key(
+            "joint_type",
+            "integer",
+            "VDI 2230-1 joint type SV1..SV6: 1 loads introduced at the head and nut side "
+            "faces, through 6 at the interface",
+            required=True,
+        ),
+        Key(
+            "height",
+            "length",
+            "h: height of the basic solid (the clamped part the load enters)",
+            default="the clamp length l_K",
+            positive=True,
+        ),
+        Key(
+            "load_distance",
+            "length",
+            "a_k: distance of the load's entry from the edge of the basic solid",
+            default="0 mm",
+            minimum=0.0,
+        ),
+        Key(
+            "connection_length",
+            "length",
+            "l_A: length of the connecting solid between the basic solid and the load's entry",
+            default="0 mm",
+            minimum=0.0,
+        ),
     ),
 )
 
@@ -431,6 +521,13 @@ JOINT = Schema(
         Key("tightening", "table", "tightening", schema=TIGHTENING),
         Key("service", "table", "service loads and temperatures", schema=SERVICE),
         Key("requirements", "table", "requirements", schema=REQUIREMENTS),
+        Key("eccentricity", "table", "eccentric clamping and loading", schema=ECCENTRICITY),
+        Key(
+            "load_introduction",
+            "table",
+            "the load introduction factor n from the joint type",
+            schema=LOAD_INTRODUCTION,
+        ),
         Key("skip", "tables", "checks switched off, each with a reason", schema=SKIP),
         Key(
             "distributions",
@@ -497,7 +594,10 @@ def joint_from_data(data: dict[str, Any]) -> JointSpec:
     rough, amount = embedding(raw["embedding"], rec)
     DKm = 0.5 * ((dW if nut is None else nut.bearing_diameter) + layers[0].hole)
     tight = tightening(raw["tightening"] or empty(TIGHTENING), thr, grd, rec, DKm)
-    service = service_loads(srv, T_srv, T_asm, rec)
+    service = service_loads(
+        srv, T_srv, T_asm, rec, load_introduction(raw["load_introduction"], lK, rec)
+    )
+    ecc = eccentricity(raw["eccentricity"], layers, dW, tapped is not None, service, rec)
     requirements = requirement_table(raw["requirements"], service, rec)
     skips = skipped_checks(raw["skip"])
     given = given_keys(raw)
@@ -519,6 +619,7 @@ def joint_from_data(data: dict[str, Any]) -> JointSpec:
         if raw["distributions"] is None
         else parse_distributions(raw["distributions"]),
         given=given,
+        eccentric=ecc,
     )
     geometry.check_fit(spec, given)
     return spec
@@ -707,13 +808,132 @@ def embedding(emb: dict[str, Any] | None, rec: Defaults) -> tuple[float, float |
     return rough, emb["amount"]
 
 
-def service_loads(srv: dict[str, Any], T_srv: float, T_asm: float, rec: Defaults) -> ServiceSpec:
-    """``[service]``: axial load range, shear load, load introduction factor n (0.5)."""
+def service_loads(
+    srv: dict[str, Any],
+    T_srv: float,
+    T_asm: float,
+    rec: Defaults,
+    table_n: tuple[float, str] | None = None,
+) -> ServiceSpec:
+    """``[service]``: axial load range, shear load, bending moment, load introduction factor n.
+
+    ``n``: given, else from ``[load_introduction]`` (``table_n``: value and how it was
+    found), else 0.5.
+    """
     FA = srv["axial_load"] if srv["axial_load"] is not None else (0.0, 0.0)
-    n = rec.pick("service.load_height", srv["load_height"], 0.5, "0.5")
+    if table_n is not None and srv["load_height"] is None:
+        n = rec.pick("service.load_height", None, table_n[0], table_n[1])
+    else:
+        n = rec.pick("service.load_height", srv["load_height"], 0.5, "0.5")
+        if table_n is not None:
+            rec.note(
+                "load_introduction",
+                f"not used: the given service.load_height = {n:g} overrides the table's "
+                f"n = {table_n[0]:.3g}",
+            )
     if n > 1.0:
         raise InputError("load_height n must lie in (0, 1]", key="service.load_height")
-    return ServiceSpec(FA, srv["shear_load"] or 0.0, n, T_srv, T_asm)
+    MB = srv["bending_moment"] if srv["bending_moment"] is not None else (0.0, 0.0)
+    return ServiceSpec(FA, srv["shear_load"] or 0.0, n, T_srv, T_asm, MB)
+
+
+def load_introduction(
+    li: dict[str, Any] | None, lK: float, rec: Defaults
+) -> tuple[float, str] | None:
+    """``[load_introduction]``: n from the VDI 2230-1 joint types table, and its basis."""
+    if li is None:
+        return None
+    from ..catalog.load_introduction import joint_types, load_introduction_factor
+
+    jt = li["joint_type"]
+    if jt not in joint_types():
+        raise InputError(
+            f"joint_type must be one of {', '.join(map(str, joint_types()))} (SV1..SV6), got {jt}",
+            key="load_introduction.joint_type",
+        )
+    h = li["height"]
+    if h is None:
+        h = lK
+        rec.note("load_introduction.height", f"{h * 1e3:.4g} mm (the clamp length)")
+    ak = li["load_distance"] or 0.0
+    lA = li["connection_length"] or 0.0
+    n, source = load_introduction_factor(jt, ak / h, lA / h)
+    return n, (f"{n:.3g} (joint type SV{jt}, a_k/h = {ak / h:.3g}, l_A/h = {lA / h:.3g}; {source})")
+
+
+def eccentricity(
+    e: dict[str, Any] | None,
+    layers: tuple[LayerSpec, ...],
+    dW: float,
+    tapped: bool,
+    service: ServiceSpec,
+    rec: Defaults,
+) -> EccentricSpec | None:
+    """``[eccentricity]``: offsets, interface shape and the deformation body's inertia."""
+    if e is None:
+        if any(service.bending_moment):
+            raise InputError(
+                "a bending moment needs an [eccentricity] table (the interface that carries it)",
+                key="service.bending_moment",
+            )
+        return None
+    itf = {k: v for k, v in e["interface"].items() if v is not None}
+    if set(itf) == {"width", "length"}:
+        interface = Interface.rectangle(itf["width"], itf["length"])
+    elif set(itf) == {"diameter"}:
+        interface = Interface.circle(itf["diameter"])
+    elif set(itf) == {"area", "second_moment"}:
+        interface = Interface.given(itf["area"], itf["second_moment"])
+    else:
+        raise InputError(
+            "give width and length (a rectangle), diameter (a circle), or area and "
+            f"second_moment; got {', '.join(sorted(itf)) or 'nothing'}",
+            key="eccentricity.interface",
+        )
+    s = e["bolt_offset"] or 0.0
+    a = e["load_offset"] or 0.0
+    u = e["edge_distance"]
+    h = interface.half
+    hole = max(lay.hole for lay in layers)
+    if interface.shape != "given":
+        if abs(s) + 0.5 * hole >= h:
+            raise InputError(
+                f"the bolt's hole must lie inside the interface: |bolt_offset| + hole/2 = "
+                f"{(abs(s) + 0.5 * hole) * 1e3:.4g} mm reaches its edge at {h * 1e3:.4g} mm",
+                key="eccentricity.bolt_offset",
+            )
+        if interface.width is not None and interface.width <= hole:
+            raise InputError(
+                f"the interface ({interface.width * 1e3:.4g} mm wide) is not wider than the hole "
+                f"({hole * 1e3:.4g} mm)",
+                key="eccentricity.interface.width",
+            )
+        if u is not None and abs(u) > h * (1 + 1e-9):
+            raise InputError(
+                f"edge_distance {u * 1e3:.4g} mm lies outside the interface (its edges are at "
+                f"+-{h * 1e3:.4g} mm)",
+                key="eccentricity.edge_distance",
+            )
+    elif u is None:
+        raise InputError(
+            "give edge_distance: an interface given by area and second_moment has no known edge",
+            key="eccentricity.edge_distance",
+        )
+    if u is not None and u == 0:
+        raise InputError(
+            "edge_distance must not be zero (the edge is away from the axis)",
+            key="eccentricity.edge_distance",
+        )
+    if u is None:
+        rec.note("eccentricity.edge_distance", "the edge that opens first under the load")
+    lK = sum(lay.thickness for lay in layers)
+    ods = [lay.outer_diameter for lay in layers if lay.outer_diameter and lay.kind == "plate"]
+    I_Bers, basis = substitute_inertia(dW, lK, min(ods) if ods else None, tapped, interface)
+    if e["bending_inertia"] is not None:
+        I_Bers, basis = e["bending_inertia"], "given"
+    else:
+        rec.note("eccentricity.bending_inertia", f"{I_Bers * 1e12:.4g} mm^4 ({basis})")
+    return EccentricSpec(s, a, u, interface, I_Bers, basis)
 
 
 def requirement_table(

@@ -28,7 +28,7 @@ the same rules serve ``check`` (one state, from the network) and ``sweep``
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass, field
+from dataclasses import dataclass, field, replace
 from typing import Any
 
 import numpy as np
@@ -43,6 +43,12 @@ from ..components import (
 )
 from ..display import Shown
 from .checks import Check
+from .eccentric import (
+    ContactState,
+    EccentricJoint,
+    bolt_bending_stress,
+    first_opening_edge,
+)
 from .model import JointSpec
 from .prepare import (
     Prepared,
@@ -91,11 +97,14 @@ def evaluate_checks(
     bolt_load_mean: Any | None,
     residual_min: Any,
     separation_load: Any,
+    opening: CheckRow | None = None,
+    fatigue_detail: str = "",
 ) -> tuple[list[CheckRow], list[str]]:
     """The check chain on floats or arrays (VDI 2230-1 R7-R12); returns rows and notes.
 
     ``FM_check`` is the assembly preload of R8-R10 (:meth:`Prepared.check_preload`);
     ``bolt_load_max`` and ``bolt_load_mean`` come from it (:func:`check_bolt_loads`).
+    ``opening`` (eccentric joints, :func:`opening_row`) takes the place of ``separation``.
     """
     s = prep.spec
     b, tr, srv, rq = s.bolt, s.tightening, s.service, s.requirements
@@ -169,6 +178,7 @@ def evaluate_checks(
                 "<=",
                 f"VDI 2230-1:2015, 5.5.3, R9 (sigma_ASV, {how}; S_D = {rq.fatigue_safety:g}; "
                 "formulas from memory)",
+                fatigue_detail,
             )
         )
     else:
@@ -186,7 +196,9 @@ def evaluate_checks(
                 "VDI 2230-1:2015, 5.5.4, R2/R11 (F_KR,min >= F_Kerf)",
             )
         )
-    if FA_hi > 0:
+    if opening is not None:
+        rows.append(opening)
+    elif FA_hi > 0:
         rows.append(
             CheckRow(
                 "separation",
@@ -404,6 +416,8 @@ class JointResult(Shown):
     cycle: Any = None  # permanent-loss cycle (clampstack.joint.plastic.CycleResult)
     angle: dict[str, Any] | None = None  # method angle (Prepared.method_info)
     tension: dict[str, Any] | None = None  # method tension: load transfer (Prepared.method_info)
+    eccentric: dict[str, Any] | None = None  # eccentric clamping and loading (eccentric_summary)
+    eccentric_joint: EccentricJoint | None = None  # at service temperature (for the figures)
 
     @property
     def preload_at_limit_by_design(self) -> bool:
@@ -521,7 +535,17 @@ class JointResult(Shown):
                 "bolt_load_max_permissible_N": self.bolt_load_max_permissible,
                 "residual_clamp_load_min_N": self.residual_clamp_min,
                 "required_clamp_load_N": self.required_clamp_load,
-                "separation_load_N": self.separation_load,
+                "separation_load_N": None if self.eccentric else self.separation_load,
+                **(
+                    {
+                        "bending_moment_min_Nm": s.service.bending_moment[0],
+                        "bending_moment_max_Nm": s.service.bending_moment[1],
+                        "opening_clamp_load_N": self.eccentric["opening_clamp_load_N"],
+                        "opening_load_N": self.eccentric["opening_load_N"],
+                    }
+                    if self.eccentric
+                    else {}
+                ),
             },
             "states": states,
             "checks": [c.to_dict() for c in self.checks],
@@ -530,6 +554,10 @@ class JointResult(Shown):
             "assumptions": list(self.assumptions),
             "defaults": dict(self.defaults),
         }
+        if self.eccentric is not None:
+            out["eccentric"] = {
+                k: v for k, v in self.eccentric.items() if k not in ("notes", "knee_N")
+            }
         if self.cycle is not None:
             out["preload"]["after_cycle_min_N"] = self.cycle.preload_after[0]
             out["preload"]["after_cycle_max_N"] = self.cycle.preload_after[1]
@@ -609,7 +637,12 @@ def analyse(spec: JointSpec) -> JointResult:
     phi_n_s = n * sp_s.load_factor_K
     th_bolt, th_clamp = (float(x) for x in model.thermal(T_srv))
     FA_lo, FA_hi = srv.axial_load
+    MB_lo, MB_hi = srv.bending_moment
     fZ = prep.embedding_amount
+    ecc = eccentric_joints(spec, model) if spec.eccentric is not None else None
+    contact: dict[tuple[str, str], ContactState] = {}
+    if ecc is not None:
+        phi_n, phi_n_s = ecc[0].phi_en, ecc[1].phi_en
 
     def branch(FM: float, embed: bool) -> dict[str, tuple[float, float]]:
         misfit = -FM * (dSa + dPa)
@@ -621,10 +654,17 @@ def analyse(spec: JointSpec) -> JointResult:
             "assembly": solve_service(asm, 0.0),
             "embedded": solve_service(emb, 0.0),
             "temperature": solve_service(hot, 0.0),
-            "service_max": solve_service(hot, FA_hi),
         }
-        if FA_lo != FA_hi:
-            out["service_min"] = solve_service(hot, FA_lo)
+        loads = {"service_max": (FA_hi, MB_hi)}
+        if (FA_lo, MB_lo) != (FA_hi, MB_hi):
+            loads["service_min"] = (FA_lo, MB_lo)
+        for key, (fa, mb) in loads.items():
+            if ecc is None:
+                out[key] = solve_service(hot, fa)
+            else:  # the VDI linear relations, or the contact model past opening
+                st = ecc[1].state(out["temperature"][0], fa, mb)
+                contact[("min" if embed else "max", key)] = st
+                out[key] = (st.bolt_load, st.clamp_load)
         return out
 
     lo = branch(prep.assembly_min, embed=True)
@@ -645,10 +685,19 @@ def analyse(spec: JointSpec) -> JointResult:
     FV_T = lo["temperature"][1]  # clamp load at service temperature, no working load
     separation_load = max(FV_T, 0.0) / (1.0 - phi_n_s)
     residual_min = min(v[1] for key, v in lo.items() if key.startswith("service"))
+    ecc_info = None
+    if ecc is not None:
+        ecc_info = eccentric_summary(spec, ecc[1], FV_T, contact)
+        separation_load = ecc_info["knee_N"]
 
     def check_loads(FM: float) -> tuple[float, float]:
         # R8-R10 loads from the check preload (VDI 2230-1 rule of the thermal term)
         FV_hot = service_preload(FM, dSa + dPa, dSs + dPs, th_bolt - th_clamp)
+        if ecc is not None:
+            FV = max(float(FV_hot), FM)
+            up = ecc[1].state(FV, FA_hi, MB_hi).bolt_load
+            down = ecc[1].state(FV, FA_lo, MB_lo).bolt_load
+            return max(FM, FV, up, down), 0.5 * (up + down)
         bm, mean_load = check_bolt_loads(FM, FV_hot, phi_n_s, FA_lo, FA_hi)
         return float(bm), float(mean_load)
 
@@ -658,21 +707,51 @@ def analyse(spec: JointSpec) -> JointResult:
     # requirements: clamp load (VDI 2230-1 R2) and minimum assembly preload (R5)
     FQ = srv.shear_load
     slip_need = FQ * rq.slip_safety / rq.slip_friction if FQ > 0 else 0.0
-    FKerf = max(rq.residual_clamp_load, slip_need)
+    load_loss = (1 - phi_n_s) * max(FA_hi, 0.0)
+    opening = None
+    fatigue_detail = ""
+    if ecc_info is not None:
+        # VDI 2230-1 R2: F_Kerf >= max(F_KQ, F_KP + F_KA), F_KA the clamp load against opening
+        FKab = ecc_info["opening_clamp_load_N"] or 0.0
+        FKerf = max(rq.residual_clamp_load + FKab, slip_need)
+        load_loss = max(
+            (1 - phi_n_s) * FA_hi - ecc[1].phi_m * MB_hi,
+            (1 - phi_n_s) * FA_lo - ecc[1].phi_m * MB_lo,
+            0.0,
+        )
+        opening = opening_row(ecc_info, residual_min)
+    else:
+        FKerf = max(rq.residual_clamp_load, slip_need)
     thermal_loss = max(0.0, -thermal_change)
-    required_FM = FKerf + (1 - phi_n_s) * max(FA_hi, 0.0) + prep.embedding_loss + thermal_loss
+    required_FM = FKerf + load_loss + prep.embedding_loss + thermal_loss
 
     amplitude = mean = None
-    alternating = FA_lo != FA_hi
+    alternating = (FA_lo, MB_lo) != (FA_hi, MB_hi)
     if alternating:
         amplitude = max(
             abs(lo["service_max"][0] - lo["service_min"][0]),
             abs(hi["service_max"][0] - hi["service_min"][0]),
         ) / (2 * spec.bolt.thread.As)
         mean = mean_check
+        if ecc_info is not None:
+            bend = ecc_info["bending_amplitude_MPa"] * 1e6
+            fatigue_detail = (
+                f"axial {amplitude / 1e6:.4g} MPa + bending {bend / 1e6:.4g} MPa "
+                "(VDI 2230-1:2015, 5.5.3, sigma_SAb; eccentric)"
+            )
+            amplitude = amplitude + bend
     T_b = spec.bolt.temperature
     rows, check_notes = evaluate_checks(
-        prep, T_b, FM_check, bolt_load_max, amplitude, mean, residual_min, separation_load
+        prep,
+        T_b,
+        FM_check,
+        bolt_load_max,
+        amplitude,
+        mean,
+        residual_min,
+        separation_load,
+        opening,
+        fatigue_detail,
     )
     # the same checks with the other preload, shown beside them as information
     basis = prep.check_basis
@@ -691,6 +770,8 @@ def analyse(spec: JointSpec) -> JointResult:
             mean_o if alternating else None,
             residual_min,
             separation_load,
+            opening,
+            fatigue_detail,
         )
         m_o = margins(rows_o)
         for r in rows_o:
@@ -754,8 +835,10 @@ def analyse(spec: JointSpec) -> JointResult:
     from .plastic import permanent_loss_cycle
 
     notes = list(prep.notes) + check_notes
+    if ecc_info is not None:
+        notes.extend(ecc_info["notes"])
     try:
-        cycle = permanent_loss_cycle(prep)
+        cycle = permanent_loss_cycle(prep) if ecc is None else None
     except SolveError:
         cycle = None
         notes.append(
@@ -764,7 +847,13 @@ def analyse(spec: JointSpec) -> JointResult:
             "yielding bolt or bearing faces can carry); the permanent preload loss cannot be "
             "given. See the failing checks."
         )
-    checks = checks + plastic_checks(cycle, skip)
+    if ecc is None:
+        checks = checks + plastic_checks(cycle, skip)
+    else:
+        notes.append(
+            "The elastic-plastic cycle (plastic_collapse, cycle_yield) is not modelled for "
+            "eccentric joints: the working-stress check R8 keeps the bolt elastic."
+        )
     present = {c.name for c in checks}
     for name, reason in spec.skips:
         if name not in present:
@@ -817,4 +906,198 @@ def analyse(spec: JointSpec) -> JointResult:
         cycle=cycle,
         angle=prep.method_info if spec.tightening.method == "angle" else None,
         tension=prep.method_info if spec.tightening.method == "tension" else None,
+        eccentric=ecc_info,
+        eccentric_joint=None if ecc is None else ecc[1],
+    )
+
+
+# --------------------------------------------------------------------------- eccentric
+
+
+def eccentric_joints(
+    spec: JointSpec, model: TemperatureModel
+) -> tuple[EccentricJoint, EccentricJoint]:
+    """The eccentric joint at assembly and at service temperature, the opening edge resolved.
+
+    ``delta_P`` of the :class:`EccentricJoint` is the concentric resilience: the model's
+    resilience is ``delta_P*`` for an eccentric joint (:mod:`clampstack.joint.thermal`).
+    Without a given ``edge_distance`` the edge is the one that opens first under the
+    maximum load (:func:`~clampstack.joint.eccentric.first_opening_edge`).
+    """
+    e = spec.eccentric
+    assert e is not None
+    srv = spec.service
+    s2 = e.bolt_offset**2
+
+    def make(dS: float, dP: float, beta: float, u: float) -> EccentricJoint:
+        return EccentricJoint(
+            dS, dP - s2 * beta, beta, srv.load_height, e.bolt_offset, e.load_offset, u, e.interface
+        )
+
+    dSs, dPs = (float(x) for x in model.resiliences(srv.temperature))
+    beta_s = float(model.bending(srv.temperature))
+    ej_s = make(dSs, dPs, beta_s, e.edge_distance or e.interface.half)
+    if e.edge_distance is None:
+        ej_s = replace(
+            ej_s,
+            u=first_opening_edge(ej_s, 1.0, srv.axial_load[1], srv.bending_moment[1]),
+        )
+    dSa, dPa = model.resiliences_at_assembly()
+    return make(dSa, dPa, model.bending_at_assembly(), ej_s.u), ej_s
+
+
+def bending_length(spec: JointSpec, model: TemperatureModel) -> float:
+    """``l_ers`` [m]: the bolt's substitute bending length referred to the stress diameter.
+
+    ``l_ers = sum l_i (A_S / A_i)^2`` over the segments of the axial model (the same
+    substitute lengths for head, engaged thread and nut; VDI 2230-1:2015, 5.5.3, from
+    memory): a segment's bending resilience ``l_i / (E I_i)`` with ``I ~ A^2``.
+    """
+    As = spec.bolt.thread.As
+    total = 0.0
+    for (_, length), term in zip(model.bolt_segments, model.bolt_terms, strict=True):
+        if length <= 0:
+            continue
+        area = length / term.coef
+        total += length * (As / area) ** 2
+    return total
+
+
+def eccentric_summary(
+    spec: JointSpec,
+    ej: EccentricJoint,
+    FV_T: float,
+    contact: dict[tuple[str, str], ContactState],
+) -> dict[str, Any]:
+    """Opening load, clamp load against opening, bolt bending and contact (SI; JSON-ready)."""
+    e = spec.eccentric
+    assert e is not None
+    srv = spec.service
+    FA_lo, FA_hi = srv.axial_load
+    MB_lo, MB_hi = srv.bending_moment
+    i = ej.interface
+    at_assembly = ej.interface.core + ej.s * ej.u <= 0
+    notes: list[str] = []
+    FKab = None
+    if not at_assembly:
+        FKab = max(ej.opening_clamp_load(FA_hi, MB_hi), ej.opening_clamp_load(FA_lo, MB_lo))
+    lam = ej.opening_ratio(FV_T, FA_hi, MB_hi)
+    finite = math.isfinite(lam)
+    opening_load = lam * FA_hi if finite and FA_hi > 0 else None
+    opening_moment = lam * MB_hi if finite and MB_hi != 0 else None
+    knee = opening_load if opening_load is not None else max(FV_T, 0.0) / (1 - ej.phi_en)
+    # bolt bending: sigma_b = E_S d_S gamma / (2 l_ers)
+    model = TemperatureModel(spec)
+    l_ers = bending_length(spec, model)
+    E_S = spec.bolt.material.E(spec.bolt.temperature, extrapolate=True)
+    d_S = math.sqrt(4 * spec.bolt.thread.As / math.pi)
+    sig = {k: bolt_bending_stress(st.rotation, E_S, d_S, l_ers) for k, st in contact.items()}
+    amp = 0.0
+    for br in ("min", "max"):
+        if (br, "service_min") in sig:
+            amp = max(amp, 0.5 * abs(sig[(br, "service_max")] - sig[(br, "service_min")]))
+    top = contact[("min", "service_max")]
+    top_max = contact[("max", "service_max")]
+    opened = top.opened or top_max.opened
+    if at_assembly:
+        notes.append(
+            f"The bolt lies outside the core of the interface (|s_sym| = {abs(ej.s) * 1e3:.4g} mm "
+            f"> I_BT/(A_D h) = {i.core / i.half * 1e3:.4g} mm): the preload alone lifts the far "
+            "edge, and the VDI 2230-1 linear relations do not apply; the states come from the "
+            "contact model (our model)."
+        )
+    elif opened:
+        where = (
+            f"the opening load F_A,ab = {opening_load / 1e3:.4g} kN"
+            if opening_load is not None
+            else f"{lam:.3g} x the service load"
+        )
+        notes.append(
+            f"The interface opens at its edge (u = {ej.u * 1e3:+.4g} mm) under the maximum load: "
+            f"the VDI 2230-1 linear relations hold up to {where}; beyond it the bolt load, the "
+            "clamp load and the contact come from the contact model (compression-only bed over "
+            f"the interface; our model, not in VDI 2230). At the maximum load "
+            f"{top.contact_width * 1e3:.4g} mm of the {i.length * 1e3:.4g} mm interface stay in "
+            "contact."
+        )
+    if i.shape == "given":
+        notes.append(
+            "The interface is given by area and second moment: the contact model uses the "
+            f"rectangle of the same properties ({i.length * 1e3:.4g} mm long)."
+        )
+    return {
+        "load_factor": ej.phi_en,
+        "moment_load_factor_per_m": ej.phi_m,
+        "bending_inertia_mm4": e.bending_inertia * 1e12,
+        "bending_inertia_basis": e.bending_inertia_basis,
+        "interface_shape": i.shape,
+        "interface_area_mm2": i.area * 1e6,
+        "interface_second_moment_mm4": i.second_moment * 1e12,
+        "interface_length_mm": i.length * 1e3,
+        "bolt_offset_mm": ej.s * 1e3,
+        "load_offset_mm": ej.a * 1e3,
+        "edge_distance_mm": ej.u * 1e3,
+        "edge_distance_given": e.edge_distance is not None,
+        "resilience_concentric_mm_per_N": ej.dP * 1e3,
+        "resilience_clamping_mm_per_N": ej.dP_star * 1e3,
+        "resilience_loading_mm_per_N": ej.dP_2star * 1e3,
+        "bending_resilience_per_N_mm": ej.beta * 1e-3,
+        "bending_length_mm": l_ers * 1e3,
+        "open_at_assembly": at_assembly,
+        "opening_clamp_load_N": FKab,
+        "opening_load_N": opening_load,
+        "opening_moment_Nm": opening_moment,
+        "opening_load_ratio": lam if finite else None,
+        "opened": opened,
+        "bolt_bending_stress_max_MPa": max(abs(v) for v in sig.values()) / 1e6,
+        "bending_amplitude_MPa": amp / 1e6,
+        "contact": {
+            "model": top.model,
+            "contact_width_mm": top.contact_width * 1e3,
+            "contact_from_mm": top.contact[0] * 1e3,
+            "contact_to_mm": top.contact[1] * 1e3,
+            "bolt_load_N": top.bolt_load,
+            "clamp_load_N": top.clamp_load,
+            "max_preload_bolt_load_N": top_max.bolt_load,
+            "max_preload_contact_width_mm": top_max.contact_width * 1e3,
+        },
+        "knee_N": knee,
+        "notes": notes,
+    }
+
+
+def opening_row(info: dict[str, Any], residual_min: float) -> CheckRow:
+    """The ``opening`` check: ``F_KR,min >= F_Kab`` (VDI 2230-1:2015, 5.3.2 and R2).
+
+    Where the preload alone lifts the far edge the rule becomes: the bolt inside the core
+    of the interface, ``|s_sym| <= I_BT / (A_D |u|)`` (the same Navier pressure at zero load).
+    """
+    u = info["edge_distance_mm"]
+    if info["open_at_assembly"]:
+        core = info["interface_second_moment_mm4"] / (info["interface_area_mm2"] * abs(u))
+        return CheckRow(
+            "opening",
+            "Bolt inside the core of the interface (no opening under the preload alone)",
+            abs(info["bolt_offset_mm"]),
+            core,
+            "mm",
+            "<=",
+            "VDI 2230-1:2015, 5.3.2 (Navier's linear pressure over the interface; from memory)",
+            f"opening edge u = {u:+.4g} mm",
+        )
+    return CheckRow(
+        "opening",
+        "No opening of the interface at its edge under the maximum load",
+        residual_min / 1e3,
+        info["opening_clamp_load_N"] / 1e3,
+        "kN",
+        ">=",
+        "VDI 2230-1:2015, 5.3.2 and R2 (F_KR,min >= F_Kab = (F_A (a - s_sym) u + M_B u) / "
+        "(I_BT/A_D + s_sym u); from memory)",
+        f"opening edge u = {u:+.4g} mm; opening load "
+        + (
+            f"F_A,ab = {info['opening_load_N'] / 1e3:.4g} kN"
+            if info["opening_load_N"] is not None
+            else "none along the service load"
+        ),
     )

@@ -20,6 +20,7 @@ CHECK_NAMES: tuple[str, ...] = (
     "fatigue",
     "residual_clamp_load",
     "separation",
+    "opening",
     "slip",
     "surface_pressure_head",
     "surface_pressure_nut",

@@ -14,6 +14,7 @@ from dataclasses import dataclass, field
 import numpy as np
 
 from ..catalog import Grade, Material, Thread
+from .eccentric import Interface
 
 ROOM = 293.15  # K, 20 degC: the reference temperature of the catalog
 
@@ -223,6 +224,19 @@ class ServiceSpec:
     load_height: float
     temperature: float  # K
     assembly_temperature: float  # K
+    bending_moment: tuple[float, float] = (0.0, 0.0)  # (with the min, with the max load) N*m
+
+
+@dataclass(frozen=True)
+class EccentricSpec:
+    """``[eccentricity]`` after validation (SI; offsets signed, positive toward the load)."""
+
+    bolt_offset: float  # s_sym [m]
+    load_offset: float  # a [m]
+    edge_distance: float | None  # u [m], signed; None: the edge that opens first
+    interface: Interface
+    bending_inertia: float  # I_Bers [m^4], resolved
+    bending_inertia_basis: str  # how I_Bers was found (printed)
 
 
 @dataclass(frozen=True)
@@ -257,6 +271,7 @@ class JointSpec:
     defaults: tuple[tuple[str, str], ...] = field(default=())
     distributions: dict[str, Dist] | None = None  # [distributions] (scatter); None: no table
     given: frozenset[str] = frozenset()  # key paths the file set ("bolt.shank_length", ...)
+    eccentric: EccentricSpec | None = None  # [eccentricity]; None: concentric
 
     @property
     def clamp_length(self) -> float:

@@ -111,6 +111,7 @@ class TemperatureModel:
 
         if clamp_terms is not None:  # the same plates, computed before
             self.clamp_terms = tuple(clamp_terms)
+            self._bending_terms()
             return
         plates = [lay for lay in spec.layers if lay.kind != "sleeve"]
         clamp_terms = []  # type: ignore[assignment]
@@ -167,6 +168,24 @@ class TemperatureModel:
                     _Term(lay.thickness / area, lay.material, lay.temperature, lay.name)
                 )
         self.clamp_terms = tuple(clamp_terms)
+        self._bending_terms()
+
+    def _bending_terms(self) -> None:
+        """Bending resilience of the clamped body ``beta = sum l_i / (E_i I_Bers)`` (eccentric).
+
+        With an ``[eccentricity]`` the clamped parts' resilience at the bolt line is
+        ``delta_P* = delta_P + s_sym^2 beta`` (VDI 2230-1:2015, 5.1.2.3): it takes the
+        place of ``delta_P`` in everything the preload does (assembly, embedding,
+        temperature), as the compatibility at the bolt line requires.
+        """
+        ecc = self.spec.eccentric
+        self.offset2 = 0.0 if ecc is None else ecc.bolt_offset**2
+        self.bend_terms: tuple[_Term, ...] = ()
+        if ecc is not None:
+            self.bend_terms = tuple(
+                _Term(lay.thickness / ecc.bending_inertia, lay.material, lay.temperature, lay.name)
+                for lay in self.spec.layers
+            )
 
     # ------------------------------------------------------------------ temperatures
     def part_T(self, T_file: float, T_service: float | np.ndarray) -> np.ndarray:
@@ -197,8 +216,20 @@ class TemperatureModel:
         key = ("res", T.shape, T.tobytes())
         hit = self._memo.get(key)
         if hit is None:
-            hit = self._memo[key] = (self._sum(self.bolt_terms, T), self._sum(self.clamp_terms, T))
+            dP = self._sum(self.clamp_terms, T)
+            if self.bend_terms:
+                dP = dP + self.offset2 * self._sum(self.bend_terms, T)
+            hit = self._memo[key] = (self._sum(self.bolt_terms, T), dP)
         return hit
+
+    def bending(self, T_service: float | np.ndarray) -> np.ndarray:
+        """``beta`` [1/(N m)]: the clamped body's bending resilience at service temperature(s)."""
+        return self._sum(self.bend_terms, np.asarray(T_service, dtype=float))
+
+    def bending_at_assembly(self) -> float:
+        """``beta`` with every part at the assembly temperature."""
+        T = np.asarray(self.T_assembly)
+        return float(sum(t.coef / _modulus(t.material, T) for t in self.bend_terms))
 
     def resiliences_at_assembly(self) -> tuple[float, float]:
         """``(delta_S, delta_P)`` with every part at the assembly temperature."""
@@ -208,6 +239,7 @@ class TemperatureModel:
         T = np.asarray(self.T_assembly)
         dS = sum(t.coef / _modulus(t.material, T) for t in self.bolt_terms)
         dP = sum(t.coef / _modulus(t.material, T) for t in self.clamp_terms)
+        dP = dP + self.offset2 * self.bending_at_assembly()
         out = (float(dS), float(dP))
         self._memo[("asm",)] = out  # type: ignore[assignment]
         return out

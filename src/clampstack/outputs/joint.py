@@ -91,6 +91,59 @@ def basis_lines(r: JointResult, u: DisplayUnits) -> list[str]:
     return lines
 
 
+def eccentric_lines(r: JointResult, u: DisplayUnits) -> list[str]:
+    """The eccentric joint in a few lines: geometry, resiliences, opening, contact, bending."""
+    e = r.eccentric
+    assert e is not None
+    F, L = u.label("force"), u.label("length")
+
+    def mm(v: float) -> str:
+        return f"{u.fmt('length', v * 1e-3)} {L}"
+
+    c = e["contact"]
+    lines = [
+        f"interface {e['interface_shape']}: A_D = {e['interface_area_mm2']:.4g} mm^2, "
+        f"I_BT = {e['interface_second_moment_mm4']:.4g} mm^4; s_sym = {mm(e['bolt_offset_mm'])}, "
+        f"a = {mm(e['load_offset_mm'])}, opening edge u = {mm(e['edge_distance_mm'])}"
+        + ("" if e["edge_distance_given"] else " (the edge that opens first)"),
+        f"I_Bers = {e['bending_inertia_mm4']:.4g} mm^4 ({e['bending_inertia_basis']})",
+        f"delta_P = {e['resilience_concentric_mm_per_N']:.4g}, delta_P* = "
+        f"{e['resilience_clamping_mm_per_N']:.4g}, delta_P** = "
+        f"{e['resilience_loading_mm_per_N']:.4g} mm/N; Phi_en* = {e['load_factor']:.4g}"
+        + (
+            f", Phi_m* = {e['moment_load_factor_per_m'] / 1e3:.4g} 1/mm"
+            if any(r.spec.service.bending_moment)
+            else ""
+        ),
+    ]
+    if e["open_at_assembly"]:
+        lines.append("the preload alone lifts the far edge: bolt outside the interface's core")
+    else:
+        lines.append(
+            f"clamp load against opening F_Kab = {u.fmt('force', e['opening_clamp_load_N'])} {F}; "
+            + (
+                f"opening load F_A,ab = {u.fmt('force', e['opening_load_N'])} {F}"
+                if e["opening_load_N"] is not None
+                else (
+                    f"opens at {e['opening_load_ratio']:.3g} x the maximum load"
+                    if e["opening_load_ratio"] is not None
+                    else "does not open along the service load"
+                )
+            )
+        )
+    lines.append(
+        f"at the maximum load ({c['model']}): bolt load {u.fmt('force', c['bolt_load_N'])} {F}, "
+        f"clamp load {u.fmt('force', c['clamp_load_N'])} {F}, contact "
+        f"{mm(c['contact_width_mm'])} of {mm(e['interface_length_mm'])}"
+    )
+    lines.append(
+        f"bolt bending stress up to {u.fmt('stress', e['bolt_bending_stress_max_MPa'] * 1e6)} "
+        f"{u.label('stress')}, amplitude {u.fmt('stress', e['bending_amplitude_MPa'] * 1e6)} "
+        f"{u.label('stress')} (l_ers = {mm(e['bending_length_mm'])})"
+    )
+    return lines
+
+
 def joint_text(r: JointResult, units: str = "si") -> str:
     """The ``check`` result as compact tables: verdict, tightening, states, checks, caution."""
     u = UNIT_SYSTEMS[units]
@@ -169,9 +222,11 @@ def joint_text(r: JointResult, units: str = "si") -> str:
     out.append("Stiffness and load factor")
     out.append(
         f"  bolt {u.fmt('stiffness', 1 / r.springs.delta_S)} {u.label('stiffness')}, "
-        f"clamped parts {u.fmt('stiffness', 1 / r.springs.delta_P)} {u.label('stiffness')}, "
-        f"Phi_K = {r.springs.load_factor_K:.4g}, Phi_n = {r.load_factor:.4g} "
-        f"(n = {s.service.load_height:g})"
+        f"clamped parts {u.fmt('stiffness', 1 / r.springs.delta_P)} {u.label('stiffness')}"
+        + (" (delta_P*, at the bolt line)" if r.eccentric else "")
+        + f", Phi_K = {r.springs.load_factor_K:.4g}, "
+        + ("Phi_en*" if r.eccentric else "Phi_n")
+        + f" = {r.load_factor:.4g} (n = {s.service.load_height:g})"
     )
     out.append(
         f"  embedding {r.embedding_amount * 1e6:.3g} um -> preload loss "
@@ -180,7 +235,12 @@ def joint_text(r: JointResult, units: str = "si") -> str:
         f"({s.service.assembly_temperature - 273.15:g} -> "
         f"{s.service.temperature - 273.15:g} degC)"
     )
-    out.append(f"  separation load {u.fmt('force', r.separation_load)} {F}")
+    if r.eccentric is None:
+        out.append(f"  separation load {u.fmt('force', r.separation_load)} {F}")
+    else:
+        out.append("")
+        out.append("Eccentric clamping and loading (VDI 2230-1:2015, 5.1.2.3, 5.3.2, 5.5.3)")
+        out.extend(f"  {line}" for line in eccentric_lines(r, u))
     out.append("")
     rows = [
         [
