@@ -410,10 +410,9 @@ class EccentricJoint:
         dM = M - M0
         extra = (z[1] - th0) - dM / (k * i.second_moment)
         gamma = -self.beta * dM - extra
-        lo, hi = self._contact(z[0], z[1])
-        return ContactState(
-            FS, P, (lo, hi), hi - lo < i.length * (1 - 1e-12), gamma, "contact model"
-        )
+        lo, hi = (float(v) for v in self._contact(float(z[0]), float(z[1])))
+        opened = bool(hi - lo < i.length * (1 - 1e-12))
+        return ContactState(float(FS), float(P), (lo, hi), opened, float(gamma), "contact model")
 
     def curve(
         self, FV: float, FA: float, MB: float, ratios: np.ndarray

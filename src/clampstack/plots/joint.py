@@ -217,8 +217,18 @@ def joint_diagram(result: JointResult, units: str = "si") -> Figure:
         # working load: the detail panel, and its outline on the main panel
         a_side = dSs + (1.0 - n) * dPs  # springs the bolt-side share of F_A acts on
         b_side = n * dPs  # springs the clamp-side share acts on (between the planes A and B)
+        Fknee = Fsep
+        if result.eccentric is not None:
+            # eccentric loading: the clamp side n delta_P**, the bolt side the rest of
+            # delta_S + delta_P*, so that b / (a + b) = Phi_en* (VDI 2230-1, 5.3.2); the
+            # lines are drawn straight to where the clamp side would reach zero, the opening
+            # point F_A,ab is marked on them
+            ej = result.eccentric_joint
+            b_side = n * ej.dP_2star
+            a_side = max(dSs + dPs - b_side, 1e-6 * (dSs + dPs))
+            Fknee = max(FVT, 0.0) / (1 - phi) if phi < 1 else Fsep
         xP = X(FVT * dS)
-        points = _service_geometry(FVT, FA, Fsep, phi, a_side, b_side)
+        points = _service_geometry(FVT, FA, Fknee, phi, a_side, b_side)
         if FVT > 0:
             x_sep = xP + X(points["x_sep"])
             xs = [xP, x_sep, xP + X(points["x_A"])]
@@ -238,7 +248,9 @@ def joint_diagram(result: JointResult, units: str = "si") -> Figure:
                     gid="detail-outline",
                 )
             )
-            _service_panel(az, result, dS, dP, xP, box, points, X, Y, fl, xl, thermal, T1)
+            _service_panel(
+                az, result, dS, dP, xP, box, points, X, Y, fl, xl, thermal, T1, Fknee, a_side
+            )
         else:
             az.set_axis_off()
             az.text(
@@ -272,6 +284,12 @@ def joint_diagram(result: JointResult, units: str = "si") -> Figure:
             ("FKR", "$F_{KR,min}$", svc.clamp_min),
             ("FA,sep", "$F_{A,sep}$", Fsep),
         ]
+        if result.eccentric is not None:
+            e = result.eccentric
+            rows[-1] = ("FKab", "$F_{Kab}$", e["opening_clamp_load_N"] or 0.0)
+            closed = not e["opened"]
+            rows[6] = ("FSA", "$F_{SA}$" + ("" if closed else " (open)"), svc.bolt_min - FVT)
+            rows[7] = ("FPA", "$F_{PA}$" + ("" if closed else " (open)"), FVT - svc.clamp_min)
         tiny = 1e-9 * FMmax  # round-off of differences of states: show as zero
         rows = [(k, sym, 0.0 if abs(v) < tiny else v) for k, sym, v in rows]
         step = 1.0 / (len(rows) + 1.5)
@@ -289,7 +307,8 @@ def joint_diagram(result: JointResult, units: str = "si") -> Figure:
                 ha="right",
                 color=INK,
             ).set_gid(f"value-{key}")
-        note = rf"$\Phi_n$ = {phi:.4g} (n = {n:g}); {T0:g} → {T1:g} °C"
+        sym = r"$\Phi_{en}^*$" if result.eccentric is not None else r"$\Phi_n$"
+        note = rf"{sym} = {phi:.4g} (n = {n:g}); {T0:g} → {T1:g} °C"
         av.text(
             0.02,
             1.0 - (len(rows) + 0.6) * step,
@@ -324,11 +343,13 @@ def _service_geometry(
     return {"x_sep": x_sep, "x_A": x_A}
 
 
-def _service_panel(az, result, dS, dP, xP, box, points, X, Y, fl, xl, thermal, T1) -> None:
+def _service_panel(
+    az, result, dS, dP, xP, box, points, X, Y, fl, xl, thermal, T1, Fsep, a_side
+) -> None:
     s = result.spec
     svc = _state(result, "service_max")
     FVT = _state(result, "temperature").bolt_min
-    FA, Fsep = svc.axial_load, result.separation_load
+    FA = svc.axial_load
     az.set_title("Working load, $F_{M,min}$ branch", fontsize=8.5)
     az.set_xlabel(f"elongation [{xl}]", fontsize=7.5)
     x0, x1, _, ytop = box
@@ -394,16 +415,43 @@ def _service_panel(az, result, dS, dP, xP, box, points, X, Y, fl, xl, thermal, T
             fontsize=8.5,
         )
     az.axhline(Y(FVT), color=MUTED, lw=0.6, ls=":")
-    az.plot([x_sep], [Y(Fsep)], "o", ms=5, mfc="white", mec=LIMIT, mew=1.4, gid="separation")
-    az.annotate(
-        "$F_{A,sep}$",
-        (x_sep, Y(Fsep)),
-        xytext=(6, 2),
-        textcoords="offset points",
-        color=LIMIT,
-        fontsize=8,
-        va="bottom",
-    )
+    e = result.eccentric
+    if e is None:
+        az.plot([x_sep], [Y(Fsep)], "o", ms=5, mfc="white", mec=LIMIT, mew=1.4, gid="separation")
+        az.annotate(
+            "$F_{A,sep}$",
+            (x_sep, Y(Fsep)),
+            xytext=(6, 2),
+            textcoords="offset points",
+            color=LIMIT,
+            fontsize=8,
+            va="bottom",
+        )
+    elif e["opening_load_N"] is not None:
+        # the opening point: the bolt side at F_V + Phi F_A,ab, the clamp side at F_Kab
+        phi, Fab = result.load_factor_service, e["opening_load_N"]
+        xo = xP + X(phi * Fab * a_side)
+        yb, yk = Y(FVT + phi * Fab), Y(FVT - (1 - phi) * Fab)
+        az.plot([xo, xo], [yb, yk], "o", ms=5, mfc="white", mec=LIMIT, mew=1.4, gid="opening")
+        az.plot([xo, xo], [yb, yk], color=LIMIT, lw=0.8, ls=":")
+        az.annotate(
+            "$F_{A,ab}$",
+            (xo, yb),
+            xytext=(6, 2),
+            textcoords="offset points",
+            color=LIMIT,
+            fontsize=8,
+            va="bottom",
+        )
+        az.annotate(
+            "$F_{Kab}$",
+            (xo, yk),
+            xytext=(6, -2),
+            textcoords="offset points",
+            color=LIMIT,
+            fontsize=8,
+            va="top",
+        )
     az.plot([xP], [Y(FVT)], "o", ms=3.5, color=INK, gid="preload-point")
     az.annotate(
         "$F_{V,T}$" if thermal else "$F_V$",
@@ -436,6 +484,8 @@ def bolt_load_plot(result: JointResult, units: str = "si", n_points: int = 61) -
     """
     from ..joint.curves import load_curve
 
+    if result.eccentric is not None:
+        return eccentric_load_plot(result, units, n_points)
     fl, ff, _, _ = _units(units)
     s = result.spec
     lo = load_curve(result, n_points, "min")
@@ -541,6 +591,125 @@ def bolt_load_plot(result: JointResult, units: str = "si", n_points: int = 61) -
         ax.set_xlim(min(0.0, FA_lo / ff), top / ff)
         ax.set_ylim(0, max(float(hi.bolt_load.max()), top) / ff * 1.3)
         fig.legend(loc="outside lower center", ncols=5, fontsize=7, handlelength=2.6)
+    return fig
+
+
+def eccentric_load_plot(result: JointResult, units: str = "si", n_points: int = 61) -> Figure:
+    """Bolt load, clamp load and contact against the working load of an eccentric joint.
+
+    The axial load and the bending moment grow together, ``lambda (F_A,max, M_B,max)``;
+    the horizontal axis is ``lambda F_A,max`` (or ``lambda M_B,max`` where no axial load
+    acts).  Up to the opening point the VDI 2230-1 linear relations (5.3.2); beyond it the
+    contact model of :mod:`clampstack.joint.eccentric` (our model), with the linear line
+    continued dotted for comparison and the clamp load against opening ``lambda F_Kab``.
+    Lower panel: the part of the interface in contact.  Service temperature.
+    """
+    fl, ff, _, _ = _units(units)
+    s = result.spec
+    e, ej = result.eccentric, result.eccentric_joint
+    assert e is not None and ej is not None
+    FA, MB = s.service.axial_load[1], s.service.bending_moment[1]
+    by_force = FA > 0
+    lam_ab = e["opening_load_ratio"]
+    top = 1.5 * max(1.0, lam_ab or 0.0)
+    extra = [1.0] + ([lam_ab] if lam_ab is not None and lam_ab <= top else [])
+    lam = np.unique(np.concatenate([np.linspace(0.0, top, n_points), extra]))
+    FV_lo = _state(result, "temperature").bolt_min
+    FV_hi = _state(result, "temperature").bolt_max
+    bolt_lo, clamp_lo, cw_lo = ej.curve(FV_lo, FA, MB, lam)
+    bolt_hi, _, _ = ej.curve(FV_hi, FA, MB, lam)
+    x = lam * (FA / ff if by_force else MB)
+    xlabel = f"working load $F_A$ [{fl}]" if by_force else "bending moment $M_B$ [N·m]"
+    lin = FV_lo + lam * (ej.phi_en * FA + ej.phi_m * MB)
+    with style():
+        fig = new_figure(height=4.2)
+        gs = fig.add_gridspec(2, 1, height_ratios=[3.0, 1.0])
+        ax = fig.add_subplot(gs[0])
+        aw = fig.add_subplot(gs[1], sharex=ax)
+        ax.set_title(
+            "Eccentric joint: bolt load and clamp load through and past opening "
+            f"({s.service.temperature - C0:g} °C)"
+        )
+        ax.set_ylabel(f"force [{fl}]")
+        ax.axvline(x[lam == 1.0][0], color=LOAD, lw=0.9, ls=(0, (4, 2)))
+        ax.get_lines()[-1].set_gid("load-max")
+        if lam_ab is not None and lam_ab <= top:
+            xo = lam_ab * (FA / ff if by_force else MB)
+            ax.axvspan(xo, x[-1], color=LIMIT, alpha=0.06, lw=0)
+            ax.text(
+                xo,
+                0.02,
+                "  past opening: contact model",
+                transform=ax.get_xaxis_transform(),
+                color=LIMIT,
+                fontsize=7.5,
+                va="bottom",
+            )
+        _line(
+            ax,
+            x,
+            bolt_hi / ff,
+            "bolt-max",
+            color=BOLT,
+            lw=1.2,
+            ls=(0, (5, 2)),
+            label="bolt, $F_{M,max}$",
+        )
+        _line(ax, x, bolt_lo / ff, "bolt-min", color=BOLT, lw=2.0, label="bolt, $F_{M,min}$")
+        _line(ax, x, clamp_lo / ff, "clamp-min", color=CLAMP, lw=2.0, label="clamp, $F_{M,min}$")
+        past = lam >= (lam_ab if lam_ab is not None else np.inf)
+        if past.any():
+            _line(
+                ax,
+                x[past],
+                lin[past] / ff,
+                "bolt-linear",
+                color=MUTED,
+                lw=1.0,
+                ls=":",
+                label=r"VDI linear $F_V + \Phi_{en}^* F_A$",
+            )
+        if e["opening_clamp_load_N"] is not None and e["opening_clamp_load_N"] > 0:
+            _line(
+                ax,
+                x,
+                lam * e["opening_clamp_load_N"] / ff,
+                "opening-clamp-load",
+                color=LIMIT,
+                lw=0.9,
+                ls=(0, (4, 2)),
+                label="$F_{Kab}$ (clamp load against opening)",
+            )
+        if lam_ab is not None and lam_ab <= top:
+            i = int(np.argmin(np.abs(lam - lam_ab)))
+            ax.plot(
+                [x[i]] * 2,
+                [bolt_lo[i] / ff, clamp_lo[i] / ff],
+                "o",
+                ms=5,
+                mfc="white",
+                mec=LIMIT,
+                mew=1.4,
+                gid="opening",
+            )
+            ax.annotate(
+                "opening",
+                (x[i], bolt_lo[i] / ff),
+                xytext=(-6, 6),
+                textcoords="offset points",
+                ha="right",
+                color=LIMIT,
+                fontsize=8,
+            )
+        ax.set_ylim(0, max(float(bolt_hi.max()), float(bolt_lo.max())) / ff * 1.12)
+        ax.tick_params(labelbottom=False)
+        _line(aw, x, cw_lo * 1e3, "contact-width", color=INK, lw=1.4)
+        aw.axhline(ej.interface.length * 1e3, color=MUTED, lw=0.7, ls=":")
+        aw.set_ylim(0, ej.interface.length * 1e3 * 1.1)
+        aw.set_ylabel("contact [mm]", fontsize=7.5)
+        aw.set_xlabel(xlabel)
+        aw.set_xlim(0, x[-1])
+        fig.legend(loc="outside lower center", ncols=3, fontsize=7, handlelength=2.6)
     return fig
 
 

@@ -19,7 +19,7 @@ from .._version import __version__
 from ..errors import InputError
 from ..inputs.files import InputDocument
 from ..joint.analysis import JointResult
-from ..outputs.joint import _mu, governing
+from ..outputs.joint import _mu, eccentric_lines, governing
 from ..outputs.text import CAUTION, UNIT_SYSTEMS, DisplayUnits, fmt_number
 from ._common import (
     MARGIN_NOTE,
@@ -137,9 +137,14 @@ def _summary(r: JointResult, u: DisplayUnits) -> str:
             "Separation load F<sub>A,sep</sub>",
             f"{_f(u, 'force', r.separation_load)} (maximum axial load "
             f"{_f(u, 'force', svc.axial_load[1])})",
+        )
+        if r.eccentric is None
+        else (
+            "Opening: clamp load against opening F<sub>Kab</sub>, opening load F<sub>A,ab</sub>",
+            _opening_text(r, u),
         ),
         (
-            "Load factor &Phi;<sub>n</sub>",
+            "Load factor " + ("&Phi;<sub>en</sub>*" if r.eccentric else "&Phi;<sub>n</sub>"),
             f"{r.load_factor:.4g} at assembly, {r.load_factor_service:.4g} in service "
             f"(n = {svc.load_height:g})",
         ),
@@ -153,6 +158,48 @@ def _summary(r: JointResult, u: DisplayUnits) -> str:
         '<section id="summary"><h2>1. Summary</h2>'
         f"{verdict}{spec}{_kv(rows)}"
         f'<div class="caution">{_e(CAUTION)}</div></section>'
+    )
+
+
+def _opening_text(r: JointResult, u: DisplayUnits) -> str:
+    e = r.eccentric
+    assert e is not None
+    if e["open_at_assembly"]:
+        return "the preload alone lifts the far edge (the bolt lies outside the interface's core)"
+    fab = (
+        _f(u, "force", e["opening_load_N"])
+        if e["opening_load_N"] is not None
+        else "none along the service load"
+    )
+    return (
+        f"{_f(u, 'force', e['opening_clamp_load_N'])}; {fab} (maximum axial load "
+        f"{_f(u, 'force', r.spec.service.axial_load[1])}"
+        + ("; the interface opens: contact model" if e["opened"] else "")
+        + ")"
+    )
+
+
+def _eccentric(r: JointResult, u: DisplayUnits) -> str:
+    """The eccentric joint's quantities (VDI 2230-1:2015, 5.1.2.3, 5.3.2, 5.5.3)."""
+    if r.eccentric is None:
+        return ""
+    lines = "".join(f"<li>{_e(x)}</li>" for x in eccentric_lines(r, u))
+    return (
+        '<div class="keep"><h3>Eccentric clamping and loading</h3>'
+        "<p>The bending resilience of the clamped body adds to its axial resilience at the "
+        "bolt line (VDI 2230-1:2015, 5.1.2.3): &delta;<sub>P</sub>* = &delta;<sub>P</sub> + "
+        "s<sub>sym</sub><sup>2</sup> l<sub>K</sub>/(E<sub>P</sub> I<sub>Bers</sub>) for the "
+        "preload, &delta;<sub>P</sub>** = &delta;<sub>P</sub> + s<sub>sym</sub> a "
+        "l<sub>K</sub>/(E<sub>P</sub> I<sub>Bers</sub>) for the working load, "
+        "&Phi;<sub>en</sub>* = n &delta;<sub>P</sub>**/(&delta;<sub>S</sub> + "
+        "&delta;<sub>P</sub>*). The interface edge u opens when the residual clamp load falls "
+        "to F<sub>Kab</sub> (5.3.2, Navier's linear pressure over the interface). Beyond the "
+        "opening point these linear relations no longer hold: the states come from a contact "
+        "model (a compression-only bed over the interface inside the clamped body's "
+        "resilience; our model, not in VDI 2230), which reproduces them exactly while the "
+        "interface is closed. The bolt's bending stress follows the rotation of the clamped "
+        "body and enters the fatigue check (5.5.3).</p>"
+        f"<ul>{lines}</ul></div>"
     )
 
 
@@ -253,7 +300,7 @@ def _model(r: JointResult, u: DisplayUnits, schematic: str) -> str:
         "compression only, so separation comes out of the solve. The preload is a length "
         "misfit of the bolt, embedding a shortening of the clamped stack, temperature a free "
         "thermal elongation of every part.</p>"
-        f"{schematic}</div>{_kv(rows)}{segs}{layers}</section>"
+        f"{schematic}</div>{_kv(rows)}{segs}{layers}{_eccentric(r, u)}</section>"
     )
 
 
@@ -777,8 +824,15 @@ def render_joint_report(
         + (" and at service temperature" if thermal else "")
         + "; the shaded band is the assembly preload scatter. Right: the maximum working load at "
         "the minimum preload, its share in the bolt (&Phi;<sub>n</sub> F<sub>A</sub>) and in the "
-        "clamped parts ((1 &minus; &Phi;<sub>n</sub>) F<sub>A</sub>), and the separation point "
-        "(stiffness at service temperature).",
+        "clamped parts ((1 &minus; &Phi;<sub>n</sub>) F<sub>A</sub>), and "
+        + (
+            "the separation point"
+            if result.eccentric is None
+            else "the opening point F<sub>A,ab</sub>, where the clamp load falls to "
+            "F<sub>Kab</sub> (eccentric: &delta;<sub>P</sub>* in place of &delta;<sub>P</sub>, "
+            "&Phi;<sub>en</sub>* in place of &Phi;<sub>n</sub>)"
+        )
+        + " (stiffness at service temperature).",
     )
     loads = _figure(
         bolt_load_plot(result, units),
@@ -786,7 +840,13 @@ def render_joint_report(
         "Bolt load and clamp load against the working load",
         "Figure 3. Bolt load and clamp load against the working load, solved with the spring "
         "network at service temperature; the knee is the separation load, beyond which the "
-        "bolt carries all of F<sub>A</sub>.",
+        "bolt carries all of F<sub>A</sub>."
+        if result.eccentric is None
+        else "Figure 3. Eccentric joint: bolt load and clamp load against the working load "
+        "(axial load and bending moment growing together) at service temperature. Up to the "
+        "opening point the VDI 2230-1 linear relations; beyond it (shaded) the contact model, "
+        "with the linear line dotted for comparison and the clamp load against opening "
+        "F<sub>Kab</sub> dashed. Below: the length of the interface in contact.",
     )
     sweep_section, figures = "", 3
     if with_sweep and thermal:

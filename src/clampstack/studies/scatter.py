@@ -301,6 +301,11 @@ def scatter(
     converged (:mod:`clampstack.studies.sampling`).  ``chunk_blocks`` is kept for callers;
     the blocks are evaluated one at a time (the results do not depend on it).
     """
+    if spec.eccentric is not None:
+        raise InputError(
+            "scatter does not model eccentric joints yet (use check or report; see docs/limits.md)",
+            key="eccentricity",
+        )
     if samples < 1:
         raise InputError(
             f"the number of samples must be at least 1, got {samples}", key="--samples"

@@ -212,6 +212,11 @@ def candidate_spec(base: JointSpec, thr: Thread, grade: str, method: str) -> Joi
 
 def size(base: JointSpec, progress: Any = None) -> SizeResult:
     """Search threads x grades x methods for the Pareto-smallest passing designs of ``base``."""
+    if base.eccentric is not None:
+        raise InputError(
+            "size does not model eccentric joints yet (use check or report; see docs/limits.md)",
+            key="eccentricity",
+        )
     sizes = candidate_threads(base.bolt.thread)
     grade_names = METRIC_GRADES if base.bolt.thread.system == "metric" else UNIFIED_GRADES
     known = {g.name for g in grades()}

@@ -264,6 +264,11 @@ def sweep(
     progress: Callable[[int], None] | None = None,
 ) -> SweepResult:
     """Sweep the service temperature from ``T_low`` to ``T_high`` [K] in steps of ``step`` [K]."""
+    if spec.eccentric is not None:
+        raise InputError(
+            "sweep does not model eccentric joints yet (use check or report; see docs/limits.md)",
+            key="eccentricity",
+        )
     T = temperature_points(T_low, T_high, step)
     prep = prepare(spec)
     _check_range(prep, T)
