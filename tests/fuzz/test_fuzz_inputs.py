@@ -48,6 +48,8 @@ JOINTS = [
     "m10-cover-screw-aluminium.toml",
     "m16-through-bolt-alternating.toml",
     "stainless-bracket-anti-seize.toml",
+    "bracket-on-column-face.toml",
+    "cover-segment-edge-bolt.toml",
 ]
 FLANGES = [
     "pump-outlet-flange-8-bolts.toml",

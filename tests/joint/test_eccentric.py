@@ -9,6 +9,7 @@ labelled so.
 from __future__ import annotations
 
 import math
+from pathlib import Path
 
 import numpy as np
 import pytest
@@ -356,3 +357,45 @@ def test_load_introduction_from_the_joint_type():
     with pytest.raises(InputError) as err:
         joint_from_data(d)
     assert err.value.key == "load_introduction.joint_type"
+
+
+def test_bolt_outside_the_core_away_from_the_edge_is_judged_by_the_contact_model():
+    # the cover segment with the screw 5 mm off a 28 mm flange: core I_BT/(A_D h) = 4.67 mm
+    ecc = {
+        "bolt_offset": "5 mm",
+        "load_offset": "12 mm",
+        "edge_distance": "14 mm",
+        "interface": {"width": "56 mm", "length": "28 mm"},
+    }
+    r = analyse(joint_from_data(_file(ecc, axial_load="0..1.5 kN")))
+    e = r.eccentric
+    assert e["open_at_assembly"] and not e["edge_open_at_assembly"]
+    assert e["opening_basis"] == "contact model" and e["opening_clamp_load_N"] is None
+    op = {c.name: c for c in r.checks}["opening"]
+    lam = e["opening_load_ratio"]
+    assert op.value == pytest.approx(lam) and op.limit == 1.0 and op.passed
+    ej = r.eccentric_joint
+    FV = r.states[2].bolt_min
+    assert ej.edge_in_contact(FV, lam * 0.999 * 1.5e3, 0.0)
+    assert not ej.edge_in_contact(FV, lam * 1.001 * 1.5e3, 0.0)
+
+
+def test_eccentric_report_and_figures(tmp_path):
+    from clampstack.inputs.files import load_toml
+    from clampstack.report.joint import render_joint_report
+
+    path = tmp_path / "b.toml"
+    path.write_text(
+        (Path(__file__).parents[2] / "examples" / "bracket-on-column-face.toml").read_text()
+    )
+    doc = load_toml(str(path))
+    files = render_joint_report(doc, analyse(joint_from_data(doc.data)))
+    html = files["b.html"]
+    assert "Eccentric clamping and loading" in html and "F<sub>Kab</sub>" in html
+    assert "beyond it (shaded) the contact model" in html  # figure 3's caption
+    from clampstack.plots import bolt_load_plot, joint_diagram
+
+    r = analyse(joint_from_data(doc.data))
+    gids = {a.get_gid() for a in bolt_load_plot(r).findobj()}
+    assert {"opening", "contact-width", "bolt-linear", "opening-clamp-load"} <= gids
+    assert "opening" in {a.get_gid() for a in joint_diagram(r).findobj()}

@@ -28,11 +28,8 @@ def schema_markdown(schema: Schema, heading: str, level: int = 3) -> str:
             nested.append(k)
     lines.append("")
     for k in nested:
-        inner = (
-            f"[[{heading.strip('[]')}.{k.name}]]"
-            if heading.startswith("[")
-            else (f"[[{k.name}]]" if k.kind == "tables" else f"[{k.name}]")
-        )
+        name = f"{heading.strip('[]')}.{k.name}" if heading.startswith("[") else k.name
+        inner = f"[[{name}]]" if k.kind == "tables" else f"[{name}]"
         lines.append(schema_markdown(k.schema, inner, level + 1))
     return "\n".join(lines)
 

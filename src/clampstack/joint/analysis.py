@@ -976,12 +976,19 @@ def eccentric_summary(
     FA_lo, FA_hi = srv.axial_load
     MB_lo, MB_hi = srv.bending_moment
     i = ej.interface
+    # the edge u itself open under the preload alone; or the other edge (the bolt outside
+    # the core toward u): then VDI's linear relations do not hold, the contact model judges u
     at_assembly = ej.interface.core + ej.s * ej.u <= 0
+    far_open = not at_assembly and ej.open_at_assembly(FV_T)
     notes: list[str] = []
     FKab = None
-    if not at_assembly:
+    if not (at_assembly or far_open):
         FKab = max(ej.opening_clamp_load(FA_hi, MB_hi), ej.opening_clamp_load(FA_lo, MB_lo))
-    lam = ej.opening_ratio(FV_T, FA_hi, MB_hi)
+        lam = ej.opening_ratio(FV_T, FA_hi, MB_hi)
+    elif far_open:
+        lam = ej.contact_opening_ratio(FV_T, FA_hi, MB_hi)
+    else:
+        lam = 0.0
     finite = math.isfinite(lam)
     opening_load = lam * FA_hi if finite and FA_hi > 0 else None
     opening_moment = lam * MB_hi if finite and MB_hi != 0 else None
@@ -999,6 +1006,18 @@ def eccentric_summary(
     top = contact[("min", "service_max")]
     top_max = contact[("max", "service_max")]
     opened = top.opened or top_max.opened
+    if far_open:
+        notes.append(
+            f"The bolt lies outside the core of the interface (|s_sym| = {abs(ej.s) * 1e3:.4g} mm "
+            f"> I_BT/(A_D h) = {i.core / i.half * 1e3:.4g} mm): the preload alone lifts the edge "
+            "away from u. The VDI 2230-1 linear relations and F_Kab do not apply; the states "
+            "and the opening of edge u come from the contact model (our model)"
+            + (
+                f", which keeps u closed up to {lam:.3g} x the maximum load."
+                if math.isfinite(lam)
+                else ", which keeps u closed at any multiple of the load."
+            )
+        )
     if at_assembly:
         notes.append(
             f"The bolt lies outside the core of the interface (|s_sym| = {abs(ej.s) * 1e3:.4g} mm "
@@ -1006,7 +1025,7 @@ def eccentric_summary(
             "edge, and the VDI 2230-1 linear relations do not apply; the states come from the "
             "contact model (our model)."
         )
-    elif opened:
+    elif opened and not far_open:
         where = (
             f"the opening load F_A,ab = {opening_load / 1e3:.4g} kN"
             if opening_load is not None
@@ -1043,7 +1062,9 @@ def eccentric_summary(
         "resilience_loading_mm_per_N": ej.dP_2star * 1e3,
         "bending_resilience_per_N_mm": ej.beta * 1e-3,
         "bending_length_mm": l_ers * 1e3,
-        "open_at_assembly": at_assembly,
+        "open_at_assembly": at_assembly or far_open,
+        "edge_open_at_assembly": at_assembly,
+        "opening_basis": "contact model" if far_open else "VDI 2230-1 linear",
         "opening_clamp_load_N": FKab,
         "opening_load_N": opening_load,
         "opening_moment_Nm": opening_moment,
@@ -1073,7 +1094,25 @@ def opening_row(info: dict[str, Any], residual_min: float) -> CheckRow:
     of the interface, ``|s_sym| <= I_BT / (A_D |u|)`` (the same Navier pressure at zero load).
     """
     u = info["edge_distance_mm"]
-    if info["open_at_assembly"]:
+    if info["opening_basis"] == "contact model":
+        lam = info["opening_load_ratio"]
+        return CheckRow(
+            "opening",
+            "No opening of the interface at edge u under the maximum load (contact model)",
+            64.0 if lam is None else lam,
+            1.0,
+            "x load",
+            ">=",
+            "VDI 2230-1:2015, 5.3.2 (the edge must not open); the preload alone lifts the other "
+            "edge, so the load ratio at which u opens comes from the contact model (our model)",
+            f"opening edge u = {u:+.4g} mm; "
+            + (
+                "closed up to 64 x the maximum load (the search's end)"
+                if lam is None
+                else f"opens at {lam:.4g} x the maximum load"
+            ),
+        )
+    if info["edge_open_at_assembly"]:
         core = info["interface_second_moment_mm4"] / (info["interface_area_mm2"] * abs(u))
         return CheckRow(
             "opening",

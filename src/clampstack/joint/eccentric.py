@@ -414,6 +414,34 @@ class EccentricJoint:
         opened = bool(hi - lo < i.length * (1 - 1e-12))
         return ContactState(float(FS), float(P), (lo, hi), opened, float(gamma), "contact model")
 
+    def edge_in_contact(self, FV: float, FA: float, MB: float, u: float | None = None) -> bool:
+        """True when the contact model keeps edge ``u`` in contact under ``(F_A, M_B)``."""
+        u = self.u if u is None else u
+        lo, hi = self.state(FV, FA, MB).contact
+        tol = 1e-9 * self.interface.length
+        return lo - tol <= u <= hi + tol
+
+    def contact_opening_ratio(
+        self, FV: float, FA: float, MB: float, u: float | None = None, limit: float = 64.0
+    ) -> float:
+        """Factor on ``(F_A, M_B)`` at which the contact model lifts edge ``u`` (inf: not
+        up to ``limit``); bisection to a relative 1e-6.  For joints whose preload alone
+        lifts the other edge, where the linear :meth:`opening_ratio` does not apply."""
+        if not self.edge_in_contact(FV, 0.0, 0.0, u):
+            return 0.0
+        lo, hi = 0.0, 1.0
+        while self.edge_in_contact(FV, hi * FA, hi * MB, u):
+            lo, hi = hi, 2 * hi
+            if hi > limit:
+                return math.inf
+        while hi - lo > 1e-6 * hi:
+            mid = 0.5 * (lo + hi)
+            if self.edge_in_contact(FV, mid * FA, mid * MB, u):
+                lo = mid
+            else:
+                hi = mid
+        return 0.5 * (lo + hi)
+
     def curve(
         self, FV: float, FA: float, MB: float, ratios: np.ndarray
     ) -> tuple[np.ndarray, np.ndarray, np.ndarray]:

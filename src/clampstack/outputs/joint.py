@@ -116,8 +116,18 @@ def eccentric_lines(r: JointResult, u: DisplayUnits) -> list[str]:
             else ""
         ),
     ]
-    if e["open_at_assembly"]:
-        lines.append("the preload alone lifts the far edge: bolt outside the interface's core")
+    lam = e["opening_load_ratio"]
+    if e["edge_open_at_assembly"]:
+        lines.append("the preload alone lifts edge u: the bolt lies outside the interface's core")
+    elif e["open_at_assembly"]:
+        lines.append(
+            "the preload alone lifts the edge away from u (the bolt lies outside the core); "
+            + (
+                f"edge u opens at {lam:.3g} x the maximum load (contact model)"
+                if lam is not None
+                else "edge u stays closed (contact model)"
+            )
+        )
     else:
         lines.append(
             f"clamp load against opening F_Kab = {u.fmt('force', e['opening_clamp_load_N'])} {F}; "
@@ -226,7 +236,7 @@ def joint_text(r: JointResult, units: str = "si") -> str:
         + (" (delta_P*, at the bolt line)" if r.eccentric else "")
         + f", Phi_K = {r.springs.load_factor_K:.4g}, "
         + ("Phi_en*" if r.eccentric else "Phi_n")
-        + f" = {r.load_factor:.4g} (n = {s.service.load_height:g})"
+        + f" = {r.load_factor:.4g} (n = {s.service.load_height:.3g})"
     )
     out.append(
         f"  embedding {r.embedding_amount * 1e6:.3g} um -> preload loss "

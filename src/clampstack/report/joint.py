@@ -146,7 +146,7 @@ def _summary(r: JointResult, u: DisplayUnits) -> str:
         (
             "Load factor " + ("&Phi;<sub>en</sub>*" if r.eccentric else "&Phi;<sub>n</sub>"),
             f"{r.load_factor:.4g} at assembly, {r.load_factor_service:.4g} in service "
-            f"(n = {svc.load_height:g})",
+            f"(n = {svc.load_height:.3g})",
         ),
         (
             "Temperatures",
@@ -164,8 +164,15 @@ def _summary(r: JointResult, u: DisplayUnits) -> str:
 def _opening_text(r: JointResult, u: DisplayUnits) -> str:
     e = r.eccentric
     assert e is not None
+    if e["edge_open_at_assembly"]:
+        return "the preload alone lifts edge u (the bolt lies outside the interface's core)"
     if e["open_at_assembly"]:
-        return "the preload alone lifts the far edge (the bolt lies outside the interface's core)"
+        lam = e["opening_load_ratio"]
+        return (
+            "the preload alone lifts the edge away from u; edge u "
+            + (f"opens at {lam:.3g} x the maximum load" if lam is not None else "stays closed")
+            + " (contact model)"
+        )
     fab = (
         _f(u, "force", e["opening_load_N"])
         if e["opening_load_N"] is not None
@@ -247,7 +254,7 @@ def _model(r: JointResult, u: DisplayUnits, schematic: str) -> str:
         (
             "Load factors",
             f"&Phi;<sub>K</sub> = {sp.load_factor_K:.4g}, &Phi;<sub>n</sub> = n &Phi;<sub>K</sub> "
-            f"= {r.load_factor:.4g} (n = {s.service.load_height:g})",
+            f"= {r.load_factor:.4g} (n = {s.service.load_height:.3g})",
         ),
         ("Clamp length l<sub>K</sub>", _f(u, "length", s.clamp_length)),
         (
