@@ -399,3 +399,44 @@ def test_eccentric_report_and_figures(tmp_path):
     gids = {a.get_gid() for a in bolt_load_plot(r).findobj()}
     assert {"opening", "contact-width", "bolt-linear", "opening-clamp-load"} <= gids
     assert "opening" in {a.get_gid() for a in joint_diagram(r).findobj()}
+
+
+@pytest.mark.parametrize("load", ["1..7 kN", "0..30 kN"])
+def test_sweep_at_the_service_temperature_is_check(load):
+    # consistency check: the sweep's vectorised evaluation (closed form, contact model where
+    # the interface opens) gives check's margins at the file's service temperature
+    from clampstack.studies.sweep import sweep
+
+    ecc = {"bolt_offset": "8 mm", "load_offset": "30 mm", "interface": RECT}
+    spec = joint_from_data(_file(ecc, axial_load=load, bending_moment="0..20 N*m"))
+    r = analyse(spec)
+    sw = sweep(spec, 273.15 - 20, 273.15 + 100, step=20.0)
+    i = int(np.argmin(np.abs(sw.temperature - spec.service.temperature)))
+    assert sw.temperature[i] == pytest.approx(spec.service.temperature)
+    for c in r.checks:
+        if c.name in sw.margins:
+            m = sw.margins[c.name][i]
+            assert (m if np.isfinite(m) else math.inf) == pytest.approx(
+                c.margin, rel=1e-9, abs=1e-12
+            ), c.name
+    assert set(sw.margins) >= {"opening", "fatigue"} and "separation" not in sw.margins
+
+
+def test_size_designs_of_an_eccentric_joint_pass_check():
+    # consistency check: each design size lists, rebuilt and analysed, passes check with the
+    # governing margin size reports (the deformation body follows the candidate's bolt)
+    from clampstack.catalog import thread
+    from clampstack.inputs.files import load_toml
+    from clampstack.studies.size import candidate_spec, size
+
+    doc = load_toml(str(Path(__file__).parents[2] / "examples" / "bracket-on-column-face.toml"))
+    base = joint_from_data(doc.data)
+    res = size(base)
+    assert res.designs
+    for d in res.designs[:3]:
+        spec = candidate_spec(base, thread(d.thread), d.grade, d.method)
+        r = analyse(spec)
+        assert r.ok, d
+        assert spec.eccentric.bending_inertia != base.eccentric.bending_inertia or d.thread == "M16"
+        gov = {c.name: c for c in r.checks}[d.governing]
+        assert gov.margin == pytest.approx(d.margin, rel=1e-9, abs=1e-12)

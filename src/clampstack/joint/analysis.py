@@ -1087,7 +1087,7 @@ def eccentric_summary(
     }
 
 
-def opening_row(info: dict[str, Any], residual_min: float) -> CheckRow:
+def opening_row(info: dict[str, Any], residual_min: Any, detail: str | None = None) -> CheckRow:
     """The ``opening`` check: ``F_KR,min >= F_Kab`` (VDI 2230-1:2015, 5.3.2 and R2).
 
     Where the preload alone lifts the far edge the rule becomes: the bolt inside the core
@@ -1133,7 +1133,9 @@ def opening_row(info: dict[str, Any], residual_min: float) -> CheckRow:
         ">=",
         "VDI 2230-1:2015, 5.3.2 and R2 (F_KR,min >= F_Kab = (F_A (a - s_sym) u + M_B u) / "
         "(I_BT/A_D + s_sym u); from memory)",
-        f"opening edge u = {u:+.4g} mm; opening load "
+        detail
+        if detail is not None
+        else f"opening edge u = {u:+.4g} mm; opening load "
         + (
             f"F_A,ab = {info['opening_load_N'] / 1e3:.4g} kN"
             if info["opening_load_N"] is not None

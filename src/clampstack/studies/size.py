@@ -29,6 +29,7 @@ from ..catalog import material as catalog_material
 from ..catalog.parts import washer_size
 from ..errors import InputError
 from ..joint import geometry
+from ..joint.eccentric import substitute_inertia
 from ..joint.model import JointSpec, LayerSpec, PartMaterial
 from ..joint.prepare import prepare
 from ..joint.thermal import TemperatureModel
@@ -189,6 +190,20 @@ def candidate_spec(base: JointSpec, thr: Thread, grade: str, method: str) -> Joi
         material=bolt_mat,
     )
     tightening = replace(base.tightening, method=method, torque=None, preload=None)
+    ecc = base.eccentric
+    if ecc is not None:
+        # the deformation body follows the candidate's bearing face; its hole must fit
+        itf = ecc.interface
+        hole = max(x.hole for x in layers)
+        if itf.shape != "given" and abs(ecc.bolt_offset) + 0.5 * hole >= itf.half:
+            raise InputError("the hole reaches the interface's edge", key="eccentricity")
+        if "eccentricity.bending_inertia" not in given:
+            ods = [x.outer_diameter for x in layers if x.outer_diameter and x.kind == "plate"]
+            I_Bers, basis = substitute_inertia(
+                dW, lK, min(ods) if ods else None, tapped is not None, itf
+            )
+            ecc = replace(ecc, bending_inertia=I_Bers, bending_inertia_basis=basis)
+            notes["eccentricity.bending_inertia"] = f"{I_Bers * 1e12:.4g} mm^4 ({basis})"
     dropped = {
         "bolt.shank_length",
         "bolt.shank_diameter",
@@ -205,6 +220,7 @@ def candidate_spec(base: JointSpec, thr: Thread, grade: str, method: str) -> Joi
         layers=layers,
         tightening=tightening,
         given=keys | ({"tapped_hole.engagement"} if tapped is not None else set()),
+        eccentric=ecc,
     )
     geometry.check_fit(spec, spec.given)
     return geometry.with_defaults(spec, notes)
@@ -212,10 +228,16 @@ def candidate_spec(base: JointSpec, thr: Thread, grade: str, method: str) -> Joi
 
 def size(base: JointSpec, progress: Any = None) -> SizeResult:
     """Search threads x grades x methods for the Pareto-smallest passing designs of ``base``."""
-    if base.eccentric is not None:
+    e = base.eccentric
+    if (
+        e is not None
+        and e.bolt_offset != 0
+        and abs(e.bolt_offset) * e.interface.half > e.interface.core
+    ):
         raise InputError(
-            "size does not model eccentric joints yet (use check or report; see docs/limits.md)",
-            key="eccentricity",
+            "size does not model an eccentric joint whose preload alone lifts an edge (the "
+            "bolt lies outside the interface's core); use check",
+            key="eccentricity.bolt_offset",
         )
     sizes = candidate_threads(base.bolt.thread)
     grade_names = METRIC_GRADES if base.bolt.thread.system == "metric" else UNIFIED_GRADES
@@ -233,9 +255,9 @@ def size(base: JointSpec, progress: Any = None) -> SizeResult:
     slip_need = (
         base.service.shear_load * base.requirements.slip_safety / base.requirements.slip_friction
     )
-    need_floor = max(
-        base.requirements.residual_clamp_load, slip_need, (1 - base.service.load_height) * FA_hi
-    )
+    # (1 - Phi_n) F_A with Phi_n <= n; an eccentric joint's Phi_en* may exceed n: no load term
+    load_share = 0.0 if e is not None else (1 - base.service.load_height) * FA_hi
+    need_floor = max(base.requirements.residual_clamp_load, slip_need, load_share)
     evaluated = 0
 
     models: dict[tuple[int, str, str], TemperatureModel] = {}

@@ -22,7 +22,14 @@ import numpy as np
 
 from ..display import Shown
 from ..errors import InputError, SolveError
-from ..joint.analysis import evaluate_checks, margins
+from ..joint.analysis import (
+    bending_length,
+    eccentric_joints,
+    evaluate_checks,
+    margins,
+    opening_row,
+)
+from ..joint.eccentric import eccentric_states
 from ..joint.model import JointSpec
 from ..joint.prepare import (
     Prepared,
@@ -150,6 +157,8 @@ class SweepResult(Shown):
 
 def _evaluate(prep: Prepared, T: np.ndarray) -> dict[str, Any]:
     """All states and check margins at service temperatures ``T`` [K] (vectorised)."""
+    if prep.spec.eccentric is not None:
+        return _evaluate_eccentric(prep, T)
     s = prep.spec
     srv = s.service
     model = prep.model
@@ -195,6 +204,88 @@ def _evaluate(prep: Prepared, T: np.ndarray) -> dict[str, Any]:
         "bolt_max": bolt_max,
         "margins": {k: np.broadcast_to(v, T.shape).astype(float) for k, v in m.items()},
     }
+
+
+def _evaluate_eccentric(prep: Prepared, T: np.ndarray) -> dict[str, Any]:
+    """:func:`_evaluate` for an eccentric joint: the same states and checks as ``check``.
+
+    VDI 2230-1's linear relations in closed form over all points where the interface
+    stays closed, the contact model where it opens
+    (:func:`~clampstack.joint.eccentric.eccentric_states`); the opening edge is the one
+    ``check`` finds at the file's service temperature.
+    """
+    s = prep.spec
+    srv, e, model = s.service, s.eccentric, prep.model
+    assert e is not None
+    ej = eccentric_joints(s, model)[1]
+    dSa, dPa = prep.springs.delta_S, prep.springs.delta_P
+    dS, dP = model.resiliences(T)
+    beta = model.bending(T)
+    thb, thc = model.thermal(T)
+    (FA_lo, FA_hi), (MB_lo, MB_hi) = srv.axial_load, srv.bending_moment
+    alternating = (FA_lo, MB_lo) != (FA_hi, MB_hi)
+    geo = (srv.load_height, e.bolt_offset, e.load_offset, ej.u, e.interface)
+
+    def states(FV: np.ndarray, FA: float, MB: float):
+        return eccentric_states(dS, dP, beta, *geo, FV, FA, MB)
+
+    res = {}
+    for name, FM, fz in (
+        ("min", prep.assembly_min, prep.embedding_amount),
+        ("max", prep.assembly_max, 0.0),
+    ):
+        FV = service_preload(FM, dSa + dPa, dS + dP, thb - thc, fz)
+        hi = states(FV, FA_hi, MB_hi)
+        res[name] = (FV, hi, states(FV, FA_lo, MB_lo) if alternating else hi)
+    FV_min, hi_min, lo_min = res["min"]
+    FV_max, hi_max, lo_max = res["max"]
+    FM_check = prep.check_preload()
+    FV_check = np.maximum(service_preload(FM_check, dSa + dPa, dS + dP, thb - thc), FM_check)
+    up = states(FV_check, FA_hi, MB_hi).bolt_load
+    down = states(FV_check, FA_lo, MB_lo).bolt_load if alternating else up
+    bolt_max = np.maximum.reduce([np.full(T.shape, FM_check), FV_check, up, down])
+    residual = np.minimum(hi_min.clamp_load, lo_min.clamp_load)
+    FKab = max(ej.opening_clamp_load(FA_hi, MB_hi), ej.opening_clamp_load(FA_lo, MB_lo))
+    info = {
+        "opening_basis": "VDI 2230-1 linear",
+        "edge_open_at_assembly": False,
+        "edge_distance_mm": ej.u * 1e3,
+        "opening_clamp_load_N": FKab,
+    }
+    opening = opening_row(info, residual, f"opening edge u = {ej.u * 1e3:+.4g} mm")
+    amplitude = mean = None
+    if alternating:
+        T_bolt = model.part_T(s.bolt.temperature, T)
+        E_S = np.asarray(_bolt_modulus(s, T_bolt))
+        K = E_S * math.sqrt(4 * s.bolt.thread.As / math.pi) / (2 * bending_length(s, model))
+        amplitude = np.maximum(
+            np.abs(hi_min.bolt_load - lo_min.bolt_load) / (2 * s.bolt.thread.As)
+            + K * np.abs(hi_min.rotation - lo_min.rotation) / 2,
+            np.abs(hi_max.bolt_load - lo_max.bolt_load) / (2 * s.bolt.thread.As)
+            + K * np.abs(hi_max.rotation - lo_max.rotation) / 2,
+        )
+        mean = 0.5 * (up + down)
+    T_bolt = model.part_T(s.bolt.temperature, T)
+    rows, _ = evaluate_checks(
+        prep, T_bolt, FM_check, bolt_max, amplitude, mean, residual, np.zeros(T.shape), opening
+    )
+    m = margins(rows)
+    return {
+        "pre_min": FV_min,
+        "pre_max": FV_max,
+        "residual": residual,
+        "bolt_max": bolt_max,
+        "margins": {k: np.broadcast_to(v, T.shape).astype(float) for k, v in m.items()},
+    }
+
+
+def _bolt_modulus(spec: JointSpec, T_bolt: np.ndarray) -> np.ndarray:
+    """The bolt's Young's modulus at its temperature(s) [Pa]."""
+    mat = spec.bolt.material
+    if mat.modulus is not None:
+        return np.full(np.shape(T_bolt), mat.modulus)
+    assert mat.material is not None
+    return np.asarray(mat.material.modulus(T_bolt, extrapolate=True))
 
 
 def temperature_points(T_low: float, T_high: float, step: float | None = None) -> np.ndarray:
@@ -265,10 +356,17 @@ def sweep(
 ) -> SweepResult:
     """Sweep the service temperature from ``T_low`` to ``T_high`` [K] in steps of ``step`` [K]."""
     if spec.eccentric is not None:
-        raise InputError(
-            "sweep does not model eccentric joints yet (use check or report; see docs/limits.md)",
-            key="eccentricity",
-        )
+        e = spec.eccentric
+        if e.bolt_offset != 0 and abs(e.bolt_offset) * e.interface.half > e.interface.core:
+            raise InputError(
+                "sweep does not model an eccentric joint whose preload alone lifts an edge "
+                "(the bolt lies outside the interface's core); use check",
+                key="eccentricity.bolt_offset",
+            )
+        if cycle:
+            raise InputError(
+                "the elastic-plastic cycle is not modelled for eccentric joints", key="--cycle"
+            )
     T = temperature_points(T_low, T_high, step)
     prep = prepare(spec)
     _check_range(prep, T)
