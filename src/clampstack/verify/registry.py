@@ -36,6 +36,7 @@ CASE_MODULES = (
     "checks",
     "sweep",
     "rare",
+    "eccentric",
 )
 
 #: The kinds of comparison a case makes, and what each means.
