@@ -440,3 +440,26 @@ def test_size_designs_of_an_eccentric_joint_pass_check():
         assert spec.eccentric.bending_inertia != base.eccentric.bending_inertia or d.thread == "M16"
         gov = {c.name: c for c in r.checks}[d.governing]
         assert gov.margin == pytest.approx(d.margin, rel=1e-9, abs=1e-12)
+
+
+@pytest.mark.parametrize("load", ["1..7 kN", "0..30 kN"])
+def test_scatter_chain_at_the_minimum_preload_is_check(load):
+    # consistency check: one sample at the friction and tool extremes of F_M,min gives
+    # check's minimum residual clamp load (the contact model where the interface opens)
+    from clampstack.studies.scatter import evaluate, make_chain
+
+    ecc = {"bolt_offset": "8 mm", "load_offset": "30 mm", "interface": RECT}
+    spec = joint_from_data(_file(ecc, axial_load=load))
+    r = analyse(spec)
+    chain = make_chain(spec, {})
+    tr = spec.tightening
+    x = {
+        "thread_friction": np.array([tr.thread_friction[1]]),
+        "head_friction": np.array([tr.head_friction[1]]),
+        "torque_factor": np.array([1 - tr.torque_tolerance]),
+    }
+    out = evaluate(chain, x, 1)
+    assert out["assembly_preload"][0] == pytest.approx(r.assembly_min, rel=1e-9)
+    assert out["residual_clamp_load"][0] == pytest.approx(r.residual_clamp_min, rel=1e-9)
+    opening = {c.name: c for c in r.checks}["opening"]
+    assert bool(out["opening"][0]) is (not opening.passed)

@@ -523,17 +523,20 @@ def eccentric_states(
     u: float,
     interface: Interface,
     FV: np.ndarray,
-    FA: float,
+    FA: float | np.ndarray,
     MB: float,
+    lift_off: bool = False,
 ) -> States:
     """:meth:`EccentricJoint.state` over arrays of springs and preloads (vectorised).
 
     The VDI 2230-1 linear relations in closed form wherever the interface stays closed;
     the contact model, point by point, only where it opens.  ``dP_star`` is the
     resilience at the bolt line, ``delta_P*`` (what the temperature model gives).
+    ``lift_off``: where the contact model finds no equilibrium (the parts lift off), the
+    bolt carries the load and the clamp load is zero, instead of a SolveError.
     """
-    dS, dPs, beta, FV = (
-        np.array(x, dtype=float) for x in np.broadcast_arrays(dS, dP_star, beta, FV)
+    dS, dPs, beta, FV, FA = (
+        np.array(x, dtype=float) for x in np.broadcast_arrays(dS, dP_star, beta, FV, FA)
     )
     dP = dPs - s * s * beta
     den = dS + dPs
@@ -548,7 +551,13 @@ def eccentric_states(
     opened = np.zeros(FS.shape, dtype=bool)
     for idx in zip(*np.nonzero(~closed), strict=True):
         ej = EccentricJoint(float(dS[idx]), float(dP[idx]), float(beta[idx]), n, s, a, u, interface)
-        st = ej.state(float(FV[idx]), FA, MB)
+        try:
+            st = ej.state(float(FV[idx]), float(FA[idx]), MB)
+        except SolveError:
+            if not lift_off:
+                raise
+            FS[idx], FK[idx], gamma[idx], opened[idx] = max(FA[idx], 0.0), 0.0, 0.0, True
+            continue
         FS[idx], FK[idx], gamma[idx], opened[idx] = (
             st.bolt_load,
             st.clamp_load,

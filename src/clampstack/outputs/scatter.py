@@ -27,7 +27,9 @@ def scatter_text(r: ScatterResult, units: str = "si") -> str:
     out.append("")
     out.append(
         _probability_table(
-            r, ("separation", "bolt_yield", "bolt_yield_assembly", "bolt_yield_service", "slip")
+            r,
+            ("opening" if r.spec.eccentric is not None else "separation",)
+            + ("bolt_yield", "bolt_yield_assembly", "bolt_yield_service", "slip"),
         )
     )
     out.extend(convergence_lines(r))

@@ -33,7 +33,8 @@ from ..components import permissible_preload
 from ..components.tightening import angle_preload
 from ..display import Shown
 from ..errors import InputError
-from ..joint.analysis import analyse
+from ..joint.analysis import analyse, eccentric_joints
+from ..joint.eccentric import eccentric_states
 from ..joint.model import DIST_KEYS, DIST_LOWER_BOUNDS, Dist, JointSpec
 from ..joint.prepare import (
     Prepared,
@@ -69,6 +70,7 @@ class Chain:
     mu_T: float
     Rp: float
     T_service: float
+    edge: float | None = None  # eccentric joints: the opening edge u [m] (as check finds it)
 
 
 def make_chain(spec: JointSpec, dists: dict[str, Dist]) -> Chain:
@@ -112,6 +114,7 @@ def make_chain(spec: JointSpec, dists: dict[str, Dist]) -> Chain:
         spec.requirements.slip_friction,
         spec.bolt.grade.Rp02,
         spec.service.temperature,
+        None if spec.eccentric is None else eccentric_joints(spec, prep.model)[1].u,
     )
 
 
@@ -174,8 +177,24 @@ def evaluate(chain: Chain, x: dict[str, np.ndarray], n: int) -> dict[str, np.nda
     FV = service_preload(FM, dSa + dPa, dS + dP, thb - thc, fZ)
     FA_hi = x.get("axial_load", np.full(n, chain.FA_hi))
     pre, _ = service_closed_form(FV, phi, 0.0)
-    FS_hi, FK_hi = service_closed_form(FV, phi, FA_hi)
-    FS_lo, FK_lo = service_closed_form(FV, phi, chain.FA_lo)
+    e = s.eccentric
+    if e is None:
+        FS_hi, FK_hi = service_closed_form(FV, phi, FA_hi)
+        FS_lo, FK_lo = service_closed_form(FV, phi, chain.FA_lo)
+        opening = FK_hi <= 0.0
+    else:  # VDI 2230-1 linear where closed, the contact model where the interface opens
+        assert chain.edge is not None
+        beta = prep.model.bending(Ts)
+        geo = (s.service.load_height, e.bolt_offset, e.load_offset, chain.edge, e.interface)
+        MB_lo, MB_hi = s.service.bending_moment
+        hi = eccentric_states(dS, dP, beta, *geo, FV, FA_hi, MB_hi, lift_off=True)
+        lo = eccentric_states(dS, dP, beta, *geo, FV, chain.FA_lo, MB_lo, lift_off=True)
+        FS_hi, FK_hi, FS_lo, FK_lo = hi.bolt_load, hi.clamp_load, lo.bolt_load, lo.clamp_load
+        # F_Kab is linear in the load (VDI 2230-1 5.3.2): the clamp load falls below it
+        u = chain.edge
+        den = e.interface.core + e.bolt_offset * u
+        FKab = (FA_hi * (e.load_offset - e.bolt_offset) * u + MB_hi * u) / den
+        opening = FK_hi < FKab
     residual = np.minimum(FK_hi, FK_lo)
     # bolt yield at assembly: tension with thread torsion on the plastic section modulus
     # pi d0^3/12, as in VDI 2230-1 R7 (so the yield preload is F_M,zul at nu = 1); in
@@ -209,6 +228,7 @@ def evaluate(chain: Chain, x: dict[str, np.ndarray], n: int) -> dict[str, np.nda
         "service_preload": np.broadcast_to(pre, (n,)),
         "residual_clamp_load": np.broadcast_to(residual, (n,)),
         "separation": np.broadcast_to(separation, (n,)),
+        "opening": np.broadcast_to(opening, (n,)),
         "bolt_yield": np.broadcast_to(yield_, (n,)),
         "bolt_yield_assembly": np.broadcast_to(yield_asm, (n,)),
         "bolt_yield_service": np.broadcast_to(yield_srv, (n,)),
@@ -245,7 +265,9 @@ class ScatterResult(Shown):
     def probability_check(self) -> dict[str, Any]:
         """The file's ``max_failure_probability`` against the 95 % upper bounds."""
         limit = self.spec.requirements.max_failure_probability
-        events = ("separation", "bolt_yield", "slip")
+        events = ("separation", "bolt_yield", "slip") + (
+            ("opening",) if self.spec.eccentric is not None else ()
+        )
         applies = self.convergence.get("events", {}) if self.convergence else {}
         over = [
             e
@@ -282,7 +304,14 @@ class ScatterResult(Shown):
 
 
 QUANTS = ("assembly_preload", "service_preload", "residual_clamp_load")
-EVENTS = ("separation", "bolt_yield", "bolt_yield_assembly", "bolt_yield_service", "slip")
+EVENTS = (
+    "separation",
+    "opening",
+    "bolt_yield",
+    "bolt_yield_assembly",
+    "bolt_yield_service",
+    "slip",
+)
 
 
 def scatter(
@@ -301,10 +330,16 @@ def scatter(
     converged (:mod:`clampstack.studies.sampling`).  ``chunk_blocks`` is kept for callers;
     the blocks are evaluated one at a time (the results do not depend on it).
     """
-    if spec.eccentric is not None:
+    e = spec.eccentric
+    if (
+        e is not None
+        and e.bolt_offset != 0
+        and abs(e.bolt_offset) * e.interface.half > e.interface.core
+    ):
         raise InputError(
-            "scatter does not model eccentric joints yet (use check or report; see docs/limits.md)",
-            key="eccentricity",
+            "scatter does not model an eccentric joint whose preload alone lifts an edge (the "
+            "bolt lies outside the interface's core); use check",
+            key="eccentricity.bolt_offset",
         )
     if samples < 1:
         raise InputError(
@@ -333,6 +368,9 @@ def scatter(
 
     applies = {
         "separation": chain.FA_hi > 0 or "axial_load" in chain.dists,
+        "opening": chain.FA_hi > 0
+        or "axial_load" in chain.dists
+        or (spec.eccentric is not None and any(spec.service.bending_moment)),
         "slip": chain.FQ > 0,
     }
     got = run(block, BLOCK, samples, QUANTS, EVENTS, applies, convergence, progress)
@@ -345,7 +383,8 @@ def scatter(
         "assembly_preload_max_N": det.assembly_max,
         "tightening_factor": det.alpha_A,
         "residual_clamp_load_min_N": det.residual_clamp_min,
-        "separation_load_N": det.separation_load,
+        "separation_load_N": None if det.eccentric else det.separation_load,
+        "opening_load_N": det.eccentric["opening_load_N"] if det.eccentric else None,
         "ok": det.ok,
         "failing_checks": failing,
         "governing_check": governing,
