@@ -401,14 +401,21 @@ def test_eccentric_report_and_figures(tmp_path):
     assert "opening" in {a.get_gid() for a in joint_diagram(r).findobj()}
 
 
-@pytest.mark.parametrize("load", ["1..7 kN", "0..30 kN"])
-def test_sweep_at_the_service_temperature_is_check(load):
+@pytest.mark.parametrize(
+    "load,offsets,moment",
+    [
+        ("1..7 kN", ("8 mm", "30 mm"), "0..20 N*m"),
+        ("0..30 kN", ("8 mm", "30 mm"), "0..20 N*m"),
+        ("0..60 kN", ("0 mm", "0 mm"), "0 N*m"),  # separates on the bolt's line
+    ],
+)
+def test_sweep_at_the_service_temperature_is_check(load, offsets, moment):
     # consistency check: the sweep's vectorised evaluation (closed form, contact model where
     # the interface opens) gives check's margins at the file's service temperature
     from clampstack.studies.sweep import sweep
 
-    ecc = {"bolt_offset": "8 mm", "load_offset": "30 mm", "interface": RECT}
-    spec = joint_from_data(_file(ecc, axial_load=load, bending_moment="0..20 N*m"))
+    ecc = {"bolt_offset": offsets[0], "load_offset": offsets[1], "interface": RECT}
+    spec = joint_from_data(_file(ecc, axial_load=load, bending_moment=moment))
     r = analyse(spec)
     sw = sweep(spec, 273.15 - 20, 273.15 + 100, step=20.0)
     i = int(np.argmin(np.abs(sw.temperature - spec.service.temperature)))
@@ -463,3 +470,70 @@ def test_scatter_chain_at_the_minimum_preload_is_check(load):
     assert out["residual_clamp_load"][0] == pytest.approx(r.residual_clamp_min, rel=1e-9)
     opening = {c.name: c for c in r.checks}["opening"]
     assert bool(out["opening"][0]) is (not opening.passed)
+
+
+# --------------------------------------------------------------------------- regressions
+# (found by an independent review of the module; each failed before its fix)
+
+
+@pytest.mark.parametrize("moment", [None, "1 N*m"])
+def test_load_on_the_bolt_line_separates_like_a_concentric_joint(moment):
+    extra = {} if moment is None else {"bending_moment": moment}
+    r = analyse(joint_from_data(_file({"interface": RECT}, axial_load="0..60 kN", **extra)))
+    top = next(s for s in r.states if s.key == "service_max")
+    if moment is None:
+        # past F_A,sep the bolt carries the load alone, as without [eccentricity]
+        assert top.bolt_min == pytest.approx(60e3) and top.clamp_min == 0.0
+        assert any("separate" in n for n in r.notes)
+    assert not {c.name: c for c in r.checks}["opening"].passed
+
+
+@pytest.mark.parametrize("a", [0.0005, 0.002])
+def test_large_loads_near_the_bolt_line_converge(a):
+    j = _joint(s=0.0, a=a)
+    for FA in (60e3, 100e3, 250e3, 1e6):
+        st = j.state(30e3, FA, 0.0)
+        assert st.bolt_load >= FA and st.clamp_load >= 0
+        # statics of the lifted body: F_S s - F_A a = P x_P with the resultant inside contact
+        xP = (st.bolt_load * j.s - FA * a) / st.clamp_load
+        assert st.contact[0] - 1e-9 <= xP <= st.contact[1] + 1e-9
+
+
+def test_residual_requirement_adds_the_clamp_load_against_opening():
+    # VDI 2230-1 R2: F_Kerf = max(F_KQ, F_KP + F_KA); F_KP 28.213 kN + F_Kab 7.333 kN
+    d = _file({"bolt_offset": "8 mm", "load_offset": "30 mm", "interface": RECT})
+    d["requirements"] = {"residual_clamp_load": "28.213 kN"}
+    r = analyse(joint_from_data(d))
+    c = {c.name: c for c in r.checks}["residual_clamp_load"]
+    assert c.limit == pytest.approx(28.213 + 6000 * 22 * 30 / 540 / 1e3)
+    assert not c.passed and r.required_assembly_min > r.assembly_min
+
+
+def test_an_edge_that_does_not_open_needs_no_clamp_load():
+    d = _file(
+        {
+            "bolt_offset": "8 mm",
+            "load_offset": "30 mm",
+            "edge_distance": "-30 mm",
+            "interface": RECT,
+        },
+        axial_load="2..6 kN",
+    )
+    d["requirements"] = {"residual_clamp_load": "10 kN"}
+    r = analyse(joint_from_data(d))
+    assert r.eccentric["opening_clamp_load_N"] == 0.0
+    assert r.required_clamp_load == pytest.approx(10e3)
+
+
+@pytest.mark.parametrize(
+    "service", [{"bending_moment": "-500..50 N*m"}, {"axial_load": "-60..6 kN"}]
+)
+def test_the_minimum_load_may_open_the_other_edge(service):
+    ecc = {"bolt_offset": "0 mm" if "bending_moment" in service else "8 mm", "interface": RECT}
+    if "axial_load" in service:
+        ecc["load_offset"] = "30 mm"
+    r = analyse(joint_from_data(_file(ecc, **service)))
+    e = r.eccentric
+    assert e["edge_distance_mm"] == pytest.approx(-30.0)  # the edge the minimum load opens
+    assert e["opened"] and not {c.name: c for c in r.checks}["opening"].passed
+    assert any("opens at its edge (-30 mm)" in n for n in r.notes)

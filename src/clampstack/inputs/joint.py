@@ -941,7 +941,9 @@ def requirement_table(
 ) -> RequirementSpec:
     """``[requirements]``: residual clamp load, slip friction and safety, fatigue safety."""
     rq = rq or empty(REQUIREMENTS)
-    alternating = service.axial_load[1] != service.axial_load[0]
+    alternating = (service.axial_load[1] != service.axial_load[0]) or (
+        service.bending_moment[1] != service.bending_moment[0]
+    )
     slip_safety = rq["slip_safety"] or (1.8 if alternating else 1.2)
     if service.shear_load > 0 and rq["slip_safety"] is None:
         rec.note("requirements.slip_safety", f"{slip_safety:g}")

@@ -99,6 +99,7 @@ def evaluate_checks(
     separation_load: Any,
     opening: CheckRow | None = None,
     fatigue_detail: str = "",
+    opening_clamp_load: float = 0.0,
 ) -> tuple[list[CheckRow], list[str]]:
     """The check chain on floats or arrays (VDI 2230-1 R7-R12); returns rows and notes.
 
@@ -185,15 +186,17 @@ def evaluate_checks(
         notes.append("Fatigue not checked: the axial load does not alternate.")
     FA_lo, FA_hi = srv.axial_load
     if rq.residual_clamp_load > 0:
+        # an eccentric joint needs the clamp load against opening on top (R2: F_KP + F_KA)
         rows.append(
             CheckRow(
                 "residual_clamp_load",
                 "Residual clamp load at least the required clamp load",
                 residual_min / 1e3,
-                rq.residual_clamp_load / 1e3,
+                (rq.residual_clamp_load + opening_clamp_load) / 1e3,
                 "kN",
                 ">=",
-                "VDI 2230-1:2015, 5.5.4, R2/R11 (F_KR,min >= F_Kerf)",
+                "VDI 2230-1:2015, 5.5.4, R2/R11 (F_KR,min >= F_Kerf"
+                + (" = F_KP + F_Kab, eccentric)" if opening is not None else ")"),
             )
         )
     if opening is not None:
@@ -556,7 +559,9 @@ class JointResult(Shown):
         }
         if self.eccentric is not None:
             out["eccentric"] = {
-                k: v for k, v in self.eccentric.items() if k not in ("notes", "knee_N")
+                k: v
+                for k, v in self.eccentric.items()
+                if k not in ("notes", "knee_N", "axial_load_max_N")
             }
         if self.cycle is not None:
             out["preload"]["after_cycle_min_N"] = self.cycle.preload_after[0]
@@ -683,7 +688,7 @@ def analyse(spec: JointSpec) -> JointResult:
     thermal_change = lo["temperature"][0] - lo["embedded"][0]
     thermal_change_max = hi["temperature"][0] - hi["embedded"][0]
     FV_T = lo["temperature"][1]  # clamp load at service temperature, no working load
-    separation_load = max(FV_T, 0.0) / (1.0 - phi_n_s)
+    separation_load = max(FV_T, 0.0) / (1.0 - phi_n_s) if phi_n_s < 1 else 0.0
     residual_min = min(v[1] for key, v in lo.items() if key.startswith("service"))
     ecc_info = None
     if ecc is not None:
@@ -709,11 +714,12 @@ def analyse(spec: JointSpec) -> JointResult:
     slip_need = FQ * rq.slip_safety / rq.slip_friction if FQ > 0 else 0.0
     load_loss = (1 - phi_n_s) * max(FA_hi, 0.0)
     opening = None
+    FKab_req = 0.0
     fatigue_detail = ""
     if ecc_info is not None:
         # VDI 2230-1 R2: F_Kerf >= max(F_KQ, F_KP + F_KA), F_KA the clamp load against opening
-        FKab = ecc_info["opening_clamp_load_N"] or 0.0
-        FKerf = max(rq.residual_clamp_load + FKab, slip_need)
+        FKab_req = ecc_info["opening_clamp_load_N"] or 0.0
+        FKerf = max(rq.residual_clamp_load + FKab_req, slip_need)
         load_loss = max(
             (1 - phi_n_s) * FA_hi - ecc[1].phi_m * MB_hi,
             (1 - phi_n_s) * FA_lo - ecc[1].phi_m * MB_lo,
@@ -752,6 +758,7 @@ def analyse(spec: JointSpec) -> JointResult:
         separation_load,
         opening,
         fatigue_detail,
+        FKab_req,
     )
     # the same checks with the other preload, shown beside them as information
     basis = prep.check_basis
@@ -772,6 +779,7 @@ def analyse(spec: JointSpec) -> JointResult:
             separation_load,
             opening,
             fatigue_detail,
+            FKab_req,
         )
         m_o = margins(rows_o)
         for r in rows_o:
@@ -940,7 +948,14 @@ def eccentric_joints(
     if e.edge_distance is None:
         ej_s = replace(
             ej_s,
-            u=first_opening_edge(ej_s, 1.0, srv.axial_load[1], srv.bending_moment[1]),
+            u=first_opening_edge(
+                ej_s,
+                1.0,
+                [
+                    (srv.axial_load[1], srv.bending_moment[1]),
+                    (srv.axial_load[0], srv.bending_moment[0]),
+                ],
+            ),
         )
     dSa, dPa = model.resiliences_at_assembly()
     return make(dSa, dPa, model.bending_at_assembly(), ej_s.u), ej_s
@@ -983,16 +998,26 @@ def eccentric_summary(
     notes: list[str] = []
     FKab = None
     if not (at_assembly or far_open):
-        FKab = max(ej.opening_clamp_load(FA_hi, MB_hi), ej.opening_clamp_load(FA_lo, MB_lo))
+        # F_Kab at the maximum and the minimum load; an edge that does not open needs none
+        FKab = (
+            max(ej.opening_clamp_load(FA_hi, MB_hi), ej.opening_clamp_load(FA_lo, MB_lo), 0.0)
+            + 0.0  # no -0.0
+        )
         lam = ej.opening_ratio(FV_T, FA_hi, MB_hi)
     elif far_open:
         lam = ej.contact_opening_ratio(FV_T, FA_hi, MB_hi)
+        if (FA_lo, MB_lo) != (FA_hi, MB_hi):
+            lam = min(lam, ej.contact_opening_ratio(FV_T, FA_lo, MB_lo))
     else:
         lam = 0.0
     finite = math.isfinite(lam)
     opening_load = lam * FA_hi if finite and FA_hi > 0 else None
     opening_moment = lam * MB_hi if finite and MB_hi != 0 else None
-    knee = opening_load if opening_load is not None else max(FV_T, 0.0) / (1 - ej.phi_en)
+    knee = (
+        opening_load
+        if opening_load is not None
+        else (max(FV_T, 0.0) / (1 - ej.phi_en) if ej.phi_en < 1 else 0.0)
+    )
     # bolt bending: sigma_b = E_S d_S gamma / (2 l_ers)
     model = TemperatureModel(spec)
     l_ers = bending_length(spec, model)
@@ -1005,7 +1030,23 @@ def eccentric_summary(
             amp = max(amp, 0.5 * abs(sig[(br, "service_max")] - sig[(br, "service_min")]))
     top = contact[("min", "service_max")]
     top_max = contact[("max", "service_max")]
-    opened = top.opened or top_max.opened
+    opened = any(st.opened for st in contact.values())
+    # the edges the contact model lifts in any service state
+    h = i.half
+    lifted = sorted(
+        {
+            x
+            for st in contact.values()
+            if st.opened
+            for x, gone in (
+                (h, st.contact[1] < h * (1 - 1e-9)),
+                (-h, st.contact[0] > -h * (1 - 1e-9)),
+            )
+            if gone
+        },
+        reverse=True,
+    )
+    separated = any(st.model == "separated" for st in contact.values())
     if far_open:
         notes.append(
             f"The bolt lies outside the core of the interface (|s_sym| = {abs(ej.s) * 1e3:.4g} mm "
@@ -1025,19 +1066,24 @@ def eccentric_summary(
             "edge, and the VDI 2230-1 linear relations do not apply; the states come from the "
             "contact model (our model)."
         )
+    elif separated:
+        notes.append(
+            "The clamped parts separate under the service load (the load acts on the bolt's "
+            "line, and the bolt carries it alone): no clamp load is left."
+        )
     elif opened and not far_open:
         where = (
             f"the opening load F_A,ab = {opening_load / 1e3:.4g} kN"
-            if opening_load is not None
-            else f"{lam:.3g} x the service load"
+            if opening_load is not None and math.isfinite(lam)
+            else "the opening point"
         )
+        edges = " and ".join(f"{x * 1e3:+.4g} mm" for x in lifted) or f"{ej.u * 1e3:+.4g} mm"
         notes.append(
-            f"The interface opens at its edge (u = {ej.u * 1e3:+.4g} mm) under the maximum load: "
-            f"the VDI 2230-1 linear relations hold up to {where}; beyond it the bolt load, the "
-            "clamp load and the contact come from the contact model (compression-only bed over "
-            f"the interface; our model, not in VDI 2230). At the maximum load "
-            f"{top.contact_width * 1e3:.4g} mm of the {i.length * 1e3:.4g} mm interface stay in "
-            "contact."
+            f"The interface opens at its edge ({edges}) in service: the VDI 2230-1 linear "
+            f"relations hold up to {where}; beyond it the bolt load, the clamp load and the "
+            "contact come from the contact model (compression-only bed over the interface; our "
+            f"model, not in VDI 2230). At the maximum load {top.contact_width * 1e3:.4g} mm of "
+            f"the {i.length * 1e3:.4g} mm interface stay in contact."
         )
     if i.shape == "given":
         notes.append(
@@ -1062,9 +1108,16 @@ def eccentric_summary(
         "resilience_loading_mm_per_N": ej.dP_2star * 1e3,
         "bending_resilience_per_N_mm": ej.beta * 1e-3,
         "bending_length_mm": l_ers * 1e3,
+        "axial_load_max_N": FA_hi,
         "open_at_assembly": at_assembly or far_open,
         "edge_open_at_assembly": at_assembly,
-        "opening_basis": "contact model" if far_open else "VDI 2230-1 linear",
+        "opening_basis": "contact model"
+        if far_open
+        else (
+            "separation"
+            if not at_assembly and FKab == 0 and FA_hi > 0 and ej._on_bolt_line(FA_hi, MB_hi)
+            else "VDI 2230-1 linear"
+        ),
         "opening_clamp_load_N": FKab,
         "opening_load_N": opening_load,
         "opening_moment_Nm": opening_moment,
@@ -1094,6 +1147,18 @@ def opening_row(info: dict[str, Any], residual_min: Any, detail: str | None = No
     of the interface, ``|s_sym| <= I_BT / (A_D |u|)`` (the same Navier pressure at zero load).
     """
     u = info["edge_distance_mm"]
+    if info["opening_basis"] == "separation":
+        # the load on the bolt's line: no edge opens first, the parts separate as a whole
+        return CheckRow(
+            "opening",
+            "No separation of the clamped parts under the maximum load (load on the bolt's line)",
+            np.asarray(info["opening_load_N"]) / 1e3,
+            info["axial_load_max_N"] / 1e3,
+            "kN",
+            ">=",
+            "VDI 2230-1:2015, 5.3.2 (F_A,sep = F_V / (1 - Phi_en*): F_Kab = 0 on both edges)",
+            detail if detail is not None else "",
+        )
     if info["opening_basis"] == "contact model":
         lam = info["opening_load_ratio"]
         return CheckRow(

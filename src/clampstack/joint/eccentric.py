@@ -20,7 +20,8 @@ also derived from the compatibility of a beam-like clamped body at the bolt line
   moment I_BT, Navier), so the edge ``u`` opens when the residual clamp load falls to
   ``F_Kab = (F_A (a - s) u + M_B u) / (I_BT/A_D + s u)``;
 * the bolt bends with the rotation of the clamped body:
-  ``sigma_b = E_S d_S gamma / (2 l_ers)`` with ``gamma = beta (F_A a + M_B - F_SA s)``;
+  ``sigma_b = E_S d_S gamma / (2 l_ers)`` with ``gamma = beta (F_A a + M_B - F_SA s)``
+  (VDI's form, the load's moment over the whole clamp length: conservative where n < 1);
   with ``M_B = 0`` this is VDI 2230-1's ``sigma_SAb`` term
   ``(1/Phi_en* - s/a)(l_K/l_ers)(E_S/E_P)(pi a d_S^3/(8 I_Bers)) Phi_en* F_A / A_S``.
 
@@ -301,6 +302,8 @@ class EccentricJoint:
 
         def res(z):
             Pb, Mb, J = self.bed(z[0], z[1])
+            if J[0, 0] <= 0:  # nothing in contact: not a trial point to accept
+                return np.array([np.inf, np.inf]), J
             return np.array([(Pb - P) / sP, (Mb - M) / sM]), J
 
         z = self._newton(np.array(guess, dtype=float), res, (sw, st), (sP, sM))
@@ -352,8 +355,13 @@ class EccentricJoint:
         load, Newton's method on the bed's two unknowns).
         """
         i, h = self.interface, self.interface.half
+        if FV <= 0:  # no preload left: nothing holds the parts together
+            return ContactState(max(FA, 0.0), 0.0, (0.0, 0.0), True, 0.0, "separated")
         if not self.open_at_assembly(FV):
             FS, FK = self.linear(FV, FA, MB)
+            if FK <= 0 and self._on_bolt_line(FA, MB):
+                # the load on the bolt's line: past F_A,sep the bolt carries it alone
+                return ContactState(max(FA, 0.0), 0.0, (0.0, 0.0), True, 0.0, "separated")
             Mb = FS * self.s - FA * self.a - MB  # the bed's moment about the axis
             if FK > 0 and FK / i.area - abs(Mb) * h / i.second_moment >= -1e-12 * FK / i.area:
                 gamma = -self.beta * (Mb - FV * self.s)
@@ -366,6 +374,12 @@ class EccentricJoint:
                 1.0,
             )
         return self._follow(FV, FA, MB, lam0)
+
+    def _on_bolt_line(self, FA: float, MB: float) -> bool:
+        """True when the load's moment about the bolt vanishes, ``F_A (s - a) = M_B``:
+        the bolt alone can carry it, and the parts may separate as a concentric joint's."""
+        scale = abs(FA) * self.interface.half + abs(MB)
+        return abs(FA * (self.s - self.a) - MB) <= 1e-9 * scale
 
     def _follow(self, FV: float, FA: float, MB: float, lam0: float) -> ContactState:
         path, core_a, core_b = self._parts()
@@ -383,12 +397,14 @@ class EccentricJoint:
         scale_F = max(abs(FV), abs(FA), abs(MB) / i.half, 1.0)
         zs = (scale_F / (k * i.area), scale_F / (k * i.second_moment) * i.half)
         rs = (scale_F * i.half, path * scale_F)
-        steps = 12
-        for lam in np.linspace(lam0, 1.0, steps + 1)[1:]:
+
+        def residual(lam: float):
             fa, mb = lam * FA, lam * MB
 
-            def res(zz, fa=fa, mb=mb):
+            def res(zz):
                 P, M, J = self.bed(zz[0], zz[1])
+                if J[0, 0] <= 0:  # nothing in contact: not a trial point to accept
+                    return np.array([np.inf, np.inf]), J
                 # equilibrium of moments: M = P s + F_A (s - a) - M_B
                 r1 = M - P * s - fa * (s - a) + mb
                 # compatibility at the bolt line: bolt path + core + bed
@@ -404,7 +420,23 @@ class EccentricJoint:
                 )
                 return np.array([r1 / rs[0], r2 / rs[1]]), Jr
 
-            z = self._newton(z, res, zs, rs)
+            return res
+
+        # continuation in the load from the opening point; the step shrinks where Newton
+        # does not converge and grows again where it does
+        lam, step = lam0, (1.0 - lam0) / 12
+        while lam < 1.0:
+            target = min(1.0, lam + step)
+            try:
+                z = self._newton(z, residual(target), zs, rs)
+            except SolveError:
+                if self._on_bolt_line(FA, MB):
+                    return ContactState(max(FA, 0.0), 0.0, (0.0, 0.0), True, 0.0, "separated")
+                step *= 0.25
+                if step < 1e-9 * max(1.0 - lam0, 1e-12):
+                    raise
+                continue
+            lam, step = target, step * 1.5
         P, M, _ = self.bed(z[0], z[1])
         FS = P + FA
         dM = M - M0
@@ -417,6 +449,8 @@ class EccentricJoint:
     def edge_in_contact(self, FV: float, FA: float, MB: float, u: float | None = None) -> bool:
         """True when the contact model keeps edge ``u`` in contact under ``(F_A, M_B)``."""
         u = self.u if u is None else u
+        h = self.interface.half
+        u = max(min(u, h), -h)  # a given interface: the edge of its equivalent rectangle
         lo, hi = self.state(FV, FA, MB).contact
         tol = 1e-9 * self.interface.length
         return lo - tol <= u <= hi + tol
@@ -455,12 +489,17 @@ class EccentricJoint:
         return np.array(FS), np.array(FK), np.array(cw)
 
 
-def first_opening_edge(joint: EccentricJoint, FV: float, FA: float, MB: float) -> float:
-    """The edge ``+h`` or ``-h`` that opens first along ``lambda (F_A, M_B)`` [m]."""
+def first_opening_edge(joint: EccentricJoint, FV: float, loads: list[tuple[float, float]]) -> float:
+    """The edge ``+h`` or ``-h`` that opens first along ``lambda (F_A, M_B)``, over the
+    load states ``loads`` (the maximum and the minimum service load) [m]."""
     h = joint.interface.half
-    up = joint.opening_ratio(FV, FA, MB, h)
-    down = joint.opening_ratio(FV, FA, MB, -h)
-    return h if up <= down else -h
+    best, edge = math.inf, h
+    for FA, MB in loads:
+        for u in (h, -h):
+            lam = joint.opening_ratio(FV, FA, MB, u)
+            if lam < best:
+                best, edge = lam, u
+    return edge
 
 
 def bolt_bending_stress(gamma: float, E_S: float, d_S: float, l_ers: float) -> float:

@@ -245,12 +245,18 @@ def _evaluate_eccentric(prep: Prepared, T: np.ndarray) -> dict[str, Any]:
     down = states(FV_check, FA_lo, MB_lo).bolt_load if alternating else up
     bolt_max = np.maximum.reduce([np.full(T.shape, FM_check), FV_check, up, down])
     residual = np.minimum(hi_min.clamp_load, lo_min.clamp_load)
-    FKab = max(ej.opening_clamp_load(FA_hi, MB_hi), ej.opening_clamp_load(FA_lo, MB_lo))
+    FKab = max(ej.opening_clamp_load(FA_hi, MB_hi), ej.opening_clamp_load(FA_lo, MB_lo), 0.0)
+    on_line = FKab == 0 and FA_hi > 0 and ej._on_bolt_line(FA_hi, MB_hi)
+    phi = (
+        srv.load_height * (dP - e.bolt_offset * (e.bolt_offset - e.load_offset) * beta) / (dS + dP)
+    )
     info = {
-        "opening_basis": "VDI 2230-1 linear",
+        "opening_basis": "separation" if on_line else "VDI 2230-1 linear",
         "edge_open_at_assembly": False,
         "edge_distance_mm": ej.u * 1e3,
         "opening_clamp_load_N": FKab,
+        "opening_load_N": np.maximum(FV_min, 0.0) / (1 - phi),  # F_A,sep on the bolt's line
+        "axial_load_max_N": FA_hi,
     }
     opening = opening_row(info, residual, f"opening edge u = {ej.u * 1e3:+.4g} mm")
     amplitude = mean = None
@@ -267,7 +273,17 @@ def _evaluate_eccentric(prep: Prepared, T: np.ndarray) -> dict[str, Any]:
         mean = 0.5 * (up + down)
     T_bolt = model.part_T(s.bolt.temperature, T)
     rows, _ = evaluate_checks(
-        prep, T_bolt, FM_check, bolt_max, amplitude, mean, residual, np.zeros(T.shape), opening
+        prep,
+        T_bolt,
+        FM_check,
+        bolt_max,
+        amplitude,
+        mean,
+        residual,
+        np.zeros(T.shape),
+        opening,
+        "",
+        FKab,
     )
     m = margins(rows)
     return {
