@@ -12,6 +12,7 @@ import functools
 import json
 import sys
 from collections.abc import Callable
+from dataclasses import replace
 from typing import Any
 
 import click
@@ -93,6 +94,13 @@ class _Group(click.Group):
 
 
 #: the options every analysing command shares (DESIGN.md: --json; readable units)
+case_option = click.option(
+    "--case",
+    "case",
+    type=str,
+    default=None,
+    help="Load case of a file with [[case]] tables [default: the governing case].",
+)
 json_option = click.option(
     "--json", "as_json", is_flag=True, help="Machine-readable result on stdout."
 )
@@ -185,24 +193,36 @@ def _parse_temperature_range(text: str) -> tuple[float, float]:
     is_flag=True,
     help="Also follow a cycle to each end of the range and back (permanent loss).",
 )
+@case_option
 @json_option
 @click.option("--csv", "as_csv", is_flag=True, help="One CSV row per temperature on stdout.")
 @units_option
 @handle_errors
 def sweep(
-    file: str, trange: str, step: float | None, cycle: bool, as_json: bool, as_csv: bool, units: str
+    file: str,
+    trange: str,
+    step: float | None,
+    cycle: bool,
+    case: str | None,
+    as_json: bool,
+    as_csv: bool,
+    units: str,
 ) -> None:
     """Preload, clamp load and every check over a temperature range (exit 1 if one fails)."""
 
     from .errors import InputError
     from .inputs.joint import read_joint_file
+    from .joint.analysis import select_case
+    from .joint.cases import check_case_name
     from .outputs.sweep import sweep_csv_chunks, sweep_json_chunks, sweep_text
     from .studies.sweep import sweep as run_sweep
     from .studies.sweep import temperature_points
 
     if as_json and as_csv:
         raise InputError("choose --json or --csv, not both", key="--csv")
-    doc, spec = read_joint_file(file)
+    doc, spec = read_joint_file(file, "sweep")
+    check_case_name(spec, case)  # an option's error names the option, not the file
+    spec, case_note = _in_file(doc.path, select_case, spec, case)
     lo, hi = _parse_temperature_range(trange)
     import math
 
@@ -213,6 +233,8 @@ def sweep(
     result = _in_file(doc.path, run_sweep, spec, lo, hi, step, cycle, progress)
     if progress is not None:
         progress(None)
+    if case_note is not None:
+        result = replace(result, notes=(case_note, *result.notes))
     if as_json:  # streamed: the text of _print_json(result.to_dict()), a piece at a time
         for piece in sweep_json_chunks(result):
             click.echo(piece, nl=False)  # ASCII: json escapes all
@@ -275,6 +297,7 @@ def flange(file: str, as_json: bool, units: str) -> None:
     help="Adaptive: stop here and say which estimates have not converged [default 1e7].",
 )
 @click.option("--seed", type=int, default=0, show_default=True, help="Random seed.")
+@case_option
 @json_option
 @units_option
 @handle_errors
@@ -285,12 +308,15 @@ def scatter(
     negligible: float | None,
     max_samples: int | None,
     seed: int,
+    case: str | None,
     as_json: bool,
     units: str,
 ) -> None:
     """Statistical assembly scatter of the joint or flange in FILE (Monte Carlo)."""
     from .errors import InputError
     from .inputs.joint import read_joint_file
+    from .joint.analysis import select_case
+    from .joint.cases import check_case_name
     from .outputs.scatter import scatter_text
     from .studies.sampling import Convergence
     from .studies.scatter import scatter as run_scatter
@@ -320,26 +346,30 @@ def scatter(
         if samples > conv.max_samples:
             raise InputError("the first round exceeds --max-samples", key="--samples")
     assert samples is not None
-    from .inputs.files import load_toml
+    from .inputs.files import file_kind, load_toml
 
-    if "flange" in load_toml(file).data:  # a flange file: every bolt scatters
+    if file_kind(load_toml(file).data) == "flange":  # a flange file: every bolt scatters
         from .inputs.flange import read_flange_file
         from .outputs.scatter import flange_scatter_text
         from .studies.flange_scatter import flange_scatter
 
-        fdoc, fspec = read_flange_file(file)
+        fdoc, fspec = read_flange_file(file, "scatter")
         fres = _in_file(fdoc.path, flange_scatter, fspec, samples, seed, 1, conv)
         if as_json:
             _print_json(fres.to_dict())
         else:
             _echo(flange_scatter_text(fres, units))
         sys.exit(EXIT_OK if fres.deterministic["ok"] else EXIT_FAIL)
-    doc, spec = read_joint_file(file)
+    doc, spec = read_joint_file(file, "scatter")
+    check_case_name(spec, case)  # an option's error names the option, not the file
+    spec, case_note = _in_file(doc.path, select_case, spec, case)
     dists = spec.distributions or {}
     progress = _progress(conv.max_samples if conv is not None else samples, as_json, "scatter")
     result = _in_file(doc.path, run_scatter, spec, dists, samples, seed, 4, progress, conv)
     if progress is not None:
         progress(None)
+    if case_note is not None:
+        result = replace(result, notes=(case_note, *result.notes))
     if as_json:
         _print_json(result.to_dict())
     else:
@@ -374,12 +404,12 @@ def _progress(total: int, quiet: bool, label: str):
 @handle_errors
 def size(file: str, as_json: bool, units: str) -> None:
     """Smallest thread, grade and tightening method that pass every check for FILE."""
-    from .inputs.files import load_toml
+    from .inputs.files import file_kind, load_toml, require_kind
     from .outputs.size import size_text
     from .studies.size import size as run_size
 
     doc = load_toml(file)
-    if "flange" in doc.data:  # a flange file: bolts x grade x method x bolt count
+    if file_kind(doc.data) == "flange":  # a flange file: bolts x grade x method x bolt count
         from .inputs.flange import flange_from_data
         from .outputs.size import flange_size_text
         from .studies.flange_size import size_flange
@@ -393,6 +423,7 @@ def size(file: str, as_json: bool, units: str) -> None:
         sys.exit(EXIT_OK if fres["designs"] else EXIT_FAIL)
     from .inputs.joint import joint_from_data
 
+    require_kind(doc, "joint", "size")
     spec = _in_file(doc.path, joint_from_data, doc.data)
     progress = _progress(2000, as_json, "size")  # candidates: shown only on a terminal
     result = _in_file(doc.path, run_size, spec, progress)
@@ -465,15 +496,15 @@ def demo(out_dir: str) -> None:
 @handle_errors
 def report(file: str, out_dir: str, units: str, as_json: bool) -> None:
     """HTML calculation report of the joint or flange in FILE, JSON and CSV beside it (exit 1 on a fail)."""
-    from .inputs.files import load_toml
+    from .inputs.files import file_kind, load_toml
     from .outputs.files import write_files
 
-    if "flange" in load_toml(file).data:  # a flange file: the flange report
+    if file_kind(load_toml(file).data) == "flange":  # a flange file: the flange report
         from .flange import analyse_flange
         from .inputs.flange import read_flange_file
         from .report import render_flange_report
 
-        doc, spec = read_flange_file(file)
+        doc, spec = read_flange_file(file, "report")
         result = _in_file(doc.path, analyse_flange, spec)
         files = _in_file(doc.path, render_flange_report, doc, result, units)  # all rendered first
     else:
@@ -481,7 +512,7 @@ def report(file: str, out_dir: str, units: str, as_json: bool) -> None:
         from .joint import analyse
         from .report import render_joint_report
 
-        doc, spec = read_joint_file(file)
+        doc, spec = read_joint_file(file, "report")
         result = _in_file(doc.path, analyse, spec)
         files = _in_file(doc.path, render_joint_report, doc, result, units)  # all rendered first
     written = write_files(out_dir, files)  # all or nothing; an OSError is an InputError

@@ -50,6 +50,7 @@ JOINTS = [
     "stainless-bracket-anti-seize.toml",
     "bracket-on-column-face.toml",
     "cover-segment-edge-bolt.toml",
+    "gearbox-foot-load-cases.toml",
 ]
 FLANGES = [
     "pump-outlet-flange-8-bolts.toml",

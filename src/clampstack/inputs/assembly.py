@@ -9,7 +9,7 @@ from ..assembly import Assembly, LoadCase, PartSpec
 from ..errors import InputError
 from ..network import Curve
 from ..units import parse_quantity
-from .files import InputDocument, load_toml
+from .files import InputDocument, load_toml, require_kind
 from .schema import Key, Schema, read_table
 
 LOAD = Schema(
@@ -115,9 +115,10 @@ ASSEMBLY = Schema(
 )
 
 
-def read_assembly_file(path: str) -> tuple[InputDocument, Assembly]:
+def read_assembly_file(path: str, command: str = "solve") -> tuple[InputDocument, Assembly]:
     """Load and validate a ``solve`` input file (InputError names the file and key)."""
     doc = load_toml(path)
+    require_kind(doc, "assembly", command)
     try:
         return doc, assembly_from_data(doc.data)
     except InputError as err:

@@ -99,3 +99,44 @@ def load_toml(path: str | os.PathLike[str]) -> InputDocument:
         detail = " ".join(str(err).split())[:120]
         raise InputError(f"not valid TOML: {detail}", source=name) from None
     return InputDocument(text_name, text, data, hashlib.sha256(raw).hexdigest())
+
+
+#: The kinds of input file, and the commands that read each.
+KIND_COMMANDS: dict[str, tuple[str, ...]] = {
+    "joint": ("check", "sweep", "scatter", "size", "report"),
+    "flange": ("flange", "scatter", "size", "report"),
+    "assembly": ("solve",),
+}
+_KIND_NAMES = {
+    "joint": "a single-bolt joint file",
+    "flange": "a flange file",
+    "assembly": "an assembly file",
+}
+
+
+def file_kind(data: dict[str, Any]) -> str | None:
+    """The kind of an input file from its tables: ``"flange"`` (a ``[flange]`` table),
+    ``"assembly"`` (``[[part]]`` tables), ``"joint"`` (``[bolt]`` or ``[[clamped]]``), or
+    None when it is none of them.  The one rule every command uses."""
+    if "flange" in data:
+        return "flange"
+    if "part" in data:
+        return "assembly"
+    if "bolt" in data or "clamped" in data:
+        return "joint"
+    return None
+
+
+def require_kind(doc: InputDocument, kind: str, command: str) -> None:
+    """InputError (naming the file) unless ``doc`` is of ``kind``: what the file is, and
+    which commands read it."""
+    found = file_kind(doc.data)
+    if found == kind or found is None:  # none: the reader names the missing or wrong key
+        return
+    cmds = KIND_COMMANDS[found]
+    reads = ", ".join(f"`clampstack {c}`" for c in cmds)
+    raise InputError(
+        f"this is {_KIND_NAMES[found]}, which `clampstack {command}` does not read; {reads} "
+        + ("reads it" if len(cmds) == 1 else "read it"),
+        source=doc.path,
+    )

@@ -19,7 +19,7 @@ from ..flange.model import (
 from ..joint.geometry import clearance_hole
 from ..joint.model import ROOM, PartMaterial
 from ..units import parse_quantity
-from .files import InputDocument, load_toml
+from .files import InputDocument, load_toml, require_kind
 from .joint import NUT as JOINT_NUT
 from .joint import TIGHTENING as JOINT_TIGHTENING
 from .schema import Key, Schema, read_table
@@ -223,9 +223,10 @@ FLANGE_FILE = Schema(
 )
 
 
-def read_flange_file(path: str) -> tuple[InputDocument, FlangeSpec]:
+def read_flange_file(path: str, command: str = "flange") -> tuple[InputDocument, FlangeSpec]:
     """Load and validate a flange file (InputError names the file and the key)."""
     doc = load_toml(path)
+    require_kind(doc, "flange", command)
     try:
         return doc, flange_from_data(doc.data)
     except InputError as err:

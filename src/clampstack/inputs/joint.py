@@ -17,6 +17,7 @@ from ..joint.eccentric import Interface, substitute_inertia
 from ..joint.model import (
     ROOM,
     BoltSpec,
+    CaseSpec,
     EccentricSpec,
     JointSpec,
     LayerSpec,
@@ -27,7 +28,7 @@ from ..joint.model import (
     TappedHoleSpec,
 )
 from .distributions import parse_distributions
-from .files import InputDocument, load_toml
+from .files import InputDocument, load_toml, require_kind
 from .schema import Key, Schema, read_table
 from .tables import Defaults, empty, given_keys, part_material, thread_and_grade, tightening
 
@@ -491,6 +492,25 @@ REQUIREMENTS = Schema(
     ),
 )
 
+CASE = Schema(
+    "case",
+    "A load case: the check chain runs for every case; each sets its own loads and "
+    "temperatures in place of [service] (a key left out keeps the [service] value). Parts "
+    "with a temperature of their own keep their rise in proportion to the joint's.",
+    (
+        Key("name", "text", "name of the case (printed, and in the JSON)", required=True),
+        Key("axial_load", "range:force", "axial working load F_A per bolt: value or min..max"),
+        Key("shear_load", "force", "transverse load F_Q per bolt", minimum=0.0),
+        Key(
+            "bending_moment",
+            "range:moment",
+            "bending moment M_B per bolt, value or range (needs [eccentricity])",
+        ),
+        Key("temperature", "temperature", "service temperature of the case"),
+        Key("assembly_temperature", "temperature", "temperature at assembly"),
+    ),
+)
+
 SKIP = Schema(
     "skip",
     "Switch a check off, with the reason (printed with the results).",
@@ -528,6 +548,7 @@ JOINT = Schema(
             "the load introduction factor n from the joint type",
             schema=LOAD_INTRODUCTION,
         ),
+        Key("case", "tables", "load cases (cold start, hot running, proof test, ...)", schema=CASE),
         Key("skip", "tables", "checks switched off, each with a reason", schema=SKIP),
         Key(
             "distributions",
@@ -540,9 +561,10 @@ JOINT = Schema(
 )
 
 
-def read_joint_file(path: str) -> tuple[InputDocument, JointSpec]:
+def read_joint_file(path: str, command: str = "check") -> tuple[InputDocument, JointSpec]:
     """Load and validate a joint file (InputError names the file and the key)."""
     doc = load_toml(path)
+    require_kind(doc, "joint", command)
     try:
         return doc, joint_from_data(doc.data)
     except InputError as err:
@@ -600,6 +622,7 @@ def joint_from_data(data: dict[str, Any]) -> JointSpec:
     ecc = eccentricity(raw["eccentricity"], layers, dW, tapped is not None, service, rec)
     requirements = requirement_table(raw["requirements"], service, rec)
     skips = skipped_checks(raw["skip"])
+    cases = load_cases(raw["case"], ecc is not None)
     given = given_keys(raw)
     spec = JointSpec(
         title=raw["title"] or "untitled joint",
@@ -620,6 +643,7 @@ def joint_from_data(data: dict[str, Any]) -> JointSpec:
         else parse_distributions(raw["distributions"]),
         given=given,
         eccentric=ecc,
+        cases=cases,
     )
     geometry.check_fit(spec, given)
     return spec
@@ -957,6 +981,34 @@ def requirement_table(
         rq["check_basis"] or "permissible",
         rq["max_failure_probability"],
     )
+
+
+def load_cases(rows: list[dict[str, Any]] | None, eccentric: bool) -> tuple[CaseSpec, ...]:
+    """``[[case]]``: named load cases, each name once; a moment only with [eccentricity]."""
+    out: list[CaseSpec] = []
+    for n, c in enumerate(rows or []):
+        key = f"case[{n + 1}]"
+        name = c["name"].strip()
+        if not name:
+            raise InputError("a load case needs a name", key=f"{key}.name")
+        if any(x.name == name for x in out):
+            raise InputError(f"two load cases are called {name!r}", key=f"{key}.name")
+        if c["bending_moment"] is not None and any(c["bending_moment"]) and not eccentric:
+            raise InputError(
+                "a bending moment needs an [eccentricity] table (the interface that carries it)",
+                key=f"{key}.bending_moment",
+            )
+        out.append(
+            CaseSpec(
+                name,
+                c["axial_load"],
+                c["shear_load"],
+                c["bending_moment"],
+                c["temperature"],
+                c["assembly_temperature"],
+            )
+        )
+    return tuple(out)
 
 
 def skipped_checks(rows: list[dict[str, Any]] | None) -> tuple[tuple[str, str], ...]:

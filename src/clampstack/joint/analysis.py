@@ -42,6 +42,7 @@ from ..components import (
     stripping_engagement,
 )
 from ..display import Shown
+from ..errors import InputError
 from .checks import Check
 from .eccentric import (
     ContactState,
@@ -421,6 +422,8 @@ class JointResult(Shown):
     tension: dict[str, Any] | None = None  # method tension: load transfer (Prepared.method_info)
     eccentric: dict[str, Any] | None = None  # eccentric clamping and loading (eccentric_summary)
     eccentric_joint: EccentricJoint | None = None  # at service temperature (for the figures)
+    cases: tuple[Any, ...] = ()  # [[case]]: CaseResult per case (clampstack.joint.cases)
+    governing_case: str | None = None  # the case this result's states come from
 
     @property
     def preload_at_limit_by_design(self) -> bool:
@@ -557,6 +560,9 @@ class JointResult(Shown):
             "assumptions": list(self.assumptions),
             "defaults": dict(self.defaults),
         }
+        if self.cases:
+            out["governing_case"] = self.governing_case
+            out["cases"] = [c.to_dict() for c in self.cases]
         if self.eccentric is not None:
             out["eccentric"] = {
                 k: v
@@ -628,7 +634,23 @@ def springs(spec: JointSpec, service: bool) -> Springs:
 
 
 def analyse(spec: JointSpec) -> JointResult:
-    """Analyse and check a single-bolt joint (VDI 2230-1 calculation steps R0-R13)."""
+    """Analyse and check a single-bolt joint (VDI 2230-1 calculation steps R0-R13).
+
+    With ``[[case]]`` load cases: every case, and the governing values
+    (:func:`clampstack.joint.cases.analyse_cases`).
+    """
+    if spec.cases:
+        from .cases import CaseResult, case_spec, merge_cases
+
+        results = []
+        for i, case in enumerate(spec.cases):
+            try:
+                results.append(CaseResult(case.name, analyse(case_spec(spec, case))))
+            except InputError as err:
+                raise InputError(
+                    f"case {case.name!r}: {err.detail}", key=f"case[{i + 1}]"
+                ) from None
+        return merge_cases(spec, results)
     prep = prepare(spec)
     srv, rq = spec.service, spec.requirements
     model = prep.model
@@ -1207,3 +1229,22 @@ def opening_row(info: dict[str, Any], residual_min: Any, detail: str | None = No
             else "none along the service load"
         ),
     )
+
+
+def select_case(spec: JointSpec, name: str | None) -> tuple[JointSpec, str | None]:
+    """The joint in one load case for a study (``sweep``, ``scatter``) and a note saying
+    which; ``name`` None: the governing case of :func:`analyse`.  Without cases: ``spec``
+    itself and no note.  InputError (key ``--case``) for an unknown name."""
+    from .cases import case_spec, check_case_name
+
+    check_case_name(spec, name)
+    if not spec.cases:
+        return spec, None
+    names = [c.name for c in spec.cases]
+    if name is None:
+        name = analyse(spec).governing_case
+        how = "the governing case of check; --case NAME for another"
+    else:
+        how = "--case"
+    case = spec.cases[names.index(name)]
+    return case_spec(spec, case), f"Load case {name!r} ({how})."

@@ -228,6 +228,18 @@ class ServiceSpec:
 
 
 @dataclass(frozen=True)
+class CaseSpec:
+    """One ``[[case]]``: what it sets in place of ``[service]`` (None: as the file's)."""
+
+    name: str
+    axial_load: tuple[float, float] | None = None
+    shear_load: float | None = None
+    bending_moment: tuple[float, float] | None = None
+    temperature: float | None = None  # K
+    assembly_temperature: float | None = None  # K
+
+
+@dataclass(frozen=True)
 class EccentricSpec:
     """``[eccentricity]`` after validation (SI; offsets signed, positive toward the load)."""
 
@@ -272,6 +284,7 @@ class JointSpec:
     distributions: dict[str, Dist] | None = None  # [distributions] (scatter); None: no table
     given: frozenset[str] = frozenset()  # key paths the file set ("bolt.shank_length", ...)
     eccentric: EccentricSpec | None = None  # [eccentricity]; None: concentric
+    cases: tuple[CaseSpec, ...] = ()  # [[case]] load cases; empty: the [service] state only
 
     @property
     def clamp_length(self) -> float:

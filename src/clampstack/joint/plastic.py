@@ -43,12 +43,14 @@ class CycleResult:
 
     @property
     def permanent_loss(self) -> float:
-        """Loss of the larger (maximum-preload) branch, >= 0 [N]."""
-        return max(
+        """Loss of the larger (maximum-preload) branch, >= 0 [N]; a difference within the
+        solver's round-off (1e-9 of the preload) is no loss."""
+        loss = max(
             0.0,
             self.preload_before[1] - self.preload_after[1],
             self.preload_before[0] - self.preload_after[0],
         )
+        return 0.0 if loss <= 1e-9 * max(abs(self.preload_before[1]), 1.0) else loss
 
 
 def _bearing_yield(prep: Prepared) -> tuple[float, float]:

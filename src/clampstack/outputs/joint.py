@@ -154,6 +154,47 @@ def eccentric_lines(r: JointResult, u: DisplayUnits) -> list[str]:
     return lines
 
 
+def case_rows(r: JointResult, u: DisplayUnits) -> tuple[list[str], list[list[str]]]:
+    """The load-case table: loads, temperature, bolt load, residual clamp load, verdict."""
+    F = u.label("force")
+    head = [
+        "case",
+        f"F_A [{F}]",
+        "T [degC]",
+        f"bolt max [{F}]",
+        f"clamp min [{F}]",
+        "result",
+        "governing check",
+    ]
+    rows = []
+    for cr in r.cases:
+        x = cr.result
+        lo, hi = x.spec.service.axial_load
+        gov = x.governing
+        loads = u.fmt("force", hi) if lo == hi else f"{u.fmt('force', lo)}..{u.fmt('force', hi)}"
+        rows.append(
+            [
+                cr.name,
+                loads,
+                f"{x.spec.service.temperature - 273.15:g}",
+                u.fmt("force", x.bolt_load_max),
+                u.fmt("force", x.residual_clamp_min),
+                "pass" if x.ok else "FAIL",
+                "" if gov is None else f"{gov.name} ({_margin(gov)})",
+            ]
+        )
+    return head, rows
+
+
+def case_lines(r: JointResult, u: DisplayUnits) -> list[str]:
+    """The load cases as a text table."""
+    head, rows = case_rows(r, u)
+    return [
+        "Load cases",
+        table(head, rows, right=[False, True, True, True, True, False, False]),
+    ]
+
+
 def joint_text(r: JointResult, units: str = "si") -> str:
     """The ``check`` result as compact tables: verdict, tightening, states, checks, caution."""
     u = UNIT_SYSTEMS[units]
@@ -170,6 +211,11 @@ def joint_text(r: JointResult, units: str = "si") -> str:
         )
     else:
         out.append(f"RESULT: FAIL - {', '.join(failed)}")
+    if r.cases:
+        out.append(
+            f"  {len(r.cases)} load cases; governing: {r.governing_case!r} (its states are shown "
+            "below; each check gives its worst case)"
+        )
     out.append("")
 
     tr = s.tightening
@@ -282,16 +328,23 @@ def joint_text(r: JointResult, units: str = "si") -> str:
         "embedding not counted (conservative for the bolt)."
     )
     out.append("")
+    if r.cases:
+        out.extend(case_lines(r, u))
+        out.append("")
     crow = []
     for c in r.checks:
         v, lim = check_value(c, u)
         verdict = "off" if c.skipped else ("pass" if c.passed else "FAIL")
-        crow.append([c.name, v, c.relation, lim, _margin(c), verdict, c.source])
+        row = [c.name, v, c.relation, lim, _margin(c), verdict]
+        if r.cases:
+            row.append((c.extra or {}).get("governing_case", ""))
+        crow.append(row + [c.source])
+    head = ["check", "value", "", "limit", "margin", "result"] + (["case"] if r.cases else [])
     out.append(
         table(
-            ["check", "value", "", "limit", "margin", "result", "source"],
+            head + ["source"],
             crow,
-            right=[False, True, False, True, True, False, False],
+            right=[False, True, False, True, True, False] + ([False] if r.cases else []) + [False],
         )
     )
     out.extend(basis_lines(r, u))

@@ -15,6 +15,10 @@ def size_text(r: SizeResult, units: str = "si") -> str:
     out = [
         r.title,
         f"{r.candidates} candidates (thread x grade x method), {r.evaluated} fit and were checked",
+    ]
+    if r.cases:
+        out.append(f"every design checked in each load case: {', '.join(r.cases)}")
+    out += [
         "",
     ]
     if not r.designs:

@@ -169,7 +169,12 @@ def _checks_table(
             src += f"<br><b>switched off:</b> {_e(c.skipped)}"
         rows.append(
             [
-                f"<b>{_e(c.name)}</b><br><span class=meta>{_e(c.title)}</span>",
+                f"<b>{_e(c.name)}</b><br><span class=meta>{_e(c.title)}</span>"
+                + (
+                    f"<br><span class=meta>worst in case: {_e(c.extra['governing_case'])}</span>"
+                    if c.extra and "governing_case" in c.extra
+                    else ""
+                ),
                 _e(v).replace(" ", "&nbsp;"),
                 _e(c.relation),
                 _e(lim).replace(" ", "&nbsp;"),

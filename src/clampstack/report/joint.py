@@ -19,7 +19,7 @@ from .._version import __version__
 from ..errors import InputError
 from ..inputs.files import InputDocument
 from ..joint.analysis import JointResult
-from ..outputs.joint import _mu, eccentric_lines, governing
+from ..outputs.joint import _mu, case_rows, eccentric_lines, governing
 from ..outputs.text import CAUTION, UNIT_SYSTEMS, DisplayUnits, fmt_number
 from ._common import (
     MARGIN_NOTE,
@@ -154,9 +154,22 @@ def _summary(r: JointResult, u: DisplayUnits) -> str:
             f"{svc.temperature - C0:g} &deg;C",
         ),
     ]
+    cases = ""
+    if r.cases:
+        head, crow = case_rows(r, u)
+        cases = (
+            f"<p>{len(r.cases)} load cases; each check below gives its worst case, the states "
+            f"are those of the governing case <b>{_e(r.governing_case or '')}</b>.</p>"
+            + _table(
+                [_e(h) for h in head],
+                [[_e(x) for x in row] for row in crow],
+                left={0, 5, 6},
+                cls="small",
+            )
+        )
     return (
         '<section id="summary"><h2>1. Summary</h2>'
-        f"{verdict}{spec}{_kv(rows)}"
+        f"{verdict}{spec}{_kv(rows)}{cases}"
         f'<div class="caution">{_e(CAUTION)}</div></section>'
     )
 

@@ -29,6 +29,7 @@ from ..catalog import material as catalog_material
 from ..catalog.parts import washer_size
 from ..errors import InputError
 from ..joint import geometry
+from ..joint.cases import case_spec
 from ..joint.eccentric import substitute_inertia
 from ..joint.model import JointSpec, LayerSpec, PartMaterial
 from ..joint.prepare import prepare
@@ -95,14 +96,18 @@ class SizeResult:
     designs: tuple[Design, ...]
     candidates: int
     evaluated: int
+    cases: tuple[str, ...] = ()  # [[case]]: every design passes in each of them
 
     def to_dict(self) -> dict[str, Any]:
-        return {
+        out = {
             "title": self.title,
             "designs": [d.to_dict() for d in self.designs],
             "candidates": self.candidates,
             "evaluated": self.evaluated,
         }
+        if self.cases:
+            out["cases"] = list(self.cases)
+        return out
 
 
 def candidate_threads(base: Thread) -> list[Thread]:
@@ -306,7 +311,16 @@ def size(base: JointSpec, progress: Any = None) -> SizeResult:
                 same = next((m for k2, m in models.items() if k2[0] == i), None)
                 models[mkey] = TemperatureModel(spec, same.clamp_terms if same else None)
             prep = prepare(spec, models[mkey])
-            m = _evaluate(prep, T)["margins"]
+            if base.cases:  # every load case must pass: the smallest margin of each check
+                m = {}
+                for case in base.cases:
+                    cs = case_spec(spec, case)
+                    cp = prepare(cs)  # its own temperatures: no terms shared
+                    Tc = np.array([cs.service.temperature])
+                    for k, v in _evaluate(cp, Tc)["margins"].items():
+                        m[k] = np.minimum(m[k], v) if k in m else v
+            else:
+                m = _evaluate(prep, T)["margins"]
         except InputError:
             return None  # does not fit (grade size range, holes, length, data range)
         evaluated += 1
@@ -344,4 +358,10 @@ def size(base: JointSpec, progress: Any = None) -> SizeResult:
                 designs.append(des)
     n_s, n_g, n_m = len(sizes), len(grade_names), len(METHODS)
     designs.sort(key=lambda x: (x.d, x.yield_strength, METHODS.index(x.method)))
-    return SizeResult(base.title, tuple(designs), n_s * n_g * n_m, evaluated)
+    return SizeResult(
+        base.title,
+        tuple(designs),
+        n_s * n_g * n_m,
+        evaluated,
+        tuple(c.name for c in base.cases),
+    )
