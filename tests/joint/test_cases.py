@@ -140,3 +140,19 @@ def test_size_designs_pass_every_case():
         assert r.ok and {c.name: c for c in r.checks}[d.governing].margin == pytest.approx(
             d.margin, rel=1e-9
         )
+
+
+def test_part_temperatures_of_a_case():
+    cases = [
+        {"name": "sun on the foot", "part_temperatures": {"foot": "140 degC", "bolt": "80 degC"}}
+    ]
+    spec = joint_from_data(_file(cases))
+    cs = case_spec(spec, spec.cases[0])
+    assert next(x for x in cs.layers if x.name == "foot").temperature - 273.15 == pytest.approx(140)
+    assert cs.bolt.temperature - 273.15 == pytest.approx(80)
+    # the frame follows the joint (60 degC in [service])
+    assert next(x for x in cs.layers if x.name == "frame").temperature - 273.15 == pytest.approx(60)
+    for bad, key in (({"shoe": "20 degC"}, "shoe"), ({"bolt": "5 kN"}, "bolt")):
+        with pytest.raises(InputError) as err:
+            joint_from_data(_file([{"name": "x", "part_temperatures": bad}]))
+        assert err.value.key == f"case[1].part_temperatures.{key}"

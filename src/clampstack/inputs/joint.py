@@ -27,6 +27,7 @@ from ..joint.model import (
     ServiceSpec,
     TappedHoleSpec,
 )
+from ..units import parse_quantity
 from .distributions import parse_distributions
 from .files import InputDocument, load_toml, require_kind
 from .schema import Key, Schema, read_table
@@ -508,6 +509,13 @@ CASE = Schema(
         ),
         Key("temperature", "temperature", "service temperature of the case"),
         Key("assembly_temperature", "temperature", "temperature at assembly"),
+        Key(
+            "part_temperatures",
+            "raw",
+            "temperatures of single parts in this case, by name: bolt, nut, tapped_hole or a "
+            'clamped part\'s or washer\'s name, e.g. {bolt = "80 degC", "gearbox foot" = '
+            '"140 degC"} (the others follow the joint)',
+        ),
     ),
 )
 
@@ -622,7 +630,8 @@ def joint_from_data(data: dict[str, Any]) -> JointSpec:
     ecc = eccentricity(raw["eccentricity"], layers, dW, tapped is not None, service, rec)
     requirements = requirement_table(raw["requirements"], service, rec)
     skips = skipped_checks(raw["skip"])
-    cases = load_cases(raw["case"], ecc is not None)
+    names = ("bolt", "nut" if nut is not None else "tapped_hole") + tuple(x.name for x in layers)
+    cases = load_cases(raw["case"], ecc is not None, names)
     given = given_keys(raw)
     spec = JointSpec(
         title=raw["title"] or "untitled joint",
@@ -983,11 +992,33 @@ def requirement_table(
     )
 
 
-def load_cases(rows: list[dict[str, Any]] | None, eccentric: bool) -> tuple[CaseSpec, ...]:
-    """``[[case]]``: named load cases, each name once; a moment only with [eccentricity]."""
+def load_cases(
+    rows: list[dict[str, Any]] | None, eccentric: bool, part_names: tuple[str, ...] = ()
+) -> tuple[CaseSpec, ...]:
+    """``[[case]]``: named load cases, each name once; a moment only with [eccentricity];
+    ``part_temperatures`` by the names of the joint's parts (``part_names``)."""
     out: list[CaseSpec] = []
     for n, c in enumerate(rows or []):
         key = f"case[{n + 1}]"
+        parts: list[tuple[str, float]] = []
+        raw_parts = c["part_temperatures"]
+        if raw_parts is not None:
+            if not isinstance(raw_parts, dict):
+                raise InputError(
+                    "expected a table of part names and temperatures",
+                    key=f"{key}.part_temperatures",
+                )
+            for pname, value in raw_parts.items():
+                pkey = f"{key}.part_temperatures.{pname}"
+                if pname not in part_names:
+                    raise InputError(
+                        f"no part called {pname!r}; the parts are {', '.join(part_names)}",
+                        key=pkey,
+                    )
+                T = parse_quantity(value, "temperature", pkey)
+                if T < 0:
+                    raise InputError("a temperature below absolute zero", key=pkey)
+                parts.append((pname, T))
         name = c["name"].strip()
         if not name:
             raise InputError("a load case needs a name", key=f"{key}.name")
@@ -1006,6 +1037,7 @@ def load_cases(rows: list[dict[str, Any]] | None, eccentric: bool) -> tuple[Case
                 c["bending_moment"],
                 c["temperature"],
                 c["assembly_temperature"],
+                tuple(parts),
             )
         )
     return tuple(out)

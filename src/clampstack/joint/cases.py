@@ -51,15 +51,19 @@ def case_spec(spec: JointSpec, case: CaseSpec) -> JointSpec:
         assembly_temperature=T0,
     )
 
-    def m(T_part: float) -> float:
-        return _mapped(T_part, spec, T, T0)
+    given = dict(case.part_temperatures)
 
-    bolt = replace(spec.bolt, temperature=m(spec.bolt.temperature))
-    nut = None if spec.nut is None else replace(spec.nut, temperature=m(spec.nut.temperature))
+    def m(name: str, T_part: float) -> float:
+        return given[name] if name in given else _mapped(T_part, spec, T, T0)
+
+    bolt = replace(spec.bolt, temperature=m("bolt", spec.bolt.temperature))
+    nut = spec.nut
+    if nut is not None:
+        nut = replace(nut, temperature=m("nut", nut.temperature))
     tapped = spec.tapped_hole
     if tapped is not None:
-        tapped = replace(tapped, temperature=m(tapped.temperature))
-    layers = tuple(replace(x, temperature=m(x.temperature)) for x in spec.layers)
+        tapped = replace(tapped, temperature=m("tapped_hole", tapped.temperature))
+    layers = tuple(replace(x, temperature=m(x.name, x.temperature)) for x in spec.layers)
     return replace(
         spec,
         service=service,

@@ -237,6 +237,7 @@ class CaseSpec:
     bending_moment: tuple[float, float] | None = None
     temperature: float | None = None  # K
     assembly_temperature: float | None = None  # K
+    part_temperatures: tuple[tuple[str, float], ...] = ()  # (part name, K) set in this case
 
 
 @dataclass(frozen=True)
