@@ -399,23 +399,47 @@ def _progress(total: int, quiet: bool, label: str):
 
 @main.command()
 @click.argument("file", type=str)
+@click.option(
+    "--thread",
+    "threads",
+    multiple=True,
+    help="Only this thread (repeat for several), e.g. --thread M10.",
+)
+@click.option("--threads", "thread_range", default=None, help="Threads from..to, e.g. M6..M12.")
+@click.option("--methods", default=None, help="Tightening methods, e.g. torque,tension.")
+@click.option("--grades", "grade_names", default=None, help="Grades, e.g. 8.8,10.9.")
 @json_option
 @units_option
 @handle_errors
-def size(file: str, as_json: bool, units: str) -> None:
+def size(
+    file: str,
+    threads: tuple[str, ...],
+    thread_range: str | None,
+    methods: str | None,
+    grade_names: str | None,
+    as_json: bool,
+    units: str,
+) -> None:
     """Smallest thread, grade and tightening method that pass every check for FILE."""
     from .inputs.files import file_kind, load_toml, require_kind
+    from .inputs.size_options import size_constraints
     from .outputs.size import size_text
+    from .studies.flange_size import FLANGE_METHODS
+    from .studies.size import METHODS
     from .studies.size import size as run_size
 
     doc = load_toml(file)
+    flange_file = file_kind(doc.data) == "flange"
+    constraints = size_constraints(
+        threads, thread_range, methods, grade_names, FLANGE_METHODS if flange_file else METHODS
+    )
     if file_kind(doc.data) == "flange":  # a flange file: bolts x grade x method x bolt count
         from .inputs.flange import flange_from_data
         from .outputs.size import flange_size_text
         from .studies.flange_size import size_flange
 
         fspec = _in_file(doc.path, flange_from_data, doc.data)
-        fres = _in_file(doc.path, size_flange, fspec)
+        fres = _in_file(doc.path, size_flange, fspec, constraints)
         if as_json:
             _print_json(fres)
         else:
@@ -426,7 +450,7 @@ def size(file: str, as_json: bool, units: str) -> None:
     require_kind(doc, "joint", "size")
     spec = _in_file(doc.path, joint_from_data, doc.data)
     progress = _progress(2000, as_json, "size")  # candidates: shown only on a terminal
-    result = _in_file(doc.path, run_size, spec, progress)
+    result = _in_file(doc.path, run_size, spec, progress, constraints)
     if progress is not None:
         progress(None)
     if as_json:

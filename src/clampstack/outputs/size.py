@@ -21,8 +21,32 @@ def size_text(r: SizeResult, units: str = "si") -> str:
     out += [
         "",
     ]
+    if r.constraints and (r.constraints.get("threads") or r.constraints.get("diameter_range_mm")):
+        c = r.constraints
+        held = []
+        if c.get("threads"):
+            held.append(f"threads {', '.join(c['threads'])}")
+        if c.get("diameter_range_mm"):
+            lo, hi = c["diameter_range_mm"]
+            held.append(f"diameters {lo:g}..{hi:g} mm")
+        out.append(f"held to: {'; '.join(held)}")
+    if r.constraints:
+        out.append(
+            f"methods {', '.join(r.constraints['methods'])}; grades "
+            f"{', '.join(r.constraints['grades'])}"
+        )
+        out.append("")
     if not r.designs:
         out.append("RESULT: no candidate passes every check")
+        if r.nearest:
+            out.append("")
+            out.append("The nearest candidates, and what would make them pass:")
+            for n in r.nearest:
+                fails = "; ".join(
+                    f"{f['check']} ({f['margin'] * 100:+.1f} %): {f['remedy']}"
+                    for f in n["failing"]
+                )
+                out.append(f"  {n['thread']} {n['grade']} {n['method']}: {fails}")
     else:
         out.append(
             f"RESULT: {len(r.designs)} smallest passing designs (each: the next smaller "
@@ -91,8 +115,23 @@ def flange_size_text(r: dict, units: str = "si") -> str:
         "and were analysed in full",
         "",
     ]
+    out.insert(
+        2,
+        f"grades {', '.join(r['grades'])} ({r['grades_basis']}); methods {', '.join(r['methods'])}",
+    )
     if not r["designs"]:
         out.append("RESULT: no candidate passes every check")
+        if r.get("nearest"):
+            out.append("")
+            out.append("The nearest candidates, and what would make them pass:")
+            for n in r["nearest"]:
+                fails = "; ".join(
+                    f"{f['check']} ({f['margin'] * 100:+.1f} %): {f['remedy']}"
+                    for f in n["failing"]
+                )
+                out.append(
+                    f"  {n['bolt_count']} x {n['thread']} {n['grade']} {n['method']}: {fails}"
+                )
     else:
         out.append(f"RESULT: {len(r['designs'])} passing boltings (fewest bolts first)")
         rows = [

@@ -28,7 +28,7 @@ from ..flange.analysis import analyse_flange, asme_app2
 from ..flange.model import FlangeSpec, bolt_allowable_stress, check_fit, ring_outer_diameter
 from ..joint.geometry import clearance_hole, with_defaults
 from ..joint.model import PartMaterial
-from .size import METRIC_GRADES, UNIFIED_GRADES
+from .size import REMEDIES, Constraints
 
 FLANGE_METHODS = ("torque", "tension")
 
@@ -103,20 +103,43 @@ def flange_candidate_spec(
     return with_defaults(spec, notes)
 
 
-def size_flange(base: FlangeSpec) -> dict[str, Any]:
-    """Search the catalog for the smallest passing flange bolting of ``base`` (JSON-ready dict)."""
+#: Grades used for pressure bolting, the default of a flange search: property classes 5.6
+#: and 8.8 of EN 1515-1 for PN flanges, and ASTM A193 B7 of ASME B16.5 (from memory).
+PRESSURE_GRADES_METRIC = ("5.6", "8.8", "ASTM A193 B7")
+PRESSURE_GRADES_UNIFIED = ("ASTM A193 B7",)
+PRESSURE_GRADES_SOURCE = (
+    "grades used for pressure bolting: EN 1515-1 (5.6, 8.8) and ASME B16.5 (ASTM A193 B7), "
+    "from memory; --grades for others"
+)
+
+
+def size_flange(base: FlangeSpec, constraints: Constraints | None = None) -> dict[str, Any]:
+    """Search the catalog for the smallest passing flange bolting of ``base`` (JSON-ready dict).
+
+    By default only grades used for pressure bolting (:data:`PRESSURE_GRADES_METRIC`);
+    ``constraints`` hold the search to threads, methods and grades.
+    """
+    con = constraints or Constraints()
     series = [
         t for t in threads() if t.system == base.thread.system and t.series == base.thread.series
     ]
     series.sort(key=lambda t: t.d)
-    names = METRIC_GRADES if base.thread.system == "metric" else UNIFIED_GRADES
+    series = con.threads_of(series)
+    if con.grades is not None:
+        names, basis = con.grades, "--grades"
+    else:
+        metric = base.thread.system == "metric"
+        names = PRESSURE_GRADES_METRIC if metric else PRESSURE_GRADES_UNIFIED
+        basis = PRESSURE_GRADES_SOURCE
     known = {g.name for g in grades()}
     names = tuple(g for g in names if g in known)
+    methods = tuple(m for m in FLANGE_METHODS if con.methods is None or m in con.methods)
+    failures: list[dict[str, Any]] = []
     strength = {g: min(x.Rp02 for x in grades() if x.name == g) for g in names}
     counts = [c for c in range(4, 2 * base.bolt_count + 1, 4)]
     designs = []
     screened = checked = 0
-    for method in FLANGE_METHODS:
+    for method in methods:
         for g in sorted(names, key=lambda x: strength[x]):
             for n in counts:
                 # the smallest size that passes with n bolts of this grade and method
@@ -133,6 +156,27 @@ def size_flange(base: FlangeSpec) -> dict[str, Any]:
                     checked += 1
                     r = analyse_flange(spec, compensate=False)
                     if not r.ok:
+                        bad = sorted((c for c in r.checks if not c.passed), key=lambda c: c.margin)
+                        if bad:
+                            failures.append(
+                                {
+                                    "thread": thr.designation,
+                                    "grade": spec.grade.name,
+                                    "method": method,
+                                    "bolt_count": n,
+                                    "failing": [
+                                        {
+                                            "check": c.name,
+                                            "margin": c.margin,
+                                            "remedy": REMEDIES.get(
+                                                c.name, "more bolts or the next size"
+                                            ),
+                                        }
+                                        for c in bad
+                                    ],
+                                    "_worst": bad[0].margin,
+                                }
+                            )
                         continue
                     gov = min(
                         (c for c in r.checks if c.name != "assembly_preload"),
@@ -148,7 +192,7 @@ def size_flange(base: FlangeSpec) -> dict[str, Any]:
                             "preload_N": r.target,
                             "governing_check": gov.name,
                             "margin": gov.margin,
-                            "_key": (thr.d, n, strength[g]),
+                            "_key": (thr.d, n, spec.grade.Rp02),  # at this diameter,
                         }
                     )
                     break
@@ -170,7 +214,20 @@ def size_flange(base: FlangeSpec) -> dict[str, Any]:
     keep.sort(key=lambda d: (d["_key"][1], d["_key"][0], d["_key"][2]))  # fewest bolts first
     for d in keep:
         d.pop("_key")
-    return {"title": base.title, "designs": keep, "screened": screened, "checked": checked}
+    nearest = []
+    if not keep:
+        for f in sorted(failures, key=lambda f: -f["_worst"])[:3]:
+            nearest.append({k: v for k, v in f.items() if not k.startswith("_")})
+    return {
+        "title": base.title,
+        "designs": keep,
+        "screened": screened,
+        "checked": checked,
+        "nearest": nearest,
+        "grades": list(names),
+        "grades_basis": basis,
+        "methods": list(methods),
+    }
 
 
 def _screen(spec) -> bool:

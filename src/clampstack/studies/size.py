@@ -58,6 +58,48 @@ UNIFIED_GRADES = ("SAE J429 5", "SAE J429 8", "ASTM A193 B7")
 
 
 @dataclass(frozen=True)
+class Constraints:
+    """What ``size`` may choose from (None: everything it knows).
+
+    ``threads``: designations allowed (``--thread``); ``diameters``: the nominal diameter
+    range [m] (``--threads M6..M12``); ``methods`` and ``grades``: the tightening methods
+    and property classes or grades allowed.
+    """
+
+    threads: tuple[str, ...] | None = None
+    diameters: tuple[float, float] | None = None
+    methods: tuple[str, ...] | None = None
+    grades: tuple[str, ...] | None = None
+
+    def threads_of(self, candidates: list[Thread]) -> list[Thread]:
+        out = candidates
+        if self.threads is not None:
+            out = [t for t in out if t.designation in self.threads]
+        if self.diameters is not None:
+            lo, hi = self.diameters
+            out = [t for t in out if lo - 1e-12 <= t.d <= hi + 1e-12]
+        return out
+
+
+#: What would make a failing candidate pass, by its failing check (common practice, no
+#: source: the usual design changes for each rule of VDI 2230-1).
+REMEDIES = {
+    "surface_pressure_head": "a washer (or a larger, hardened one) under the head",
+    "surface_pressure_nut": "a washer (or a larger, hardened one) under the nut",
+    "thread_stripping": "more thread engagement",
+    "working_stress": "the next size or a stronger grade",
+    "fatigue": "the next size, a waisted shank, or threads rolled after heat treatment",
+    "assembly_preload": "the next size or a stronger grade",
+    "residual_clamp_load": "more preload: the next size, a stronger grade or a tighter method",
+    "separation": "more preload: the next size, a stronger grade or a tighter method",
+    "opening": "more preload, or the bolt nearer the load",
+    "slip": "more preload, or a rougher interface (slip coefficient)",
+    "plastic_collapse": "the next size or a stronger grade",
+    "cycle_yield": "the next size, a stronger grade, or washers under the bearing faces",
+}
+
+
+@dataclass(frozen=True)
 class Design:
     """One passing design."""
 
@@ -97,6 +139,10 @@ class SizeResult:
     candidates: int
     evaluated: int
     cases: tuple[str, ...] = ()  # [[case]]: every design passes in each of them
+    #: when nothing passes: the candidates closest to passing, each with its failing checks
+    #: and what would make it pass
+    nearest: tuple[dict[str, Any], ...] = ()
+    constraints: dict[str, Any] | None = None  # what the search was held to (None: nothing)
 
     def to_dict(self) -> dict[str, Any]:
         out = {
@@ -104,6 +150,8 @@ class SizeResult:
             "designs": [d.to_dict() for d in self.designs],
             "candidates": self.candidates,
             "evaluated": self.evaluated,
+            "nearest": list(self.nearest),
+            "constraints": self.constraints,
         }
         if self.cases:
             out["cases"] = list(self.cases)
@@ -231,7 +279,9 @@ def candidate_spec(base: JointSpec, thr: Thread, grade: str, method: str) -> Joi
     return geometry.with_defaults(spec, notes)
 
 
-def size(base: JointSpec, progress: Any = None) -> SizeResult:
+def size(
+    base: JointSpec, progress: Any = None, constraints: Constraints | None = None
+) -> SizeResult:
     """Search threads x grades x methods for the Pareto-smallest passing designs of ``base``."""
     e = base.eccentric
     if (
@@ -244,10 +294,21 @@ def size(base: JointSpec, progress: Any = None) -> SizeResult:
             "bolt lies outside the interface's core); use check",
             key="eccentricity.bolt_offset",
         )
-    sizes = candidate_threads(base.bolt.thread)
+    con = constraints or Constraints()
+    sizes = con.threads_of(candidate_threads(base.bolt.thread))
     grade_names = METRIC_GRADES if base.bolt.thread.system == "metric" else UNIFIED_GRADES
     known = {g.name for g in grades()}
+    if con.grades is not None:
+        grade_names = con.grades
     grade_names = tuple(g for g in grade_names if g in known)
+    methods = tuple(m for m in METHODS if con.methods is None or m in con.methods)
+    if not sizes:
+        raise InputError(
+            f"no thread of the {base.bolt.thread.system} {base.bolt.thread.series} series is "
+            "within the constraint",
+            key="--threads" if con.diameters is not None else "--thread",
+        )
+    failures: list[dict[str, Any]] = []
     skipped = {name for name, _ in base.skips}
     T = np.array([base.service.temperature])
     strength = {}
@@ -325,6 +386,21 @@ def size(base: JointSpec, progress: Any = None) -> SizeResult:
             return None  # does not fit (grade size range, holes, length, data range)
         evaluated += 1
         active = {c: float(v[0]) for c, v in m.items() if c not in skipped}
+        failing = {c: v for c, v in active.items() if v < -1e-9}
+        if failing:
+            failures.append(
+                {
+                    "thread": thr.designation,
+                    "grade": spec.bolt.grade.name,
+                    "method": method,
+                    "failing": [
+                        {"check": c, "margin": v, "remedy": REMEDIES.get(c, "")}
+                        for c, v in sorted(failing.items(), key=lambda kv: kv[1])
+                    ],
+                    "_worst": min(failing.values()),
+                    "_d": thr.d,
+                }
+            )
         if all(v >= -1e-9 for v in active.values()):
             # assembly_preload sits at its limit by construction (the candidate is
             # tightened to its permissible preload): not reported as governing
@@ -346,7 +422,7 @@ def size(base: JointSpec, progress: Any = None) -> SizeResult:
         return memo[key]
 
     designs = []
-    for method in METHODS:
+    for method in methods:
         for g in order:
             # the smallest size of this grade and method that passes (ascending scan)
             first = next((i for i in range(len(sizes)) if cell(i, g, method)), None)
@@ -356,12 +432,27 @@ def size(base: JointSpec, progress: Any = None) -> SizeResult:
             weaker = [w for w in order if strength[w] < des.yield_strength]
             if not any(cell(first, w, method) for w in weaker):
                 designs.append(des)
-    n_s, n_g, n_m = len(sizes), len(grade_names), len(METHODS)
+    n_s, n_g, n_m = len(sizes), len(grade_names), len(methods)
     designs.sort(key=lambda x: (x.d, x.yield_strength, METHODS.index(x.method)))
+    nearest: list[dict[str, Any]] = []
+    if not designs:
+        # the three closest to passing (largest worst margin), each with what would help
+        for f in sorted(failures, key=lambda f: (-f["_worst"], f["_d"]))[:3]:
+            nearest.append({k: v for k, v in f.items() if not k.startswith("_")})
+    held = {
+        "threads": None if con.threads is None else list(con.threads),
+        "diameter_range_mm": None
+        if con.diameters is None
+        else [con.diameters[0] * 1e3, con.diameters[1] * 1e3],
+        "methods": list(methods),
+        "grades": list(grade_names),
+    }
     return SizeResult(
         base.title,
         tuple(designs),
         n_s * n_g * n_m,
         evaluated,
         tuple(c.name for c in base.cases),
+        tuple(nearest),
+        held,
     )
