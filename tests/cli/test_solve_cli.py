@@ -107,14 +107,23 @@ def test_load_cell_rig_load_share(examples_dir):
     )
     cases = {c["name"]: c for c in out["cases"]}
     base, push = cases["assembly"]["parts"], cases["test push 150 kN"]["parts"]
-    d_bolt = push["bolts (4 x M16)"]["force_N"] - base["bolts (4 x M16)"]["force_N"]
-    d_sleeve = push["spacer sleeves (4)"]["force_N"] - base["spacer sleeves (4)"]["force_N"]
-    d_centre = push["centre sleeve"]["force_N"] - base["centre sleeve"]["force_N"]
+
+    def total(state, part):
+        return state[part]["total_force_N"]
+
+    d_bolt = total(push, "bolts (M16)") - total(base, "bolts (M16)")
+    d_sleeve = total(push, "spacer sleeves") - total(base, "spacer sleeves")
+    d_centre = total(push, "centre sleeve") - total(base, "centre sleeve")
     assert d_bolt + d_sleeve + d_centre == pytest.approx(-150e3, rel=1e-9)
+    # the load share the output gives is the same split
+    share = cases["test push 150 kN"]["load_share"]["bottom: -150000 N"]
+    assert share["bolts (M16)"] * -150e3 == pytest.approx(d_bolt, rel=1e-6)
     # preloaded assembly: bolt tension equals the sum of the sleeve compressions
-    assert base["bolts (4 x M16)"]["force_N"] == pytest.approx(
-        -base["spacer sleeves (4)"]["force_N"] - base["centre sleeve"]["force_N"], rel=1e-9
+    assert total(base, "bolts (M16)") == pytest.approx(
+        -total(base, "spacer sleeves") - total(base, "centre sleeve"), rel=1e-9
     )
+    assert base["bolts (M16)"]["count"] == 4
+    assert base["bolts (M16)"]["force_N"] * 4 == pytest.approx(total(base, "bolts (M16)"))
 
 
 def test_mechanism_names_the_nodes(write_toml):

@@ -460,7 +460,7 @@ def test_too_many_values_are_refused(tmp_path):
         ("flange", "pump-outlet-flange-8-bolts.toml", ('"40 bar"', '"1e300 bar"')),
         ("flange", "pump-outlet-flange-8-bolts.toml", ('"200 mm"', '"1e+300 mm"')),
         ("flange", "pump-outlet-flange-8-bolts.toml", ("bolt_count = 8", "bolt_count = 811")),
-        ("solve", "load-cell-rig-bolts-and-sleeves.toml", ('"50 mm"', '"1e+300 mm"')),
+        ("solve", "load-cell-rig-bolts-and-sleeves.toml", ('"28 mm"', '"1e+300 mm"')),
     ],
 )
 def test_huge_values_are_refused_quickly(tmp_path, cmd, name, edit):

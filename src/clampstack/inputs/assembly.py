@@ -73,6 +73,18 @@ PART = Schema(
             default="0 K",
         ),
         Key(
+            "preload",
+            "force",
+            "force the part carries when assembled (tension +): its fitted length is set so "
+            "(instead of misfit)",
+        ),
+        Key(
+            "count",
+            "integer",
+            "identical parts in parallel (force reported per part and in total)",
+            default="1",
+        ),
+        Key(
             "curve",
             "pairs",
             'force-elongation points [["-0.2 mm", "-40 kN"], ["0 mm", "0 kN"], ...] '
@@ -218,6 +230,27 @@ def part(raw: dict[str, Any], key: str) -> PartSpec:
         behaviour = "compression"  # a clearance that closes: a contact that only pushes
     if raw["gap"] and behaviour == "curve":
         raise InputError("a curve part takes no gap (shift the curve instead)", key=f"{key}.gap")
+    count = raw["count"] if raw["count"] is not None else 1
+    if isinstance(count, bool) or not isinstance(count, int) or not 1 <= count <= 10_000:
+        raise InputError(
+            f"count must be a whole number from 1 to 10000, got {count!r}", key=f"{key}.count"
+        )
+    if count > 1 and behaviour == "curve":
+        raise InputError(
+            "a curve part takes no count (give the curve of the group)", key=f"{key}.count"
+        )
+    if raw["preload"] is not None:
+        if raw["misfit"]:
+            raise InputError("give preload or misfit, not both", key=f"{key}.preload")
+        if behaviour == "curve":
+            raise InputError("a curve part takes no preload", key=f"{key}.preload")
+        if (behaviour == "compression" and raw["preload"] > 0) or (
+            behaviour == "tension" and raw["preload"] < 0
+        ):
+            raise InputError(
+                f"a {behaviour}-only part cannot carry a preload of that sign (tension +)",
+                key=f"{key}.preload",
+            )
     return PartSpec(
         name=raw["name"],
         ends=ends,
@@ -233,6 +266,8 @@ def part(raw: dict[str, Any], key: str) -> PartSpec:
         temperature_change=raw["temperature_change"] or 0.0,
         curve=curve,
         key=key,
+        count=count,
+        preload=raw["preload"],
     )
 
 

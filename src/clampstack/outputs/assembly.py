@@ -27,9 +27,14 @@ def assembly_text(result: AssemblyResult, units: str = "si") -> str:
         for p in asm.parts:
             rows.append(
                 [
-                    p.name,
+                    p.name if p.count == 1 else f"{p.name} (x {p.count})",
                     f"{p.ends[0]}-{p.ends[1]}",
-                    u.fmt("force", case.force[p.name]),
+                    u.fmt("force", case.force[p.name])
+                    + (
+                        ""
+                        if p.count == 1
+                        else f" (all: {u.fmt('force', case.force[p.name] * p.count)})"
+                    ),
                     u.fmt("stress", case.stress[p.name]),
                     u.fmt("length", case.elongation[p.name]),
                     p.behaviour if p.behaviour != "linear" else "",
@@ -68,10 +73,29 @@ def assembly_text(result: AssemblyResult, units: str = "si") -> str:
             )
         )
         out.append(f"equilibrium residual: {case.residual:.3g} N")
+        F = u.label("force")
+        for load, share in case.load_share.items():
+            node, _, force = load.partition(": ")
+            shown = ", ".join(f"{name} {v:+.3g}" for name, v in share.items())
+            out.append(
+                f"load share of {u.fmt('force', float(force.split()[0]))} {F} at {node} "
+                f"(change of each part's force in all / the load): {shown}"
+            )
+        for ev in case.events:
+            out.append(f"  {ev['part']} {ev['event']} at {ev['at_factor']:.4g} x this case")
         out.append("")
+    for name, d in result.fitted_misfits.items():
+        part = next(p for p in asm.parts if p.name == name)
+        out.append(
+            f"preload of {name!r}: {u.fmt('force', part.preload)} {u.label('force')} per part; "
+            f"fitted with a misfit (free minus fitted length) of {u.fmt('length', d)} "
+            f"{u.label('length')}"
+        )
     out.append(
         "Signs: part force tension +; displacement, loads and reactions along +axis "
-        "(first end -> second end of a part)."
+        "(first end -> second end of a part). Elongation: the change of the distance between "
+        "a part's two end nodes from the unloaded geometry (u_second - u_first), its free "
+        "elongation from misfit and temperature included; force is per part."
     )
     if result.notes:
         out.append("Warnings")
