@@ -84,3 +84,35 @@ def test_compression_part_cannot_take_a_tensile_preload():
     with pytest.raises(InputError) as err:
         assembly_from_data(d)
     assert err.value.key == "part[2].preload"
+
+
+def test_report_of_an_assembly(tmp_path):
+    import csv
+    import json
+    from pathlib import Path
+
+    from click.testing import CliRunner
+
+    from clampstack.cli import main
+
+    ex = Path(__file__).parents[1] / "examples" / "load-cell-rig-bolts-and-sleeves.toml"
+    res = CliRunner().invoke(main, ["report", str(ex), "-o", str(tmp_path)])
+    assert res.exit_code == 0, res.output
+    stem = ex.stem
+    html = (tmp_path / f"{stem}.html").read_text()
+    for part in (
+        "Inputs",
+        "States",
+        "Case: test push 150 kN",
+        "Load share",
+        "unloads at",
+        "Figure 1",
+        "Figure 2",
+        "Caution",
+    ):
+        assert part in html, part
+    data = json.loads((tmp_path / f"{stem}.json").read_text())
+    assert data["report"]["input_sha256"] and len(data["cases"]) == 4
+    rows = list(csv.DictReader((tmp_path / f"{stem}-parts.csv").open()))
+    bolts = [r for r in rows if r["part"] == "bolts (M16)" and r["case"] == "assembly"][0]
+    assert float(bolts["total_force_N"]) == pytest.approx(4 * float(bolts["force_N"]))

@@ -519,11 +519,29 @@ def demo(out_dir: str) -> None:
 @click.option("--json", "as_json", is_flag=True, help="Print the verdict and the files as JSON.")
 @handle_errors
 def report(file: str, out_dir: str, units: str, as_json: bool) -> None:
-    """HTML calculation report of the joint or flange in FILE, JSON and CSV beside it (exit 1 on a fail)."""
+    """HTML calculation report of the joint, flange or assembly in FILE, JSON and CSV beside it (exit 1 on a fail)."""
     from .inputs.files import file_kind, load_toml
     from .outputs.files import write_files
 
-    if file_kind(load_toml(file).data) == "flange":  # a flange file: the flange report
+    kind = file_kind(load_toml(file).data)
+    if kind == "assembly":  # an assembly file: forces, displacements, load share
+        from .assembly import solve_assembly
+        from .inputs.assembly import read_assembly_file
+        from .report import render_assembly_report
+
+        adoc, asm = read_assembly_file(file, "report")
+        aresult = _in_file(adoc.path, solve_assembly, asm)
+        afiles = _in_file(adoc.path, render_assembly_report, adoc, aresult, units)
+        written = write_files(out_dir, afiles)
+        page = next(p for p in written if p.suffix == ".html")
+        if as_json:
+            _print_json({"ok": True, "report": str(page), "files": [str(p) for p in written]})
+        else:
+            _echo(f"SOLVED: {asm.title}")
+            _echo(f"Report: {page}")
+            _echo("Beside it: " + ", ".join(p.name for p in written if p != page))
+        sys.exit(EXIT_OK)
+    if kind == "flange":  # a flange file: the flange report
         from .flange import analyse_flange
         from .inputs.flange import read_flange_file
         from .report import render_flange_report

@@ -105,7 +105,7 @@ def load_toml(path: str | os.PathLike[str]) -> InputDocument:
 KIND_COMMANDS: dict[str, tuple[str, ...]] = {
     "joint": ("check", "sweep", "scatter", "size", "report"),
     "flange": ("flange", "scatter", "size", "report"),
-    "assembly": ("solve",),
+    "assembly": ("solve", "report"),
 }
 _KIND_NAMES = {
     "joint": "a single-bolt joint file",

@@ -9,10 +9,13 @@ everything has been rendered.
 
 from __future__ import annotations
 
+from .assembly import assembly_report_file_names, render_assembly_report
 from .flange import flange_report_file_names, render_flange_report
 from .joint import render_joint_report, report_file_names
 
 __all__ = [
+    "assembly_report_file_names",
+    "render_assembly_report",
     "flange_report_file_names",
     "render_flange_report",
     "render_joint_report",
