@@ -21,7 +21,7 @@ def test_demo_writes_the_report_and_the_results(tmp_path):
     assert jpage.startswith("<!DOCTYPE html>")
     assert "qualified engineer" in jpage and "<b>PASS</b>" in jpage
     assert "http://" not in jpage and "https://" not in jpage  # self-contained
-    assert jpage.count("<svg ") == 3  # spring model, joint diagram, load curves
+    assert jpage.count("<svg ") == 4  # first-page diagram, spring model, joint diagram, load curves
     assert (out / "m10-cover-screw-aluminium-states.csv").is_file()
     assert (out / "m10-cover-screw-aluminium-checks.csv").is_file()
     assert (out / "m10-cover-screw-aluminium.toml").is_file()

@@ -53,7 +53,7 @@ def test_report_sections_numbers_and_traceability(examples_dir):
     ):
         assert f'<section id="{sid}">' in page
     assert 'id="temperature"' not in page  # service at assembly temperature: no sweep
-    assert page.count("<svg ") == 3  # schematic, joint diagram, load curves
+    assert page.count("<svg ") == 4  # first-page diagram, schematic, joint diagram, load curves
     # job summary: verdict, governing check, torque spec
     assert "<b>PASS</b>" in page and "governing check <b>working_stress</b>" in page
     assert f"{fmt_number(r.torque[0])}&nbsp;N&middot;m" in page
@@ -95,7 +95,7 @@ def test_json_and_csv_beside_the_page(examples_dir):
 def test_hot_joint_gets_the_temperature_section(examples_dir):
     _, r, files = render(examples_dir, "exhaust-flange-hot")
     page = files["exhaust-flange-hot.html"]
-    assert '<section id="temperature">' in page and page.count("<svg ") == 4
+    assert '<section id="temperature">' in page and page.count("<svg ") == 5
     assert "<b>FAIL</b>" in page and '<span class="fail">FAIL</span>' in page
     sw, note = report_sweep(r)
     T = sw.temperature - 273.15

@@ -63,7 +63,7 @@ def test_scatter_section_numbers_and_traceability(scattered):
     heads = re.findall(r"<h2>(\d+)\. ([^<]+)</h2>", page)
     assert [int(n) for n, _ in heads] == list(range(1, len(heads) + 1))
     assert dict((t, n) for n, t in heads)["Statistical scatter"] == "8"  # no sweep here
-    assert page.count("<svg ") == 5  # three joint figures and two histograms
+    assert page.count("<svg ") == 6  # the first page's diagram, three figures, two histograms
     count = f"{sr.samples:,}".replace(",", "&nbsp;")
     assert sr.samples >= SCATTER_SAMPLES and sr.convergence["adaptive"]
     assert f"<b>{count} samples, seed 0</b>" in page and "rounds until every probability" in page

@@ -212,9 +212,24 @@ def joint_text(r: JointResult, units: str = "si") -> str:
     else:
         out.append(f"RESULT: FAIL - {', '.join(failed)}")
     if r.cases:
+        gc = (gov.extra or {}).get("governing_case", r.governing_case) if gov else r.governing_case
         out.append(
-            f"  {len(r.cases)} load cases; governing: {r.governing_case!r} (its states are shown "
-            "below; each check gives its worst case)"
+            f"  {len(r.cases)} load cases; governing: {gc!r} (the states below are those of "
+            f"{r.governing_case!r}; each check gives its worst case)"
+        )
+    # every check's margin at a glance, and the joint diagram in numbers
+    out.append(
+        "  margins: "
+        + ", ".join(f"{c.name} {'off' if c.skipped else _margin(c)}" for c in r.checks if c.name)
+    )
+    svc = next((st for st in r.states if st.key == "service_max"), None)
+    temp = next((st for st in r.states if st.key == "temperature"), None)
+    if svc is not None and temp is not None:
+        out.append(
+            f"  joint: F_M {u.fmt('force', r.assembly_min)}..{u.fmt('force', r.assembly_max)}, "
+            f"F_V {u.fmt('force', temp.bolt_min)}, F_A {u.fmt('force', svc.axial_load)}, "
+            f"F_S,max {u.fmt('force', r.bolt_load_max)}, F_KR,min "
+            f"{u.fmt('force', r.residual_clamp_min)} {F}"
         )
     out.append("")
 

@@ -19,7 +19,7 @@ from .._version import __version__
 from ..errors import InputError
 from ..inputs.files import InputDocument
 from ..joint.analysis import JointResult
-from ..outputs.joint import _mu, case_rows, eccentric_lines, governing
+from ..outputs.joint import _margin, _mu, case_rows, check_value, eccentric_lines, governing
 from ..outputs.text import CAUTION, UNIT_SYSTEMS, DisplayUnits, fmt_number
 from ._common import (
     MARGIN_NOTE,
@@ -88,7 +88,34 @@ def report_file_names(stem: str) -> dict[str, str]:
 # --------------------------------------------------------------------------- sections
 
 
-def _summary(r: JointResult, u: DisplayUnits) -> str:
+ANSWER_CSS = (
+    "figure.compact{margin:.2rem 0 .1rem}figure.compact svg.figure{width:62%;margin:0 auto}"
+    "table.margins td,table.margins th{font-size:8pt;padding:.03rem .35rem}"
+    "div.details{break-before:page;page-break-before:always}"
+)
+
+
+def _margins(r: JointResult, u: DisplayUnits) -> str:
+    """Every check's value, limit and margin in one compact table (the answer's page)."""
+    rows = []
+    for c in r.checks:
+        v, lim = check_value(c, u)
+        verdict = (
+            '<span class="off">off</span>'
+            if c.skipped
+            else (
+                '<span class="pass">pass</span>' if c.passed else '<span class="fail">FAIL</span>'
+            )
+        )
+        row = [_e(c.name), _e(v), _e(c.relation), _e(lim), _e(_margin(c)), verdict]
+        if r.cases:
+            row.append(_e((c.extra or {}).get("governing_case", "")))
+        rows.append(row)
+    head = ["check", "value", "", "limit", "margin", "result"] + (["case"] if r.cases else [])
+    return _table(head, rows, left={0, 5, 6}, cls="small margins")
+
+
+def _summary(r: JointResult, u: DisplayUnits, compact_diagram: str = "") -> str:
     s = r.spec
     tr = s.tightening
     gov = governing(r)
@@ -167,10 +194,17 @@ def _summary(r: JointResult, u: DisplayUnits) -> str:
                 cls="small",
             )
         )
+    gov_case = ""
+    if r.cases and gov is not None:
+        gc = (gov.extra or {}).get("governing_case", r.governing_case)
+        gov_case = f"<p>Governing load case: <b>{_e(gc)}</b> (of {len(r.cases)}).</p>"
+    # the answer on the first page: verdict, tightening, every margin, the diagram, caution;
+    # the key figures and the cases follow on the next page
     return (
         '<section id="summary"><h2>1. Summary</h2>'
-        f"{verdict}{spec}{_kv(rows)}{cases}"
-        f'<div class="caution">{_e(CAUTION)}</div></section>'
+        f"{verdict}{gov_case}{spec}{_margins(r, u)}{compact_diagram}"
+        f'<div class="caution">{_e(CAUTION)}</div>'
+        f'<div class="details"><h3>Key figures</h3>{_kv(rows)}{cases}</div></section>'
     )
 
 
@@ -854,6 +888,13 @@ def render_joint_report(
         )
         + " (stiffness at service temperature).",
     )
+    from ..plots import inline_svg
+
+    compact = (
+        '<figure class="compact">'
+        + inline_svg(joint_diagram(result, units), "f0", title="Joint load diagram")
+        + "<figcaption>Joint load diagram (figure 2 below, in full).</figcaption></figure>"
+    )
     loads = _figure(
         bolt_load_plot(result, units),
         "f3",
@@ -901,7 +942,7 @@ def render_joint_report(
     body = "".join(
         [
             head,
-            _summary(result, u),
+            _summary(result, u, compact),
             _inputs(doc, result),
             _model(result, u, schematic),
             _diagrams(diagram, loads),
@@ -926,6 +967,7 @@ def render_joint_report(
         __version__,
         f"clampstack {__version__} - {name} (SHA-256 {doc.sha256[:12]}) - {s.title}",
         body,
+        ANSWER_CSS,
     )
     data = result.to_dict()
     data["report"] = {
