@@ -160,7 +160,7 @@ def case_rows(r: JointResult, u: DisplayUnits) -> tuple[list[str], list[list[str
     head = [
         "case",
         f"F_A [{F}]",
-        "T [degC]",
+        f"T [{u.temp_label}]",
         f"bolt max [{F}]",
         f"clamp min [{F}]",
         "result",
@@ -176,7 +176,7 @@ def case_rows(r: JointResult, u: DisplayUnits) -> tuple[list[str], list[list[str
             [
                 cr.name,
                 loads,
-                f"{x.spec.service.temperature - 273.15:g}",
+                f"{u.temp(x.spec.service.temperature):.4g}",
                 u.fmt("force", x.bolt_load_max),
                 u.fmt("force", x.residual_clamp_min),
                 "pass" if x.ok else "FAIL",
@@ -303,8 +303,8 @@ def joint_text(r: JointResult, units: str = "si") -> str:
         f"  embedding {r.embedding_amount * 1e6:.3g} um -> preload loss "
         f"{u.fmt('force', r.embedding_loss)} {F}; thermal change "
         f"{u.fmt('force', r.thermal_change)} {F} "
-        f"({s.service.assembly_temperature - 273.15:g} -> "
-        f"{s.service.temperature - 273.15:g} degC)"
+        f"({u.temp(s.service.assembly_temperature):.4g} -> "
+        f"{u.temp(s.service.temperature):.4g} {u.temp_label})"
     )
     if r.eccentric is None:
         out.append(f"  separation load {u.fmt('force', r.separation_load)} {F}")

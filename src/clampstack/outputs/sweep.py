@@ -22,8 +22,9 @@ def sweep_text(r: SweepResult, units: str = "si") -> str:
     T = r.temperature
     out = [
         r.spec.title,
-        f"Service temperature {T[0] - C0:g} .. {T[-1] - C0:g} degC, {T.size} points; "
-        f"assembly at {r.spec.service.assembly_temperature - C0:g} degC",
+        f"Service temperature {u.temp(T[0]):.4g} .. {u.temp(T[-1]):.4g} {u.temp_label}, "
+        f"{T.size} points; assembly at {u.temp(r.spec.service.assembly_temperature):.4g} "
+        f"{u.temp_label}",
         "",
     ]
     bad_cycles = [k for k, c in (r.cycle or {}).items() if not c.get("ok", True)]
@@ -38,14 +39,14 @@ def sweep_text(r: SweepResult, units: str = "si") -> str:
         where = (
             "over the whole range"
             if lim.fails == "whole range"
-            else f"{lim.fails} {lim.temperature - C0:.2f} degC"
+            else f"{lim.fails} {u.temp(lim.temperature):.2f} {u.temp_label}"
         )
         out.append(f"  {lim.check} fails {where}")
     out.append("")
     out.append(
         f"Thermal preload change (minimum preload, after embedding): "
-        f"{u.fmt('force', r.thermal_change_cold)} {F} at {T[0] - C0:g} degC, "
-        f"{u.fmt('force', r.thermal_change_hot)} {F} at {T[-1] - C0:g} degC"
+        f"{u.fmt('force', r.thermal_change_cold)} {F} at {u.temp(T[0]):.4g} {u.temp_label}, "
+        f"{u.fmt('force', r.thermal_change_hot)} {F} at {u.temp(T[-1]):.4g} {u.temp_label}"
     )
     out.append(
         f"Assembly preload {u.fmt('force', r.assembly_range[0])} .. "
@@ -62,7 +63,7 @@ def sweep_text(r: SweepResult, units: str = "si") -> str:
         worst = min(names, key=lambda n: r.margins[n][i]) if names else ""
         rows.append(
             [
-                f"{T[i] - C0:.1f}",
+                f"{u.temp(T[i]):.1f}",
                 u.fmt("force", r.preload_min[i]),
                 u.fmt("force", r.preload_max[i]),
                 u.fmt("force", r.residual_min[i]),
@@ -74,7 +75,7 @@ def sweep_text(r: SweepResult, units: str = "si") -> str:
     out.append(
         table(
             [
-                "T [degC]",
+                f"T [{u.temp_label}]",
                 f"preload min [{F}]",
                 f"preload max [{F}]",
                 f"residual clamp min [{F}]",
@@ -94,7 +95,8 @@ def sweep_text(r: SweepResult, units: str = "si") -> str:
         for label, c in r.cycle.items():
             if c.get("collapse"):
                 out.append(
-                    f"  {label} ({c['peak_temperature_degC']:g} degC): plastic collapse, "
+                    f"  {label} ({u.temp(c['peak_temperature_degC'] + C0):.4g} {u.temp_label}): "
+                    "plastic collapse, "
                     "no equilibrium with yielding parts"
                 )
                 continue
@@ -105,7 +107,8 @@ def sweep_text(r: SweepResult, units: str = "si") -> str:
                 f"{u.fmt('force', c['permanent_loss_N'])} {F}"
             )
             out.append(
-                f"  {label} ({c['peak_temperature_degC']:g} degC): {msg}; preload after "
+                f"  {label} ({u.temp(c['peak_temperature_degC'] + C0):.4g} {u.temp_label}): "
+                f"{msg}; preload after "
                 f"{u.fmt('force', c['preload_after_min_N'])} .. "
                 f"{u.fmt('force', c['preload_after_max_N'])} {F}"
             )

@@ -31,11 +31,30 @@ class DisplayUnits:
         if value is None:
             return "-"
         _, factor = getattr(self, kind)
-        return fmt_number(value / factor, digits)
+        return fmt_number(value / factor, digits, us=self.name == "us")
 
     def label(self, kind: str) -> str:
         """Unit label for ``kind``."""
         return getattr(self, kind)[0]
+
+    @property
+    def us(self) -> bool:
+        return self.name == "us"
+
+    def temp(self, T: float) -> float:
+        """A temperature [K] in this system's scale: degC, or degF for US customary."""
+        c = T - 273.15
+        return c * 1.8 + 32.0 if self.us else c
+
+    @property
+    def temp_label(self) -> str:
+        """``degC`` or ``degF`` (plain text)."""
+        return "degF" if self.us else "degC"
+
+    @property
+    def temp_symbol(self) -> str:
+        """``°C`` or ``°F`` (figures and HTML)."""
+        return "°F" if self.us else "°C"
 
 
 SI = DisplayUnits(
@@ -61,8 +80,11 @@ US = DisplayUnits(
 UNIT_SYSTEMS = {"si": SI, "us": US}
 
 
-def fmt_number(x: float, digits: int = 4) -> str:
-    """Compact number: ``digits`` significant figures, no exponent for ordinary magnitudes."""
+def fmt_number(x: float, digits: int = 4, us: bool = False) -> str:
+    """Compact number: ``digits`` significant figures, no exponent for ordinary magnitudes.
+
+    Thousands are grouped with a space from 10 000 (SI style, ISO 80000-1); ``us``: with a
+    comma from 1,000, as US readers expect."""
     if x != x:  # NaN
         return "nan"
     if x == 0:
@@ -73,6 +95,8 @@ def fmt_number(x: float, digits: int = 4) -> str:
     import math
 
     decimals = max(0, digits - 1 - int(math.floor(math.log10(ax))))
+    if us:
+        return f"{x:,.{decimals}f}"
     return f"{x:,.{decimals}f}".replace(",", " ") if ax >= 1e4 else f"{x:.{decimals}f}"
 
 

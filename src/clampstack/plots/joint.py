@@ -129,7 +129,12 @@ def joint_diagram(result: JointResult, units: str = "si") -> Figure:
     FA = svc.axial_load
     Fsep = result.separation_load
     thermal = abs(FVT - FV) > 1e-9 * FMmax
-    T0, T1 = s.service.assembly_temperature - C0, s.service.temperature - C0
+    uu = UNIT_SYSTEMS[units]
+    T0, T1, TS = (
+        uu.temp(s.service.assembly_temperature),
+        uu.temp(s.service.temperature),
+        uu.temp_symbol,
+    )
 
     def X(v: float) -> float:
         return v / xf
@@ -163,7 +168,7 @@ def joint_diagram(result: JointResult, units: str = "si") -> Figure:
                 color=THERMAL,
                 lw=1.3,
                 ls=(0, (6, 2, 1.5, 2)),
-                label=f"at service temperature ({T1:g} °C)",
+                label=f"at service temperature ({T1:.4g} {TS})",
             )
         ax.axhspan(Y(FMmin), Y(FMmax), color=BOLT_LIGHT, alpha=0.45, lw=0, zorder=0)
         ax.axhline(Y(result.permissible_preload), color=LIMIT, lw=0.9, ls=(0, (1, 2)))
@@ -308,7 +313,7 @@ def joint_diagram(result: JointResult, units: str = "si") -> Figure:
                 color=INK,
             ).set_gid(f"value-{key}")
         sym = r"$\Phi_{en}^*$" if result.eccentric is not None else r"$\Phi_n$"
-        note = rf"{sym} = {phi:.4g} (n = {n:g}); {T0:g} → {T1:g} °C"
+        note = rf"{sym} = {phi:.4g} (n = {n:.3g}); {T0:.4g} → {T1:.4g} {TS}"
         av.text(
             0.02,
             1.0 - (len(rows) + 0.6) * step,
@@ -496,7 +501,8 @@ def bolt_load_plot(result: JointResult, units: str = "si", n_points: int = 61) -
         fig = new_figure(height=3.4)
         ax = fig.add_subplot()
         ax.set_title(
-            f"Bolt load and clamp load against the working load ({s.service.temperature - C0:g} °C)"
+            "Bolt load and clamp load against the working load "
+            f"({UNIT_SYSTEMS[units].temp(s.service.temperature):.4g} {UNIT_SYSTEMS[units].temp_symbol})"
         )
         ax.set_xlabel(f"working load $F_A$ [{fl}]")
         ax.set_ylabel(f"force [{fl}]")
@@ -628,7 +634,8 @@ def eccentric_load_plot(result: JointResult, units: str = "si", n_points: int = 
         aw = fig.add_subplot(gs[1], sharex=ax)
         ax.set_title(
             "Eccentric joint: bolt load and clamp load through and past opening "
-            f"({s.service.temperature - C0:g} °C)"
+            f"({UNIT_SYSTEMS[units].temp(s.service.temperature):.4g} "
+            f"{UNIT_SYSTEMS[units].temp_symbol})"
         )
         ax.set_ylabel(f"force [{fl}]")
         ax.axvline(x[lam == 1.0][0], color=LOAD, lw=0.9, ls=(0, (4, 2)))

@@ -12,7 +12,7 @@ import numpy as np
 from matplotlib.figure import Figure
 
 from ..outputs.text import UNIT_SYSTEMS, fmt_number
-from ..studies.sweep import C0, SweepResult
+from ..studies.sweep import SweepResult
 from ._style import (
     BOLT,
     BOLT_LIGHT,
@@ -44,12 +44,13 @@ def sweep_plot(result: SweepResult, units: str = "si") -> Figure:
     """
     fl, ff = _force(units)
     s = result.spec
-    T = result.temperature - C0
+    uu = UNIT_SYSTEMS[units]
+    T = uu.temp(result.temperature)
     with style():
         fig = new_figure(height=3.8)
         ax = fig.add_subplot()
         ax.set_title("Preload and residual clamp load over the service temperature")
-        ax.set_xlabel("service temperature [°C]")
+        ax.set_xlabel(f"service temperature [{uu.temp_symbol}]")
         ax.set_ylabel(f"force [{fl}]")
         band = ax.fill_between(
             T,
@@ -74,12 +75,12 @@ def sweep_plot(result: SweepResult, units: str = "si") -> Figure:
         if rq > 0:
             ax.axhline(rq / ff, color=GOOD, lw=0.9, ls=(0, (4, 2)), label="required clamp load")
             ax.get_lines()[-1].set_gid("required-clamp-load")
-        Ta = s.service.assembly_temperature - C0
+        Ta = uu.temp(s.service.assembly_temperature)
         if T[0] <= Ta <= T[-1]:
             ax.axvline(Ta, color=MUTED, lw=0.8, ls=":")
             ax.get_lines()[-1].set_gid("assembly-temperature")
             ax.annotate(
-                f"assembly {Ta:g} °C",
+                f"assembly {Ta:.4g} {uu.temp_symbol}",
                 (Ta, 1.0),
                 xycoords=("data", "axes fraction"),
                 xytext=(3, -3),
@@ -103,11 +104,13 @@ def sweep_plot(result: SweepResult, units: str = "si") -> Figure:
             )
             fill.set_gid("failing")
         for i, lim in enumerate(result.limits):
-            t = lim.temperature - C0
+            t = uu.temp(lim.temperature)
             ax.axvline(t, color=LIMIT, lw=1.0, ls=(0, (4, 1.5)))
             ax.get_lines()[-1].set_gid(f"limit-{i}")
             where = (
-                "over the whole range" if lim.fails == "whole range" else f"{lim.fails} {t:.1f} °C"
+                "over the whole range"
+                if lim.fails == "whole range"
+                else f"{lim.fails} {t:.1f} {uu.temp_symbol}"
             )
             ax.annotate(
                 f"{lim.check} fails {where}",

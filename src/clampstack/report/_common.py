@@ -103,6 +103,11 @@ def _f(u: DisplayUnits, kind: str, value: float | None) -> str:
     return f"{u.fmt(kind, value)}&nbsp;{_lab(u, kind)}"
 
 
+def _T(u: DisplayUnits, T: float) -> str:
+    """A temperature [K] in the report's scale: ``20&nbsp;&deg;C`` or ``68&nbsp;&deg;F``."""
+    return f"{u.temp(T):.4g}&nbsp;&deg;{'F' if u.us else 'C'}"
+
+
 def _table(
     headers: list[str], rows: list[list[str]], left: set[int] | None = None, cls: str = ""
 ) -> str:

@@ -134,7 +134,9 @@ def _moment(u: DisplayUnits, m: float) -> str:
     return f"{fmt_number(m / 1e3)}&nbsp;kN&middot;m"
 
 
-def _deg(T: float) -> str:
+def _deg(T: float, u: DisplayUnits | None = None) -> str:
+    if u is not None and u.us:
+        return f"{u.temp(T):.4g}&nbsp;&deg;F"
     return f"{T - C0:g}&nbsp;&deg;C"
 
 
@@ -235,7 +237,8 @@ def _summary(r: FlangeResult, u: DisplayUnits) -> str:
         ),
         (
             "Temperatures",
-            f"assembly {_deg(s.T_assembly)}, flange {_deg(s.T_flange)}, bolts {_deg(s.T_bolt)}",
+            f"assembly {_deg(s.T_assembly, u)}, flange {_deg(s.T_flange, u)}, "
+            f"bolts {_deg(s.T_bolt, u)}",
         ),
     ]
     note = ""

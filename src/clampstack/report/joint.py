@@ -22,6 +22,7 @@ from ..joint.analysis import JointResult
 from ..outputs.joint import _margin, _mu, case_rows, check_value, eccentric_lines, governing
 from ..outputs.text import CAUTION, UNIT_SYSTEMS, DisplayUnits, fmt_number
 from ._common import (
+    _T,
     MARGIN_NOTE,
     _checks_table,
     _e,
@@ -177,8 +178,7 @@ def _summary(r: JointResult, u: DisplayUnits, compact_diagram: str = "") -> str:
         ),
         (
             "Temperatures",
-            f"assembly {svc.assembly_temperature - C0:g} &deg;C, service "
-            f"{svc.temperature - C0:g} &deg;C",
+            f"assembly {_T(u, svc.assembly_temperature)}, service {_T(u, svc.temperature)}",
         ),
     ]
     cases = ""
@@ -328,7 +328,7 @@ def _model(r: JointResult, u: DisplayUnits, schematic: str) -> str:
                 u.fmt("length", lay.thickness),
                 u.fmt("length", lay.hole),
                 u.fmt("length", lay.outer_diameter) if lay.outer_diameter else "full cone",
-                f"{lay.temperature - C0:g}",
+                f"{u.temp(lay.temperature):.4g}",
             ]
         )
     L = _lab(u, "length")
@@ -340,7 +340,7 @@ def _model(r: JointResult, u: DisplayUnits, schematic: str) -> str:
             f"thickness [{L}]",
             f"hole [{L}]",
             f"outer diameter [{L}]",
-            "service [&deg;C]",
+            f"service [&deg;{'F' if u.us else 'C'}]",
         ],
         lay_rows,
         left={0, 1, 2},
@@ -486,7 +486,7 @@ def _tightening(r: JointResult, u: DisplayUnits) -> str:
         (
             "Thermal preload change",
             f"{_f(u, 'force', r.thermal_change)} (minimum branch, "
-            f"{s.service.assembly_temperature - C0:g} &rarr; {s.service.temperature - C0:g} &deg;C)",
+            f"{_T(u, s.service.assembly_temperature)} &rarr; {_T(u, s.service.temperature)})",
         ),
     ]
     if r.cycle is not None and r.cycle.permanent_loss > 0:
@@ -509,7 +509,7 @@ def _temperature(sweep: Any, figure: str, note: str, u: DisplayUnits) -> str:
             + (
                 "over the whole range"
                 if lim.fails == "whole range"
-                else f"{_e(lim.fails)} {lim.temperature - C0:.2f} &deg;C"
+                else f"{_e(lim.fails)} {_T(u, lim.temperature)}"
             )
             + "</li>"
             for lim in sweep.limits
@@ -521,8 +521,8 @@ def _temperature(sweep: Any, figure: str, note: str, u: DisplayUnits) -> str:
         f"<p>{_e(note)}</p>{figure}</div>"
         f"<ul class=notes>{lims}</ul>"
         f"<p>Thermal preload change (minimum preload, after embedding): "
-        f"{_f(u, 'force', sweep.thermal_change_cold)} at {T[0] - C0:g} &deg;C, "
-        f"{_f(u, 'force', sweep.thermal_change_hot)} at {T[-1] - C0:g} &deg;C.</p></section>"
+        f"{_f(u, 'force', sweep.thermal_change_cold)} at {_T(u, T[0])}, "
+        f"{_f(u, 'force', sweep.thermal_change_hot)} at {_T(u, T[-1])}.</p></section>"
     )
 
 
@@ -637,7 +637,9 @@ def _dist_text(d: Any, key: str, u: DisplayUnits) -> str:
     if kind == "temperature":
 
         def val(x: float, spread: bool = False) -> str:
-            return f"{fmt_number(x if spread else x - C0)}&nbsp;{'K' if spread else '&deg;C'}"
+            if spread:
+                return f"{fmt_number(x * (1.8 if u.us else 1.0))}&nbsp;{'&deg;F' if u.us else 'K'}"
+            return _T(u, x)
 
     else:
         display = {"length": "small_length", "dimensionless": None}.get(kind, kind)
