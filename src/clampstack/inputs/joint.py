@@ -743,11 +743,16 @@ def washer(
     mat = part_material(w, key, "steel", rec)
     h_w, od_w = washer_size(thr.d)
     w = dict(w)
+    std = (
+        "0.16 d and 2 d: the catalog has no ASME B18.22.1 washer table; common practice"
+        if thr.system == "unified"
+        else "ISO 7089"
+    )
     w["thickness"] = rec.pick(
-        f"{key}.thickness", w["thickness"], h_w, f"{h_w * 1e3:g} mm (ISO 7089)"
+        f"{key}.thickness", w["thickness"], h_w, f"{h_w * 1e3:.4g} mm ({std})"
     )
     od = rec.pick(
-        f"{key}.outer_diameter", w["outer_diameter"], od_w, f"{od_w * 1e3:g} mm (ISO 7089)"
+        f"{key}.outer_diameter", w["outer_diameter"], od_w, f"{od_w * 1e3:.4g} mm ({std})"
     )
     hole = w["inner_diameter"] or first_hole
     if w["inner_diameter"] is None:
@@ -803,7 +808,8 @@ def nut_table(
         mat = part_material(nraw, "nut", None, rec)
     height = nraw["height"] or thr.nut_height
     if nraw["height"] is None:
-        rec.note("nut.height", f"{height * 1e3:g} mm (ISO 4032)")
+        std = "ASME B18.2.2" if thr.system == "unified" else "ISO 4032"
+        rec.note("nut.height", f"{height * 1e3:.4g} mm ({std})")
     return NutSpec(
         height,
         nraw["bearing_diameter"] or geometry.nut_bearing_diameter(thr),

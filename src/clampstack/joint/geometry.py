@@ -35,8 +35,14 @@ def head_bearing_diameter(thr: Thread, head: str) -> tuple[float, str]:
                 key="bolt.bearing_diameter",
             )
         dW = thr.socket_head_diameter
-        return dW, f"{dW * 1e3:g} mm (socket head d_k, ISO 4762)"
+        std = "ASME B18.3" if thr.system == "unified" else "ISO 4762"
+        return dW, f"{dW * 1e3:g} mm (socket head d_k, {std})"
     dW = bearing_face_diameter(thr.head_across_flats)
+    if thr.system == "unified":
+        return dW, (
+            f"{dW * 1e3:.4g} mm (0.93 x the across-flats width of the ASME B18.2.1 hex head: "
+            "the catalog has no unified bearing-face table; common practice, no source)"
+        )
     return dW, f"{dW * 1e3:.4g} mm (bearing face d_w,min of the hex head)"
 
 
@@ -54,6 +60,14 @@ def plain_shank(thr: Thread, length: float, head: str) -> tuple[float, str]:
     """
     if head == "stud":
         return 0.0, "0 (stud threaded through the clamp length)"
+    if thr.system == "unified":
+        # ASME B18.2.1 hex cap screws: thread length 2 D + 1/4 in up to 6 in long, 2 D +
+        # 1/2 in beyond; ASME B18.3 socket head cap screws: 2 D + 1/2 in (from memory)
+        inch = 0.0254
+        extra = 0.5 * inch if head == "socket" or length > 6 * inch else 0.25 * inch
+        shank = max(0.0, length - (2 * thr.d + extra))
+        std = "ASME B18.3" if head == "socket" else "ASME B18.2.1"
+        return shank, f"{shank * 1e3:.4g} mm ({std} thread length 2D + {extra / inch:g} in)"
     if head == "socket":
         shank = max(0.0, length - (2 * thr.d + 12e-3))
         return shank, f"{shank * 1e3:g} mm (ISO 4762 thread length 2d + 12 mm)"
@@ -67,6 +81,8 @@ def clearance_hole(thr: Thread, key: str) -> tuple[float, str]:
         raise InputError(
             f"no standard clearance hole for {thr.designation}; give hole", key=f"{key}.hole"
         )
+    if thr.system == "unified":
+        return thr.hole_medium, f"{thr.hole_medium * 1e3:.4g} mm (ASME B18.2.8 normal fit)"
     return thr.hole_medium, f"{thr.hole_medium * 1e3:g} mm (ISO 273 medium)"
 
 
