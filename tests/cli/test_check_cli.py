@@ -171,3 +171,23 @@ def test_skip_needs_known_check_and_reason(write_toml):
     check_one_line_error(run("check", str(p)), "skip[1].check", "fatigue")
     p = write_toml(JOINT + '[[skip]]\ncheck = "fatigue"\n')
     check_one_line_error(run("check", str(p)), "skip[1].reason", "missing")
+
+
+def test_us_output_small_torques_in_inch_pounds_temperatures_in_degF(tmp_path):
+    # US customary: below 20 ft*lbf a torque is given in in*lbf (10 N*m = 88.51 in*lbf);
+    # temperatures in degF (20 degC = 68 degF); thousands with a comma
+    from pathlib import Path
+
+    from click.testing import CliRunner
+
+    from clampstack.cli import main
+
+    text = (Path(__file__).parents[2] / "examples" / "m10-cover-screw-aluminium.toml").read_text()
+    text = text.replace('"48 N*m"', '"10 N*m"')
+    path = tmp_path / "small.toml"
+    path.write_text(text)
+    out = CliRunner().invoke(main, ["check", str(path), "--units", "us"]).output
+    assert "tightening torque 88.51 in*lbf" in out
+    assert "68 -> 68 degF" in out
+    big = CliRunner().invoke(main, ["check", str(path)]).output
+    assert "10.00 N*m" in big and "degC" in big

@@ -197,7 +197,7 @@ def case_lines(r: JointResult, u: DisplayUnits) -> list[str]:
 
 def joint_text(r: JointResult, units: str = "si") -> str:
     """The ``check`` result as compact tables: verdict, tightening, states, checks, caution."""
-    u = UNIT_SYSTEMS[units]
+    u = UNIT_SYSTEMS[units].for_torque(r.torque[0] if r.torque else None)
     s = r.spec
     F = u.label("force")
     out = [s.title, _joint_line(r), ""]

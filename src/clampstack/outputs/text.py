@@ -4,7 +4,7 @@ from __future__ import annotations
 
 import re
 from collections.abc import Sequence
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 
 CAUTION = (
     "Caution: these results support, and do not replace, the judgement of a qualified "
@@ -40,6 +40,13 @@ class DisplayUnits:
     @property
     def us(self) -> bool:
         return self.name == "us"
+
+    def for_torque(self, nominal: float | None) -> DisplayUnits:
+        """US customary: torques below 20 ft*lbf in in*lbf, as US torque specifications of
+        small fasteners are written (common practice, no source); otherwise ``self``."""
+        if self.us and nominal is not None and 0 < nominal < 20 * 1.3558179483314004:
+            return replace(self, torque=("in*lbf", 0.1129848290276167))
+        return self
 
     def temp(self, T: float) -> float:
         """A temperature [K] in this system's scale: degC, or degF for US customary."""

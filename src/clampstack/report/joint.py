@@ -853,7 +853,7 @@ def render_joint_report(
     """
     from ..plots import bolt_load_plot, joint_diagram, spring_schematic, sweep_plot
 
-    u = UNIT_SYSTEMS[units]
+    u = UNIT_SYSTEMS[units].for_torque(result.torque[0] if result.torque else None)
     now = now or datetime.now(UTC)
     stamp = now.strftime("%Y-%m-%d %H:%M UTC")
     name = Path(doc.path).name
