@@ -251,6 +251,23 @@ class EccentricSpec:
     bending_inertia: float  # I_Bers [m^4], resolved
     bending_inertia_basis: str  # how I_Bers was found (printed)
 
+    @property
+    def bolt_outside_core(self) -> bool:
+        """True when the preload alone lifts an edge: ``|s_sym| h > I_BT / A_D``."""
+        i = self.interface
+        return self.bolt_offset != 0 and abs(self.bolt_offset) * i.half > i.core
+
+    def refuse_outside_core(self, command: str) -> None:
+        """InputError for a study that does not model a joint open under its preload."""
+        from ..errors import InputError
+
+        if self.bolt_outside_core:
+            raise InputError(
+                f"{command} does not model an eccentric joint whose preload alone lifts an edge "
+                "(the bolt lies outside the interface's core); use check",
+                key="eccentricity.bolt_offset",
+            )
+
 
 @dataclass(frozen=True)
 class RequirementSpec:

@@ -103,6 +103,20 @@ def _f(u: DisplayUnits, kind: str, value: float | None) -> str:
     return f"{u.fmt(kind, value)}&nbsp;{_lab(u, kind)}"
 
 
+def report_block(doc: Any, now: Any, units: str, version: str) -> dict[str, Any]:
+    """The ``report`` block of a report's JSON: tool version, date, input file and its
+    SHA-256, units."""
+    from pathlib import Path
+
+    return {
+        "clampstack_version": version,
+        "generated": now.isoformat(timespec="seconds"),
+        "input_file": Path(doc.path).name,
+        "input_sha256": doc.sha256,
+        "units": units,
+    }
+
+
 def _T(u: DisplayUnits, T: float) -> str:
     """A temperature [K] in the report's scale: ``20&nbsp;&deg;C`` or ``68&nbsp;&deg;F``."""
     return f"{u.temp(T):.4g}&nbsp;&deg;{'F' if u.us else 'C'}"

@@ -15,7 +15,7 @@ from .._version import __version__
 from ..assembly import AssemblyResult
 from ..inputs.files import InputDocument
 from ..outputs.text import CAUTION, UNIT_SYSTEMS, DisplayUnits
-from ._common import _e, _figure, _kv, _lab, _page, _renumber, _table
+from ._common import _e, _figure, _kv, _lab, _page, _renumber, _table, report_block
 
 REFERENCES = (
     "Przemieniecki, J. S., <i>Theory of Matrix Structural Analysis</i>, McGraw-Hill, 1968 "
@@ -209,13 +209,7 @@ def render_assembly_report(
         _renumber(body),
     )
     data = result.to_dict()
-    data["report"] = {
-        "clampstack_version": __version__,
-        "generated": now.isoformat(timespec="seconds"),
-        "input_file": name,
-        "input_sha256": doc.sha256,
-        "units": units,
-    }
+    data["report"] = report_block(doc, now, units, __version__)
     return {
         names["json"]: json.dumps(data, indent=2, allow_nan=False) + "\n",
         names["parts"]: _parts_csv(result),

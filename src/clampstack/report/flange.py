@@ -41,6 +41,7 @@ from ._common import (
     _page,
     _renumber,
     _table,
+    report_block,
     verdict_html,
 )
 
@@ -804,13 +805,7 @@ def render_flange_report(
         _WINDOW_CSS,
     )
     data = result.to_dict()
-    data["report"] = {
-        "clampstack_version": __version__,
-        "generated": now.isoformat(timespec="seconds"),
-        "input_file": name,
-        "input_sha256": doc.sha256,
-        "units": units,
-    }
+    data["report"] = report_block(doc, now, units, __version__)
     return {
         names["json"]: json.dumps(data, indent=2, allow_nan=False) + "\n",
         names["bolts"]: _bolts_csv(result),

@@ -33,6 +33,7 @@ from ._common import (
     _page,
     _renumber,
     _table,
+    report_block,
     verdict_html,
 )
 from ._common import _checks_csv as _checks_csv_rows
@@ -972,13 +973,7 @@ def render_joint_report(
         ANSWER_CSS,
     )
     data = result.to_dict()
-    data["report"] = {
-        "clampstack_version": __version__,
-        "generated": now.isoformat(timespec="seconds"),
-        "input_file": name,
-        "input_sha256": doc.sha256,
-        "units": units,
-    }
+    data["report"] = report_block(doc, now, units, __version__)
     if sr is not None:
         data["scatter"] = sr.to_dict()
     # the page last: when it is there, the results beside it are too

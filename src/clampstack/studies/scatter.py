@@ -330,17 +330,8 @@ def scatter(
     converged (:mod:`clampstack.studies.sampling`).  ``chunk_blocks`` is kept for callers;
     the blocks are evaluated one at a time (the results do not depend on it).
     """
-    e = spec.eccentric
-    if (
-        e is not None
-        and e.bolt_offset != 0
-        and abs(e.bolt_offset) * e.interface.half > e.interface.core
-    ):
-        raise InputError(
-            "scatter does not model an eccentric joint whose preload alone lifts an edge (the "
-            "bolt lies outside the interface's core); use check",
-            key="eccentricity.bolt_offset",
-        )
+    if spec.eccentric is not None:
+        spec.eccentric.refuse_outside_core("scatter")
     if samples < 1:
         raise InputError(
             f"the number of samples must be at least 1, got {samples}", key="--samples"

@@ -284,16 +284,8 @@ def size(
 ) -> SizeResult:
     """Search threads x grades x methods for the Pareto-smallest passing designs of ``base``."""
     e = base.eccentric
-    if (
-        e is not None
-        and e.bolt_offset != 0
-        and abs(e.bolt_offset) * e.interface.half > e.interface.core
-    ):
-        raise InputError(
-            "size does not model an eccentric joint whose preload alone lifts an edge (the "
-            "bolt lies outside the interface's core); use check",
-            key="eccentricity.bolt_offset",
-        )
+    if e is not None:
+        e.refuse_outside_core("size")
     con = constraints or Constraints()
     sizes = con.threads_of(candidate_threads(base.bolt.thread))
     grade_names = METRIC_GRADES if base.bolt.thread.system == "metric" else UNIFIED_GRADES

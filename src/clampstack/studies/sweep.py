@@ -372,13 +372,7 @@ def sweep(
 ) -> SweepResult:
     """Sweep the service temperature from ``T_low`` to ``T_high`` [K] in steps of ``step`` [K]."""
     if spec.eccentric is not None:
-        e = spec.eccentric
-        if e.bolt_offset != 0 and abs(e.bolt_offset) * e.interface.half > e.interface.core:
-            raise InputError(
-                "sweep does not model an eccentric joint whose preload alone lifts an edge "
-                "(the bolt lies outside the interface's core); use check",
-                key="eccentricity.bolt_offset",
-            )
+        spec.eccentric.refuse_outside_core("sweep")
         if cycle:
             raise InputError(
                 "the elastic-plastic cycle is not modelled for eccentric joints", key="--cycle"
