@@ -191,3 +191,14 @@ def test_us_output_small_torques_in_inch_pounds_temperatures_in_degF(tmp_path):
     assert "68 -> 68 degF" in out
     big = CliRunner().invoke(main, ["check", str(path)]).output
     assert "10.00 N*m" in big and "degC" in big
+
+
+def test_us_defaults_are_shown_in_us_units():
+    from clampstack.outputs.text import UNIT_SYSTEMS, default_text
+
+    us = UNIT_SYSTEMS["us"]
+    assert default_text("20 degC", us) == "68 degF"
+    assert default_text("6.3 um", us, "embedding.roughness") == "248.0 microinch"
+    assert default_text("13.5 mm (ISO 273 medium)", us).startswith("0.5315 in (ISO 273")
+    assert default_text("1.5e+04 mm^4 (cone)", us) == "1.5e+04 mm^4 (cone)"  # left as is
+    assert default_text("20 degC", UNIT_SYSTEMS["si"]) == "20 degC"

@@ -170,7 +170,7 @@ def flange_text(r: FlangeResult, units: str = "si") -> str:
         "last pass and in service; the assembly scatter scales the preload part of each load."
     )
     out.extend(notes_block(r.notes))
-    out.extend(defaults_block(r.defaults))
+    out.extend(defaults_block(r.defaults, u))
     out.append("")
     out.append(FLANGE_CAUTION)
     return "\n".join(out)

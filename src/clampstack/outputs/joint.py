@@ -367,7 +367,7 @@ def joint_text(r: JointResult, units: str = "si") -> str:
         if c.skipped:
             out.append(f"  {c.name} switched off: {c.skipped}")
     out.extend(notes_block(r.notes))
-    out.extend(defaults_block(r.defaults))
+    out.extend(defaults_block(r.defaults, u))
     out.append("")
     out.append(CAUTION)
     return "\n".join(out)

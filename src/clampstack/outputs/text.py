@@ -153,6 +153,39 @@ def notes_block(notes: Sequence[str], title: str = "Notes") -> list[str]:
     return ["", title, *(f"  - {n}" for n in notes)] if notes else []
 
 
-def defaults_block(defaults: Sequence[tuple[str, str]]) -> list[str]:
-    """A blank line, "Defaults applied" and one ``  key = value`` line per default."""
-    return ["", "Defaults applied", *(f"  {k} = {v}" for k, v in defaults)] if defaults else []
+#: The quantity a default's text starts with ("16.63 mm (bearing face ...)"), as the input
+#: readers write it: number and SI unit.
+_LEADING_QUANTITY = re.compile(r"^(-?\d+(?:\.\d+)?(?:e[+-]?\d+)?) (mm|um|degC|kN|N\*m|MPa)(?=[\s,)]|$)")
+_SI_FACTOR = {"mm": 1e-3, "um": 1e-6, "kN": 1e3, "N*m": 1.0, "MPa": 1e6}
+_KIND = {"mm": "length", "kN": "force", "N*m": "torque", "MPa": "stress"}
+
+
+def default_text(value: str, u: DisplayUnits, key: str = "") -> str:
+    """A default's text with its leading quantity in the display units (US customary:
+    in, lbf, ft*lbf, ksi, degF; a roughness in microinch); SI text is returned as is."""
+    if not u.us:
+        return value
+    m = _LEADING_QUANTITY.match(value)
+    if m is None:
+        return value
+    x, unit = float(m.group(1)), m.group(2)
+    if unit == "degC":
+        shown = f"{u.temp(x + 273.15):.4g} degF"
+    elif unit == "um":
+        if key.endswith("roughness"):
+            shown = f"{fmt_number(x / 0.0254, us=True)} microinch"
+        else:
+            shown = f"{fmt_number(x * 1e-6 / 0.0254e-3, us=True)} mil"
+    else:
+        kind = _KIND[unit]
+        shown = f"{u.fmt(kind, x * _SI_FACTOR[unit])} {u.label(kind)}"
+    return shown + value[m.end() :]
+
+
+def defaults_block(defaults: Sequence[tuple[str, str]], u: DisplayUnits | None = None) -> list[str]:
+    """A blank line, "Defaults applied" and one ``  key = value`` line per default (values
+    in the display units ``u``, SI when None)."""
+    if not defaults:
+        return []
+    show = (lambda k, v: v) if u is None else (lambda k, v: default_text(v, u, k))
+    return ["", "Defaults applied", *(f"  {k} = {show(k, v)}" for k, v in defaults)]

@@ -20,7 +20,7 @@ from ..errors import InputError
 from ..inputs.files import InputDocument
 from ..joint.analysis import JointResult
 from ..outputs.joint import _margin, _mu, case_rows, check_value, eccentric_lines, governing
-from ..outputs.text import CAUTION, UNIT_SYSTEMS, DisplayUnits, fmt_number
+from ..outputs.text import CAUTION, UNIT_SYSTEMS, DisplayUnits, default_text, fmt_number
 from ._common import (
     _T,
     MARGIN_NOTE,
@@ -258,12 +258,15 @@ def _eccentric(r: JointResult, u: DisplayUnits) -> str:
     )
 
 
-def _inputs(doc: InputDocument, r: JointResult) -> str:
+def _inputs(doc: InputDocument, r: JointResult, u: DisplayUnits | None = None) -> str:
     name = Path(doc.path).name
     defaults = (
         _table(
             ["key", "value applied"],
-            [[f"<code>{_e(k)}</code>", _e(v)] for k, v in r.defaults],
+            [
+                [f"<code>{_e(k)}</code>", _e(v if u is None else default_text(v, u, k))]
+                for k, v in r.defaults
+            ],
             left={0, 1},
             cls="small",
         )
@@ -946,7 +949,7 @@ def render_joint_report(
         [
             head,
             _summary(result, u, compact),
-            _inputs(doc, result),
+            _inputs(doc, result, u),
             _model(result, u, schematic),
             _diagrams(diagram, loads),
             _states(result, u),
