@@ -155,7 +155,9 @@ def notes_block(notes: Sequence[str], title: str = "Notes") -> list[str]:
 
 #: The quantity a default's text starts with ("16.63 mm (bearing face ...)"), as the input
 #: readers write it: number and SI unit.
-_LEADING_QUANTITY = re.compile(r"^(-?\d+(?:\.\d+)?(?:e[+-]?\d+)?) (mm|um|degC|kN|N\*m|MPa)(?=[\s,)]|$)")
+_LEADING_QUANTITY = re.compile(
+    r"^(-?\d+(?:\.\d+)?(?:e[+-]?\d+)?) (mm|um|degC|kN|N\*m|MPa)(?=[\s,)]|$)"
+)
 _SI_FACTOR = {"mm": 1e-3, "um": 1e-6, "kN": 1e3, "N*m": 1.0, "MPa": 1e6}
 _KIND = {"mm": "length", "kN": "force", "N*m": "torque", "MPa": "stress"}
 
