@@ -8,7 +8,7 @@ import numpy as np
 
 from ..flange.analysis import FlangeResult
 from .joint import check_value
-from .text import UNIT_SYSTEMS, defaults_block, notes_block, table
+from .text import UNIT_SYSTEMS, defaults_block, fmt_number, notes_block, table
 
 FLANGE_CAUTION = (
     "Caution: pressure equipment. These results support, and do not replace, the judgement "
@@ -46,7 +46,12 @@ def flange_text(r: FlangeResult, units: str = "si") -> str:
     out.append(
         f"  gasket b0 = {u.fmt('length', a.b0)} {u.label('length')}, b = {u.fmt('length', a.b)} "
         f"{u.label('length')}, G = {u.fmt('length', a.G)} {u.label('length')}, "
-        f"m = {s.gasket.m:g}, y = {u.fmt('stress', s.gasket.y)} {u.label('stress')}"
+        f"m = {s.gasket.m:g}, y = "
+        + (
+            f"{fmt_number(s.gasket.y / 6894.757293168361, us=True)} psi"  # as ASME's tables
+            if u.us
+            else f"{u.fmt('stress', s.gasket.y)} {u.label('stress')}"
+        )
     )
     out.append(
         f"  H = {u.fmt('force', a.H)}, H_p = {u.fmt('force', a.Hp)}, "
