@@ -553,7 +553,14 @@ def _references(extra: tuple[str, ...] = ()) -> str:
 # --------------------------------------------------------------------------- sweep
 
 
-def report_sweep(result: JointResult) -> tuple[Any, str]:
+def _temp_plain(T: float, u: DisplayUnits | None) -> str:
+    """A temperature [K] as plain text in the report's scale (degC without units)."""
+    if u is None or not u.us:
+        return f"{T - C0:g} °C"
+    return f"{u.temp(T):.4g} °F"
+
+
+def report_sweep(result: JointResult, u: DisplayUnits | None = None) -> tuple[Any, str]:
     """The temperature sweep for the report, or ``None`` and why not.
 
     Only when the service temperature differs from the assembly temperature:
@@ -567,7 +574,7 @@ def report_sweep(result: JointResult) -> tuple[Any, str]:
     if abs(Ts - Ta) < 1e-9:
         return None, (
             "The service temperature equals the assembly temperature "
-            f"({Ta - C0:g} °C): no temperature sweep."
+            f"({_temp_plain(Ta, u)}): no temperature sweep."
         )
     lo, hi = min(Ta, Ts), max(Ta, Ts)
     last = ""
@@ -578,8 +585,10 @@ def report_sweep(result: JointResult) -> tuple[Any, str]:
             last = err.detail
             continue
         return sw, (
-            f"Service temperature swept from {lo - m - C0:g} to {hi + m - C0:g} °C "
-            f"({m:g} K beyond the assembly and service temperatures"
+            f"Service temperature swept from {_temp_plain(lo - m, u)} to "
+            f"{_temp_plain(hi + m, u)} ({m * (1.8 if u is not None and u.us else 1):g} "
+            f"{'°F' if u is not None and u.us else 'K'} beyond the assembly and service "
+            "temperatures"
             + ("" if m == SWEEP_MARGIN else ", narrowed to the materials' data")
             + "); parts with a temperature of their own keep their difference."
         )
@@ -917,7 +926,7 @@ def render_joint_report(
     )
     sweep_section, figures = "", 3
     if with_sweep and thermal:
-        sw, note = report_sweep(result)
+        sw, note = report_sweep(result, u)
         fig = ""
         if sw is not None:
             fig = _figure(
