@@ -202,3 +202,16 @@ def test_us_defaults_are_shown_in_us_units():
     assert default_text("13.5 mm (ISO 273 medium)", us).startswith("0.5315 in (ISO 273")
     assert default_text("1.5e+04 mm^4 (cone)", us) == "1.5e+04 mm^4 (cone)"  # left as is
     assert default_text("20 degC", UNIT_SYSTEMS["si"]) == "20 degC"
+
+
+def test_us_output_localizes_notes_and_joint_line():
+    from clampstack.outputs.text import UNIT_SYSTEMS, localize
+
+    us = UNIT_SYSTEMS["us"]
+    # 11.03 kN = 2,480 lbf; 24 mm = 0.9449 in; 15..18 kN = 3,372..4,047 lbf; 380 degC = 716 degF
+    assert localize("keeps 11.03 kN after", us) == "keeps 2,480 lbf after"
+    assert localize("clamp length 24 mm (2 layers)", us) == "clamp length 0.9449 in (2 layers)"
+    assert localize("uniform 15..18 kN", us) == "uniform 3,372..4,047 lbf"
+    assert localize("flanges at 380 degC.", us) == "flanges at 716 degF."
+    assert localize("M10 grade 8.8, 2.924e+04 mm^4", us) == "M10 grade 8.8, 2.924e+04 mm^4"
+    assert localize("keeps 11.03 kN", UNIT_SYSTEMS["si"]) == "keeps 11.03 kN"

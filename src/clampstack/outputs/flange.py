@@ -174,7 +174,7 @@ def flange_text(r: FlangeResult, units: str = "si") -> str:
         "  bolt: the governing bolt (or its gasket sector), from the per-bolt loads after the "
         "last pass and in service; the assembly scatter scales the preload part of each load."
     )
-    out.extend(notes_block(r.notes))
+    out.extend(notes_block(r.notes, u=u))
     out.extend(defaults_block(r.defaults, u))
     out.append("")
     out.append(FLANGE_CAUTION)

@@ -13,19 +13,28 @@ from .text import (
     DisplayUnits,
     defaults_block,
     fmt_number,
+    localize,
     notes_block,
     table,
 )
 
 
-def _joint_line(r: JointResult) -> str:
+def _joint_line(r: JointResult, u: DisplayUnits | None = None) -> str:
     s = r.spec
     b = s.bolt
     head = {"hex": "hex head", "socket": "socket head", "stud": "stud"}[b.head]
     end = f"into a tapped hole in {s.tapped_hole.material.name}" if s.tapped_hole else "with nut"
+    if u is not None and u.us:
+        L = u.label("length")
+        lengths = (
+            f"{u.fmt('length', b.length)} {L}",
+            f"{u.fmt('length', s.clamp_length)} {L}",
+        )
+    else:
+        lengths = (f"{b.length * 1e3:g} mm", f"{s.clamp_length * 1e3:.4g} mm")
     return (
         f"{b.thread.designation} grade {b.grade.name}, {head}, length "
-        f"{b.length * 1e3:g} mm, {end}; clamp length {s.clamp_length * 1e3:.4g} mm "
+        f"{lengths[0]}, {end}; clamp length {lengths[1]} "
         f"({len(s.layers)} layer{'s' if len(s.layers) != 1 else ''})"
     )
 
@@ -100,16 +109,26 @@ def eccentric_lines(r: JointResult, u: DisplayUnits) -> list[str]:
     def mm(v: float) -> str:
         return f"{u.fmt('length', v * 1e-3)} {L}"
 
+    def area(v_mm2: float) -> str:
+        return f"{u.fmt('area', v_mm2 * 1e-6)} {u.label('area')}"
+
+    def inertia(v_mm4: float) -> str:  # second moment of area
+        return f"{v_mm4 / 25.4**4:.4g} in^4" if u.us else f"{v_mm4:.4g} mm^4"
+
+    def res(v_mm_per_N: float) -> str:  # resilience
+        return f"{v_mm_per_N / 25.4 * 4.4482216152605:.4g}" if u.us else f"{v_mm_per_N:.4g}"
+
     c = e["contact"]
     lines = [
-        f"interface {e['interface_shape']}: A_D = {e['interface_area_mm2']:.4g} mm^2, "
-        f"I_BT = {e['interface_second_moment_mm4']:.4g} mm^4; s_sym = {mm(e['bolt_offset_mm'])}, "
+        f"interface {e['interface_shape']}: A_D = {area(e['interface_area_mm2'])}, "
+        f"I_BT = {inertia(e['interface_second_moment_mm4'])}; s_sym = {mm(e['bolt_offset_mm'])}, "
         f"a = {mm(e['load_offset_mm'])}, opening edge u = {mm(e['edge_distance_mm'])}"
         + ("" if e["edge_distance_given"] else " (the edge that opens first)"),
-        f"I_Bers = {e['bending_inertia_mm4']:.4g} mm^4 ({e['bending_inertia_basis']})",
-        f"delta_P = {e['resilience_concentric_mm_per_N']:.4g}, delta_P* = "
-        f"{e['resilience_clamping_mm_per_N']:.4g}, delta_P** = "
-        f"{e['resilience_loading_mm_per_N']:.4g} mm/N; Phi_en* = {e['load_factor']:.4g}"
+        f"I_Bers = {inertia(e['bending_inertia_mm4'])} ({localize(e['bending_inertia_basis'], u)})",
+        f"delta_P = {res(e['resilience_concentric_mm_per_N'])}, delta_P* = "
+        f"{res(e['resilience_clamping_mm_per_N'])}, delta_P** = "
+        f"{res(e['resilience_loading_mm_per_N'])} {'in/lbf' if u.us else 'mm/N'}; "
+        f"Phi_en* = {e['load_factor']:.4g}"
         + (
             f", Phi_m* = {e['moment_load_factor_per_m'] / 1e3:.4g} 1/mm"
             if any(r.spec.service.bending_moment)
@@ -200,7 +219,7 @@ def joint_text(r: JointResult, units: str = "si") -> str:
     u = UNIT_SYSTEMS[units].for_torque(r.torque[0] if r.torque else None)
     s = r.spec
     F = u.label("force")
-    out = [s.title, _joint_line(r), ""]
+    out = [s.title, _joint_line(r, u), ""]
     failed = [c.name for c in r.checks if not c.passed]
     gov = governing(r)
     active = [c for c in r.checks if c.skipped is None]
@@ -300,7 +319,8 @@ def joint_text(r: JointResult, units: str = "si") -> str:
         + f" = {r.load_factor:.4g} (n = {s.service.load_height:.3g})"
     )
     out.append(
-        f"  embedding {r.embedding_amount * 1e6:.3g} um -> preload loss "
+        f"  embedding {u.fmt('small_length', r.embedding_amount, 3)} {u.label('small_length')}"
+        " -> preload loss "
         f"{u.fmt('force', r.embedding_loss)} {F}; thermal change "
         f"{u.fmt('force', r.thermal_change)} {F} "
         f"({u.temp(s.service.assembly_temperature):.4g} -> "
@@ -353,7 +373,7 @@ def joint_text(r: JointResult, units: str = "si") -> str:
         row = [c.name, v, c.relation, lim, _margin(c), verdict]
         if r.cases:
             row.append((c.extra or {}).get("governing_case", ""))
-        crow.append(row + [c.source])
+        crow.append(row + [localize(c.source, u)])
     head = ["check", "value", "", "limit", "margin", "result"] + (["case"] if r.cases else [])
     out.append(
         table(
@@ -366,7 +386,7 @@ def joint_text(r: JointResult, units: str = "si") -> str:
     for c in r.checks:
         if c.skipped:
             out.append(f"  {c.name} switched off: {c.skipped}")
-    out.extend(notes_block(r.notes))
+    out.extend(notes_block(r.notes, u=u))
     out.extend(defaults_block(r.defaults, u))
     out.append("")
     out.append(CAUTION)

@@ -3,7 +3,7 @@
 from __future__ import annotations
 
 from ..studies.scatter import QUANTS, ScatterResult
-from .text import CAUTION, UNIT_SYSTEMS, notes_block, table
+from .text import CAUTION, UNIT_SYSTEMS, localize, notes_block, table
 
 _LABELS = {
     "assembly_preload": "assembly preload",
@@ -19,7 +19,7 @@ def scatter_text(r: ScatterResult, units: str = "si") -> str:
     count = f"{r.samples:,}".replace(",", " ")
     out = [r.spec.title, f"{count} samples, seed {r.seed}", ""]
     out.append("Sampled inputs")
-    out.extend(f"  {k}: {v}" for k, v in r.distributions.items())
+    out.extend(f"  {k}: {localize(v, u)}" for k, v in r.distributions.items())
     out.append("")
     out.append(_percentile_table(r, _LABELS, QUANTS, u))
     if not r.exact:
@@ -66,7 +66,7 @@ def scatter_text(r: ScatterResult, units: str = "si") -> str:
             "95 % upper bound): "
             + ("met" if pc["ok"] else f"EXCEEDED by {', '.join(pc['exceeded'])}")
         )
-    out.extend(notes_block(r.notes))
+    out.extend(notes_block(r.notes, u=u))
     out.append("")
     out.append(CAUTION)
     return "\n".join(out)

@@ -114,7 +114,7 @@ def sweep_text(r: SweepResult, units: str = "si") -> str:
             )
     for name, why in r.skipped.items():
         out.append(f"  {name} switched off: {why}")
-    out.extend(notes_block(r.notes))
+    out.extend(notes_block(r.notes, u=u))
     out.append("")
     out.append(CAUTION)
     return "\n".join(out)

@@ -148,9 +148,44 @@ def terminal_safe(text: str) -> str:
     return _TERMINAL_UNSAFE.sub(esc, text)
 
 
-def notes_block(notes: Sequence[str], title: str = "Notes") -> list[str]:
-    """A blank line, ``title`` and one ``  - `` line per note; nothing without notes."""
-    return ["", title, *(f"  - {n}" for n in notes)] if notes else []
+def notes_block(
+    notes: Sequence[str], title: str = "Notes", u: DisplayUnits | None = None
+) -> list[str]:
+    """A blank line, ``title`` and one ``  - `` line per note; nothing without notes.
+    With US display units ``u`` the quantities in the notes are shown in them
+    (:func:`localize`)."""
+    if not notes:
+        return []
+    show = (lambda n: n) if u is None else (lambda n: localize(n, u))
+    return ["", title, *(f"  - {show(n)}" for n in notes)]
+
+
+#: A quantity in a text the tool wrote: a number (or a range a..b) and an SI unit.
+_QUANTITY = re.compile(
+    r"(?<![\w.])(-?\d+(?:\.\d+)?(?:e[+-]?\d+)?)(?:\.\.(-?\d+(?:\.\d+)?(?:e[+-]?\d+)?))?"
+    r" (mm|kN|N\*m|MPa|degC)(?=[\s,;:.)]|$)"
+)
+
+
+def localize(text: str, u: DisplayUnits) -> str:
+    """``text`` (a note or a default the tool wrote in SI) with every quantity in mm, kN,
+    N*m, MPa or degC shown in the display units ``u``; SI text is returned as is."""
+    if not u.us:
+        return text
+
+    def one(x: float, unit: str) -> str:
+        if unit == "degC":
+            return f"{u.temp(x + 273.15):.4g}"
+        kind = _KIND[unit]
+        return u.fmt(kind, x * _SI_FACTOR[unit])
+
+    def repl(m: re.Match[str]) -> str:
+        a, b, unit = m.group(1), m.group(2), m.group(3)
+        label = "degF" if unit == "degC" else u.label(_KIND[unit])
+        shown = one(float(a), unit) + ("" if b is None else ".." + one(float(b), unit))
+        return f"{shown} {label}"
+
+    return _QUANTITY.sub(repl, text)
 
 
 #: The quantity a default's text starts with ("16.63 mm (bearing face ...)"), as the input
@@ -189,5 +224,5 @@ def defaults_block(defaults: Sequence[tuple[str, str]], u: DisplayUnits | None =
     in the display units ``u``, SI when None)."""
     if not defaults:
         return []
-    show = (lambda k, v: v) if u is None else (lambda k, v: default_text(v, u, k))
+    show = (lambda k, v: v) if u is None else (lambda k, v: localize(default_text(v, u, k), u))
     return ["", "Defaults applied", *(f"  {k} = {show(k, v)}" for k, v in defaults)]

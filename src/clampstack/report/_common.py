@@ -16,7 +16,7 @@ from typing import Any
 from ..outputs.html import css_string, html_text
 from ..outputs.joint import _margin
 from ..outputs.joint import check_value as _check_value
-from ..outputs.text import DisplayUnits
+from ..outputs.text import DisplayUnits, localize
 
 _CSS = """
 :root{--ink:#1e2b33;--muted:#5d6b73;--rule:#d6dde1;--accent:#1b6c8f;--accent-bg:#eaf2f6;
@@ -183,7 +183,7 @@ def _checks_table(
             verdict = '<span class="pass">pass</span>'
         else:
             verdict = '<span class="fail">FAIL</span>'
-        src = _e(c.source) + (f"<br>{_e(c.detail)}" if c.detail else "")
+        src = _e(localize(c.source, u)) + (f"<br>{_e(localize(c.detail, u))}" if c.detail else "")
         if c.skipped:
             src += f"<br><b>switched off:</b> {_e(c.skipped)}"
         rows.append(
