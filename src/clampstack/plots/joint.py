@@ -624,8 +624,14 @@ def eccentric_load_plot(result: JointResult, units: str = "si", n_points: int = 
     FV_hi = _state(result, "temperature").bolt_max
     bolt_lo, clamp_lo, cw_lo = ej.curve(FV_lo, FA, MB, lam)
     bolt_hi, _, _ = ej.curve(FV_hi, FA, MB, lam)
-    x = lam * (FA / ff if by_force else MB)
-    xlabel = f"working load $F_A$ [{fl}]" if by_force else "bending moment $M_B$ [N·m]"
+    uu = UNIT_SYSTEMS[units]
+    (ml, mf), (ll, lf) = uu.torque, uu.length
+    x = lam * (FA / ff if by_force else MB / mf)
+    xlabel = (
+        f"working load $F_A$ [{fl}]"
+        if by_force
+        else f"bending moment $M_B$ [{ml.replace('*', '·')}]"
+    )
     lin = FV_lo + lam * (ej.phi_en * FA + ej.phi_m * MB)
     with style():
         fig = new_figure(height=4.2)
@@ -641,7 +647,7 @@ def eccentric_load_plot(result: JointResult, units: str = "si", n_points: int = 
         ax.axvline(x[lam == 1.0][0], color=LOAD, lw=0.9, ls=(0, (4, 2)))
         ax.get_lines()[-1].set_gid("load-max")
         if lam_ab is not None and lam_ab <= top:
-            xo = lam_ab * (FA / ff if by_force else MB)
+            xo = lam_ab * (FA / ff if by_force else MB / mf)
             ax.axvspan(xo, x[-1], color=LIMIT, alpha=0.06, lw=0)
             ax.text(
                 xo,
@@ -710,10 +716,10 @@ def eccentric_load_plot(result: JointResult, units: str = "si", n_points: int = 
             )
         ax.set_ylim(0, max(float(bolt_hi.max()), float(bolt_lo.max())) / ff * 1.12)
         ax.tick_params(labelbottom=False)
-        _line(aw, x, cw_lo * 1e3, "contact-width", color=INK, lw=1.4)
-        aw.axhline(ej.interface.length * 1e3, color=MUTED, lw=0.7, ls=":")
-        aw.set_ylim(0, ej.interface.length * 1e3 * 1.1)
-        aw.set_ylabel("contact [mm]", fontsize=7.5)
+        _line(aw, x, cw_lo / lf, "contact-width", color=INK, lw=1.4)
+        aw.axhline(ej.interface.length / lf, color=MUTED, lw=0.7, ls=":")
+        aw.set_ylim(0, ej.interface.length / lf * 1.1)
+        aw.set_ylabel(f"contact [{ll}]", fontsize=7.5)
         aw.set_xlabel(xlabel)
         aw.set_xlim(0, x[-1])
         fig.legend(loc="outside lower center", ncols=3, fontsize=7, handlelength=2.6)
