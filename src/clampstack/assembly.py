@@ -402,13 +402,12 @@ def _events(net, asm: Assembly, base, dload, extra, first, top: float = 8.0) -> 
                     else:
                         hi = mid
                 p = asm.parts[n]
-                what = (
-                    ("unloads" if p.gap == 0 else "opens")
-                    if was
-                    else ("closes" if p.gap > 0 or p.behaviour == "compression" else "takes load")
-                )
                 if p.behaviour == "tension":
                     what = "goes slack" if was else "takes load"
+                elif was:
+                    what = "unloads" if p.gap == 0 else "opens"
+                else:
+                    what = "closes"
                 out.append({"part": p.name, "event": what, "at_factor": 0.5 * (lo + hi)})
     return tuple(sorted(out, key=lambda e: e["at_factor"]))
 

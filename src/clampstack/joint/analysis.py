@@ -61,7 +61,7 @@ from .prepare import (
     service_preload,
     solve_service,
 )
-from .thermal import TemperatureModel
+from .thermal import TemperatureModel, part_modulus
 
 #: Checks whose value depends on the check preload (VDI 2230-1 R8-R10).
 BASIS_CHECKS = ("working_stress", "fatigue", "surface_pressure_head", "surface_pressure_nut")
@@ -714,7 +714,7 @@ def analyse(spec: JointSpec) -> JointResult:
     residual_min = min(v[1] for key, v in lo.items() if key.startswith("service"))
     ecc_info = None
     if ecc is not None:
-        ecc_info = eccentric_summary(spec, ecc[1], FV_T, contact)
+        ecc_info = eccentric_summary(spec, model, ecc[1], FV_T, contact)
         separation_load = ecc_info["knee_N"]
 
     def check_loads(FM: float) -> tuple[float, float]:
@@ -1000,8 +1000,18 @@ def bending_length(spec: JointSpec, model: TemperatureModel) -> float:
     return total
 
 
+def bending_stress_per_rotation(spec: JointSpec, model: TemperatureModel, T_service: Any) -> Any:
+    """``E_S d_S / (2 l_ers)`` [Pa per rad] at service temperature(s) [K] (vectorised): the
+    bolt's bending stress per rotation of the clamped body
+    (:func:`~clampstack.joint.eccentric.bolt_bending_stress`, VDI 2230-1:2015 5.5.3)."""
+    E_S = part_modulus(spec.bolt.material, model.part_T(spec.bolt.temperature, T_service))
+    d_S = math.sqrt(4 * spec.bolt.thread.As / math.pi)
+    return bolt_bending_stress(1.0, E_S, d_S, bending_length(spec, model))
+
+
 def eccentric_summary(
     spec: JointSpec,
+    model: TemperatureModel,
     ej: EccentricJoint,
     FV_T: float,
     contact: dict[tuple[str, str], ContactState],
@@ -1016,7 +1026,7 @@ def eccentric_summary(
     # the edge u itself open under the preload alone; or the other edge (the bolt outside
     # the core toward u): then VDI's linear relations do not hold, the contact model judges u
     at_assembly = ej.interface.core + ej.s * ej.u <= 0
-    far_open = not at_assembly and ej.open_at_assembly(FV_T)
+    far_open = not at_assembly and ej.open_at_assembly
     notes: list[str] = []
     FKab = None
     if not (at_assembly or far_open):
@@ -1041,11 +1051,9 @@ def eccentric_summary(
         else (max(FV_T, 0.0) / (1 - ej.phi_en) if ej.phi_en < 1 else 0.0)
     )
     # bolt bending: sigma_b = E_S d_S gamma / (2 l_ers)
-    model = TemperatureModel(spec)
     l_ers = bending_length(spec, model)
-    E_S = spec.bolt.material.E(spec.bolt.temperature, extrapolate=True)
-    d_S = math.sqrt(4 * spec.bolt.thread.As / math.pi)
-    sig = {k: bolt_bending_stress(st.rotation, E_S, d_S, l_ers) for k, st in contact.items()}
+    K = bending_stress_per_rotation(spec, model, srv.temperature)
+    sig = {k: float(K) * st.rotation for k, st in contact.items()}
     amp = 0.0
     for br in ("min", "max"):
         if (br, "service_min") in sig:

@@ -125,15 +125,9 @@ def merge_cases(spec: JointSpec, results: list[CaseResult]) -> Any:
         for n in order
     )
 
-    def smallest(cr: CaseResult) -> float:
-        active = [c.margin for c in cr.result.checks if c.skipped is None]
-        if cr.result.preload_at_limit_by_design:
-            active = [
-                c.margin
-                for c in cr.result.checks
-                if c.skipped is None and c.name != "assembly_preload"
-            ] or active
-        return min(active, default=float("inf"))
+    def smallest(cr: CaseResult) -> float:  # the case's governing margin
+        g = cr.result.governing
+        return float("inf") if g is None else g.margin
 
     gov = min(results, key=smallest)
     base = gov.result

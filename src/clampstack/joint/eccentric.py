@@ -93,6 +93,11 @@ class Interface:
         """``I_BT / A_D`` [m^2]: the square of the section's radius of gyration."""
         return self.second_moment / self.area
 
+    def lifts_under_preload(self, s: float) -> bool:
+        """True when a bolt at ``s`` lies outside the core, ``|s| h > I_BT / A_D``: its
+        preload alone lifts the far edge (Navier's pressure there is negative)."""
+        return s != 0 and abs(s) * self.half > self.core
+
     def profile(self, segments: int = 256) -> tuple[np.ndarray, np.ndarray]:
         """Width ``b(x)`` at nodes ``x`` across the interface, linear between them [m].
 
@@ -343,9 +348,10 @@ class EccentricJoint:
         """Bed state ``(w, theta)`` under the preload alone (the bolt at ``s``)."""
         return self.bed_inverse(FV, FV * self.s)
 
-    def open_at_assembly(self, FV: float) -> bool:
+    @property
+    def open_at_assembly(self) -> bool:
         """True when the preload alone lifts the far edge (bolt outside the core)."""
-        return self.s != 0 and abs(self.s) * self.interface.half > self.interface.core
+        return self.interface.lifts_under_preload(self.s)
 
     def state(self, FV: float, FA: float, MB: float) -> ContactState:
         """Bolt load, clamp load, contact and rotation under ``F_A`` and ``M_B`` (SI).
@@ -356,18 +362,17 @@ class EccentricJoint:
         """
         i, h = self.interface, self.interface.half
         if FV <= 0:  # no preload left: nothing holds the parts together
-            return ContactState(max(FA, 0.0), 0.0, (0.0, 0.0), True, 0.0, "separated")
-        if not self.open_at_assembly(FV):
+            return _separated(FA)
+        lam0 = 0.0
+        if not self.open_at_assembly:
             FS, FK = self.linear(FV, FA, MB)
             if FK <= 0 and self._on_bolt_line(FA, MB):
                 # the load on the bolt's line: past F_A,sep the bolt carries it alone
-                return ContactState(max(FA, 0.0), 0.0, (0.0, 0.0), True, 0.0, "separated")
+                return _separated(FA)
             Mb = FS * self.s - FA * self.a - MB  # the bed's moment about the axis
             if FK > 0 and FK / i.area - abs(Mb) * h / i.second_moment >= -1e-12 * FK / i.area:
                 gamma = -self.beta * (Mb - FV * self.s)
                 return ContactState(FS, FK, (-h, h), False, gamma, "VDI 2230-1 linear")
-        lam0 = 0.0
-        if not self.open_at_assembly(FV):
             lam0 = min(
                 self.opening_ratio(FV, FA, MB, h),
                 self.opening_ratio(FV, FA, MB, -h),
@@ -431,7 +436,7 @@ class EccentricJoint:
                 z = self._newton(z, residual(target), zs, rs)
             except SolveError:
                 if self._on_bolt_line(FA, MB):
-                    return ContactState(max(FA, 0.0), 0.0, (0.0, 0.0), True, 0.0, "separated")
+                    return _separated(FA)
                 step *= 0.25
                 if step < 1e-9 * max(1.0 - lam0, 1e-12):
                     raise
@@ -487,6 +492,11 @@ class EccentricJoint:
             FK.append(st.clamp_load)
             cw.append(st.contact_width)
         return np.array(FS), np.array(FK), np.array(cw)
+
+
+def _separated(FA: float) -> ContactState:
+    """The parts apart: the bolt carries a pulling load alone, nothing is in contact."""
+    return ContactState(max(FA, 0.0), 0.0, (0.0, 0.0), True, 0.0, "separated")
 
 
 def first_opening_edge(joint: EccentricJoint, FV: float, loads: list[tuple[float, float]]) -> float:
@@ -584,7 +594,7 @@ def eccentric_states(
     Mb = FS * s - FA * a - MB
     i, h = interface, interface.half
     closed = (FK > 0) & (FK / i.area - np.abs(Mb) * h / i.second_moment >= -1e-12 * FK / i.area)
-    if s != 0 and abs(s) * h > i.core:
+    if i.lifts_under_preload(s):
         closed[...] = False
     gamma = -beta * (Mb - FV * s)
     opened = np.zeros(FS.shape, dtype=bool)

@@ -254,8 +254,7 @@ class EccentricSpec:
     @property
     def bolt_outside_core(self) -> bool:
         """True when the preload alone lifts an edge: ``|s_sym| h > I_BT / A_D``."""
-        i = self.interface
-        return self.bolt_offset != 0 and abs(self.bolt_offset) * i.half > i.core
+        return self.interface.lifts_under_preload(self.bolt_offset)
 
     def refuse_outside_core(self, command: str) -> None:
         """InputError for a study that does not model a joint open under its preload."""

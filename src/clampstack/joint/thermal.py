@@ -207,7 +207,7 @@ class TemperatureModel:
     def _sum(self, terms: tuple[_Term, ...], T: np.ndarray) -> np.ndarray:
         total = np.zeros_like(T)
         for t in terms:
-            total = total + t.coef / _modulus(t.material, self.part_T(t.T_part, T))
+            total = total + t.coef / part_modulus(t.material, self.part_T(t.T_part, T))
         return total
 
     def resiliences(self, T_service: float | np.ndarray) -> tuple[np.ndarray, np.ndarray]:
@@ -229,7 +229,7 @@ class TemperatureModel:
     def bending_at_assembly(self) -> float:
         """``beta`` with every part at the assembly temperature."""
         T = np.asarray(self.T_assembly)
-        return float(sum(t.coef / _modulus(t.material, T) for t in self.bend_terms))
+        return float(sum(t.coef / part_modulus(t.material, T) for t in self.bend_terms))
 
     def resiliences_at_assembly(self) -> tuple[float, float]:
         """``(delta_S, delta_P)`` with every part at the assembly temperature."""
@@ -237,8 +237,8 @@ class TemperatureModel:
         if hit is not None:
             return hit  # type: ignore[return-value]
         T = np.asarray(self.T_assembly)
-        dS = sum(t.coef / _modulus(t.material, T) for t in self.bolt_terms)
-        dP = sum(t.coef / _modulus(t.material, T) for t in self.clamp_terms)
+        dS = sum(t.coef / part_modulus(t.material, T) for t in self.bolt_terms)
+        dP = sum(t.coef / part_modulus(t.material, T) for t in self.clamp_terms)
         dP = dP + self.offset2 * self.bending_at_assembly()
         out = (float(dS), float(dP))
         self._memo[("asm",)] = out  # type: ignore[assignment]
@@ -252,7 +252,7 @@ class TemperatureModel:
         out = []
         for (name, length), t in zip(self.bolt_segments, self.bolt_terms, strict=True):
             T = self.T_assembly if T_service is None else self.part_T(t.T_part, T_service)
-            out.append((name, length, float(t.coef / _modulus(t.material, np.asarray(T)))))
+            out.append((name, length, float(t.coef / part_modulus(t.material, np.asarray(T)))))
         self._memo[("seg", T_service)] = tuple(out)  # type: ignore[assignment]
         return out
 
@@ -334,7 +334,9 @@ class TemperatureModel:
         return [x.text(label) for label, x in self.extrapolations(T_service)]
 
 
-def _modulus(pm: PartMaterial, T: np.ndarray) -> np.ndarray:
+def part_modulus(pm: PartMaterial, T: np.ndarray) -> np.ndarray:
+    """A part's Young's modulus at temperature(s) ``T`` [K] (given, or the catalog's;
+    extrapolated as the model does) [Pa]."""
     if pm.modulus is not None:
         return np.full(np.shape(T), pm.modulus) if np.ndim(T) else np.asarray(pm.modulus)
     assert pm.material is not None

@@ -188,35 +188,28 @@ def localize(text: str, u: DisplayUnits) -> str:
     return _QUANTITY.sub(repl, text)
 
 
-#: The quantity a default's text starts with ("16.63 mm (bearing face ...)"), as the input
-#: readers write it: number and SI unit.
-_LEADING_QUANTITY = re.compile(
-    r"^(-?\d+(?:\.\d+)?(?:e[+-]?\d+)?) (mm|um|degC|kN|N\*m|MPa)(?=[\s,)]|$)"
-)
-_SI_FACTOR = {"mm": 1e-3, "um": 1e-6, "kN": 1e3, "N*m": 1.0, "MPa": 1e6}
+#: A default that starts with a small length in um ("6.3 um", a roughness or an amount).
+_LEADING_UM = re.compile(r"^(-?\d+(?:\.\d+)?(?:e[+-]?\d+)?) um(?=[\s,)]|$)")
+_SI_FACTOR = {"mm": 1e-3, "kN": 1e3, "N*m": 1.0, "MPa": 1e6}
 _KIND = {"mm": "length", "kN": "force", "N*m": "torque", "MPa": "stress"}
 
 
 def default_text(value: str, u: DisplayUnits, key: str = "") -> str:
-    """A default's text with its leading quantity in the display units (US customary:
-    in, lbf, ft*lbf, ksi, degF; a roughness in microinch); SI text is returned as is."""
+    """A default's text in the display units (US customary: in, lbf, ft*lbf, ksi, degF
+    through :func:`localize`; a leading um in mil, a roughness in microinch); SI text is
+    returned as is."""
     if not u.us:
         return value
-    m = _LEADING_QUANTITY.match(value)
-    if m is None:
-        return value
-    x, unit = float(m.group(1)), m.group(2)
-    if unit == "degC":
-        shown = f"{u.temp(x + 273.15):.4g} degF"
-    elif unit == "um":
-        if key.endswith("roughness"):
-            shown = f"{fmt_number(x / 0.0254, us=True)} microinch"
-        else:
-            shown = f"{fmt_number(x * 1e-6 / 0.0254e-3, us=True)} mil"
-    else:
-        kind = _KIND[unit]
-        shown = f"{u.fmt(kind, x * _SI_FACTOR[unit])} {u.label(kind)}"
-    return shown + value[m.end() :]
+    m = _LEADING_UM.match(value)
+    if m is not None:
+        x = float(m.group(1))
+        shown = (
+            f"{fmt_number(x / 0.0254, us=True)} microinch"
+            if key.endswith("roughness")
+            else f"{u.fmt('small_length', x * 1e-6)} {u.label('small_length')}"
+        )
+        value = shown + value[m.end() :]
+    return localize(value, u)
 
 
 def defaults_block(defaults: Sequence[tuple[str, str]], u: DisplayUnits | None = None) -> list[str]:
@@ -224,5 +217,5 @@ def defaults_block(defaults: Sequence[tuple[str, str]], u: DisplayUnits | None =
     in the display units ``u``, SI when None)."""
     if not defaults:
         return []
-    show = (lambda k, v: v) if u is None else (lambda k, v: localize(default_text(v, u, k), u))
+    show = (lambda k, v: v) if u is None else (lambda k, v: default_text(v, u, k))
     return ["", "Defaults applied", *(f"  {k} = {show(k, v)}" for k, v in defaults)]

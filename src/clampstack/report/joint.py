@@ -273,7 +273,7 @@ def _inputs(doc: InputDocument, r: JointResult, u: DisplayUnits | None = None) -
             [
                 [
                     f"<code>{_e(k)}</code>",
-                    _e(v if u is None else localize(default_text(v, u, k), u)),
+                    _e(v if u is None else default_text(v, u, k)),
                 ]
                 for k, v in r.defaults
             ],

@@ -34,7 +34,7 @@ from ..components.tightening import angle_preload
 from ..display import Shown
 from ..errors import InputError
 from ..joint.analysis import analyse, eccentric_joints
-from ..joint.eccentric import eccentric_states
+from ..joint.eccentric import EccentricJoint, eccentric_states
 from ..joint.model import DIST_KEYS, DIST_LOWER_BOUNDS, Dist, JointSpec
 from ..joint.prepare import (
     Prepared,
@@ -70,7 +70,8 @@ class Chain:
     mu_T: float
     Rp: float
     T_service: float
-    edge: float | None = None  # eccentric joints: the opening edge u [m] (as check finds it)
+    #: eccentric joints: the joint at service temperature, its opening edge as check finds it
+    eccentric: EccentricJoint | None = None
 
 
 def make_chain(spec: JointSpec, dists: dict[str, Dist]) -> Chain:
@@ -114,7 +115,7 @@ def make_chain(spec: JointSpec, dists: dict[str, Dist]) -> Chain:
         spec.requirements.slip_friction,
         spec.bolt.grade.Rp02,
         spec.service.temperature,
-        None if spec.eccentric is None else eccentric_joints(spec, prep.model)[1].u,
+        None if spec.eccentric is None else eccentric_joints(spec, prep.model)[1],
     )
 
 
@@ -183,18 +184,16 @@ def evaluate(chain: Chain, x: dict[str, np.ndarray], n: int) -> dict[str, np.nda
         FS_lo, FK_lo = service_closed_form(FV, phi, chain.FA_lo)
         opening = FK_hi <= 0.0
     else:  # VDI 2230-1 linear where closed, the contact model where the interface opens
-        assert chain.edge is not None
+        ej = chain.eccentric
+        assert ej is not None
         beta = prep.model.bending(Ts)
-        geo = (s.service.load_height, e.bolt_offset, e.load_offset, chain.edge, e.interface)
+        geo = (s.service.load_height, e.bolt_offset, e.load_offset, ej.u, e.interface)
         MB_lo, MB_hi = s.service.bending_moment
         hi = eccentric_states(dS, dP, beta, *geo, FV, FA_hi, MB_hi, lift_off=True)
         lo = eccentric_states(dS, dP, beta, *geo, FV, chain.FA_lo, MB_lo, lift_off=True)
         FS_hi, FK_hi, FS_lo, FK_lo = hi.bolt_load, hi.clamp_load, lo.bolt_load, lo.clamp_load
-        # F_Kab is linear in the load (VDI 2230-1 5.3.2): the clamp load falls below it
-        u = chain.edge
-        den = e.interface.core + e.bolt_offset * u
-        FKab = (FA_hi * (e.load_offset - e.bolt_offset) * u + MB_hi * u) / den
-        opening = FK_hi < FKab
+        # F_Kab of the sampled load (VDI 2230-1 5.3.2; geometry only): the clamp load below it
+        opening = FK_hi < ej.opening_clamp_load(FA_hi, MB_hi)
     residual = np.minimum(FK_hi, FK_lo)
     # bolt yield at assembly: tension with thread torsion on the plastic section modulus
     # pi d0^3/12, as in VDI 2230-1 R7 (so the yield preload is F_M,zul at nu = 1); in

@@ -23,7 +23,7 @@ import numpy as np
 from ..display import Shown
 from ..errors import InputError, SolveError
 from ..joint.analysis import (
-    bending_length,
+    bending_stress_per_rotation,
     eccentric_joints,
     evaluate_checks,
     margins,
@@ -261,9 +261,7 @@ def _evaluate_eccentric(prep: Prepared, T: np.ndarray) -> dict[str, Any]:
     opening = opening_row(info, residual, f"opening edge u = {ej.u * 1e3:+.4g} mm")
     amplitude = mean = None
     if alternating:
-        T_bolt = model.part_T(s.bolt.temperature, T)
-        E_S = np.asarray(_bolt_modulus(s, T_bolt))
-        K = E_S * math.sqrt(4 * s.bolt.thread.As / math.pi) / (2 * bending_length(s, model))
+        K = bending_stress_per_rotation(s, model, T)
         amplitude = np.maximum(
             np.abs(hi_min.bolt_load - lo_min.bolt_load) / (2 * s.bolt.thread.As)
             + K * np.abs(hi_min.rotation - lo_min.rotation) / 2,
@@ -293,15 +291,6 @@ def _evaluate_eccentric(prep: Prepared, T: np.ndarray) -> dict[str, Any]:
         "bolt_max": bolt_max,
         "margins": {k: np.broadcast_to(v, T.shape).astype(float) for k, v in m.items()},
     }
-
-
-def _bolt_modulus(spec: JointSpec, T_bolt: np.ndarray) -> np.ndarray:
-    """The bolt's Young's modulus at its temperature(s) [Pa]."""
-    mat = spec.bolt.material
-    if mat.modulus is not None:
-        return np.full(np.shape(T_bolt), mat.modulus)
-    assert mat.material is not None
-    return np.asarray(mat.material.modulus(T_bolt, extrapolate=True))
 
 
 def temperature_points(T_low: float, T_high: float, step: float | None = None) -> np.ndarray:
