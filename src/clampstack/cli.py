@@ -220,6 +220,11 @@ def sweep(
 
     if as_json and as_csv:
         raise InputError("choose --json or --csv, not both", key="--csv")
+    from .inputs.files import file_kind, load_toml
+
+    if file_kind(load_toml(file).data) == "flange":  # a flange file: per-bolt states
+        _sweep_flange(file, trange, step, cycle, case, as_json, as_csv, units)
+        return
     doc, spec = read_joint_file(file, "sweep")
     check_case_name(spec, case)  # an option's error names the option, not the file
     spec, case_note = _in_file(doc.path, select_case, spec, case)
@@ -244,6 +249,45 @@ def sweep(
             _echo(piece, nl=False)
     else:
         _echo(sweep_text(result, units))
+    sys.exit(EXIT_OK if result.passed else EXIT_FAIL)
+
+
+def _sweep_flange(
+    file: str,
+    trange: str,
+    step: float | None,
+    cycle: bool,
+    case: str | None,
+    as_json: bool,
+    as_csv: bool,
+    units: str,
+) -> None:
+    """``sweep`` on a flange file (see :mod:`clampstack.studies.flange_sweep`)."""
+    import math
+
+    from .errors import InputError
+    from .inputs.flange import read_flange_file
+    from .outputs.sweep import flange_sweep_csv, flange_sweep_text
+    from .studies.flange_sweep import flange_sweep
+    from .studies.sweep import temperature_points
+
+    if case is not None:
+        raise InputError("a flange file has no load cases", key="--case")
+    doc, spec = read_flange_file(file, "sweep")
+    lo, hi = _parse_temperature_range(trange)
+    if step is not None and not (math.isfinite(step) and step > 0):
+        raise InputError(f"the step must be a positive number of kelvin, got {step}", key="--step")
+    n_points = _in_file(doc.path, temperature_points, lo, hi, step).size
+    progress = _progress(n_points, as_json or as_csv, "sweep")
+    result = _in_file(doc.path, flange_sweep, spec, lo, hi, step, cycle, progress)
+    if progress is not None:
+        progress(None)
+    if as_json:
+        _print_json(result.to_dict())
+    elif as_csv:
+        _echo(flange_sweep_csv(result), nl=False)
+    else:
+        _echo(flange_sweep_text(result, units))
     sys.exit(EXIT_OK if result.passed else EXIT_FAIL)
 
 

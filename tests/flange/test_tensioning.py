@@ -190,7 +190,7 @@ def _run(tmp_path, tightening: str, bolt_count: int = 8):
     body = [
         'title = "t"',
         "[flange]",
-        *(f'{k} = "{v}"' if isinstance(v, str) else f"{k} = {v}" for k, v in d["flange"].items()),
+        *(f"{k} = {json.dumps(v)}" for k, v in d["flange"].items()),
         "[bolt]",
         'thread = "M16"',
         'grade = "8.8"',

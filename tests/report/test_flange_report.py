@@ -209,7 +209,7 @@ def test_report_command_on_flange_files(tmp_path, write_toml):
     page = (out / "hot-pump.html").read_text(encoding="utf-8")
     assert "<b>FAIL</b>" in page and '<span class="fail">FAIL</span>' in page
     # bad input: exit 2, one line naming the file and key, nothing written
-    bad = write_toml(text.replace('thickness = "20 mm"', 'thickness = "20 kN"'), "bad.toml")
+    bad = write_toml(text.replace('thickness = "36 mm"', 'thickness = "36 kN"'), "bad.toml")
     fresh = tmp_path / "nothing"
     res = CliRunner().invoke(main, ["report", str(bad), "-o", str(fresh)])
     assert res.exit_code == 2

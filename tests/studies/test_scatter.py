@@ -186,10 +186,17 @@ def test_flange_scatter_cli_and_reproducibility(examples_dir):
     a = flange_scatter(spec, 20_000, seed=9, chunk_blocks=1).to_dict()
     b = flange_scatter(spec, 20_000, seed=9, chunk_blocks=5).to_dict()
     assert a["percentiles"] == b["percentiles"] and a["probabilities"] == b["probabilities"]
-    # bounds: preload between T_min/k(mu_max) and T_max/k(mu_min) (ISO 16047 relation)
+    # bounds: each pass's target between T_min/k(mu_max) and T_max/k(mu_min) (ISO 16047
+    # relation); the passes' elastic interaction then leaves each bolt between the
+    # smallest and largest share of its target that the deterministic passes leave
+    from clampstack.flange.analysis import analyse_flange
+
+    det = analyse_flange(spec, compensate=False)
     lo, hi = (
         out["deterministic"]["assembly_preload_min_N"],
         out["deterministic"]["assembly_preload_max_N"],
     )
+    share = det.passes[-1] / det.target
     q = out["percentiles"]["assembly_preload_N"]
-    assert lo * (1 - 1e-9) <= q["p01"] and q["p99"] <= hi * (1 + 1e-9)
+    assert lo * share.min() * 0.95 <= q["p01"] and q["p99"] <= hi * share.max() * 1.05
+    assert q["p01"] < lo  # the interaction leaves some bolts below the torque's low end

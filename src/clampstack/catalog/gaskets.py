@@ -7,6 +7,11 @@ compression strain, compression / thickness), the unloading modulus (the stiffer
 slope on which a compressed gasket springs back) and the maximum stress (crush
 limit) are typical values, marked in the source column; a real design should use
 the manufacturer's data, which the input file can give instead.
+
+``gasket_service.csv`` adds, per type, the thermal expansion through the thickness
+and the creep relaxation factor P_QR (residual over initial gasket stress after a
+creep relaxation test, the quantity of EN 13555) against temperature, each row
+with its source (typical values, from memory).
 """
 
 from __future__ import annotations
@@ -33,12 +38,24 @@ class Gasket:
     curve_strain: tuple[float, ...]
     curve_stress: tuple[float, ...]
     source: str
+    expansion: float = 0.0  # through the thickness [1/K]
+    relax_temperature: tuple[float, ...] = (293.15,)  # [K]
+    relax_factor: tuple[float, ...] = (1.0,)  # P_QR at those temperatures
+    service_source: str = ""
+
+    def relaxation(self, T: float) -> float:
+        """Creep relaxation factor P_QR at ``T`` [K]: linear in the table, held beyond it."""
+        import numpy as np
+
+        return float(np.interp(T, self.relax_temperature, self.relax_factor))
 
 
 @cache
 def _all() -> tuple[Gasket, ...]:
     out = []
+    service = {r["key"]: r for r in read_csv("gasket_service.csv")}
     for row in read_csv("gaskets.csv"):
+        srv = service[row["key"]]
         out.append(
             Gasket(
                 key=row["key"],
@@ -50,6 +67,12 @@ def _all() -> tuple[Gasket, ...]:
                 curve_strain=tuple(float(v) for v in row["curve_strain"].split(";")),
                 curve_stress=tuple(float(v) * MPA for v in row["curve_stress_MPa"].split(";")),
                 source=row["source"],
+                expansion=float(srv["expansion_per_K"]),
+                relax_temperature=tuple(
+                    float(v) + 273.15 for v in srv["relax_temperature_degC"].split(";")
+                ),
+                relax_factor=tuple(float(v) for v in srv["relax_factor"].split(";")),
+                service_source=srv["source"],
             )
         )
     return tuple(out)
@@ -67,7 +90,16 @@ def gasket(key: str) -> Gasket:
 
 def gasket_listing() -> tuple[list[str], list[list[str]]]:
     """Display table of the gasket types."""
-    header = ["type", "description", "m", "y [MPa]", "y [psi]", "max stress [MPa]", "source"]
+    header = [
+        "type",
+        "description",
+        "m",
+        "y [MPa]",
+        "y [psi]",
+        "max stress [MPa]",
+        "P_QR (degC)",
+        "source",
+    ]
     rows = [
         [
             g.key,
@@ -76,7 +108,11 @@ def gasket_listing() -> tuple[list[str], list[list[str]]]:
             fmt(g.y / MPA),
             f"{g.y / PSI:.0f}",
             fmt(g.max_stress / MPA),
-            g.source,
+            " ".join(
+                f"{p:g} ({T - 273.15:g})"
+                for T, p in zip(g.relax_temperature, g.relax_factor, strict=True)
+            ),
+            g.source + "; " + g.service_source,
         ]
         for g in _all()
     ]

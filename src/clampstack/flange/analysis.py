@@ -44,7 +44,7 @@ from ..components import (
     tightening_factor,
 )
 from ..display import Shown
-from ..errors import InputError
+from ..errors import InputError, SolveError
 from ..joint.checks import Check
 from ..joint.prepare import torque_preload_range
 from ..network import CURVE, LINEAR, TENSION, Network
@@ -52,6 +52,7 @@ from ..network.core import _CurveTable
 from .model import FlangeSpec
 
 INCH = 0.0254
+ROTATION_LIMIT_DEG = 0.2  # ASME VIII-1 App. 2-14: K_L = 0.2 for loose flanges (from memory)
 PCC1_RANGE = (0.40, 0.70)  # ASME PCC-1 practice: assembly bolt stress / yield (from memory)
 
 
@@ -222,6 +223,32 @@ class Ring:
     scale_k: tuple[float, float] = (1.0, 1.0)  # modulus ratio (bolt, flange) at temperature
     solves: int = 0
     last_u: np.ndarray | None = None  # previous displacements: the next solve starts there
+    k_plate: float = 0.0  # flange plate under the bolt alone (VDI 2230-1 cone) [N/m]
+    lever: float = 0.0  # h_G: bolt circle to the gasket reaction circle [m]
+    rotation_stiffness: float = math.inf  # K_theta of one flange ring [N m/rad]; inf: off
+    thermal_gasket: float = 0.0  # free thermal growth of the gasket in the model [m]
+    creep: np.ndarray | None = None  # gasket thickness lost to creep, per sector [m]
+    phi: float = 0.0  # h_G theta of the last solve: the ring's rotation at the lever [m]
+
+    @property
+    def rotation(self) -> bool:
+        """Whether the flange rings rotate (a finite rotational stiffness)."""
+        return math.isfinite(self.rotation_stiffness)
+
+    def gasket_free(self) -> np.ndarray:
+        """Free elongation of each gasket sector: thermal growth less creep [m]."""
+        g = np.full(self.n, self.thermal_gasket)
+        return g if self.creep is None else g - self.creep
+
+    def rotations(self, sol: Any = None) -> np.ndarray:
+        """Rotation of the flange ring at each bolt after the last solve [rad].
+
+        The ring turns as a whole (:meth:`_rotate`): ``theta = phi / h_G``, positive where
+        it turns its bolt side toward the mating face.  Zero without rotation.
+        """
+        if not self.rotation:
+            return np.zeros(self.n)
+        return np.full(self.n, self.phi / self.lever)
 
     # ---- structure
     def _parts(self, skip_bolt: int | None = None):
@@ -243,7 +270,7 @@ class Ring:
         d0 = (
             list(self.bolt_free[bolts] + self.thermal_bolt)
             + [self.thermal_flange] * n
-            + [0.0] * n
+            + list(self.gasket_free())
             + [0.0] * n
         )
         beh = [TENSION] * len(bolts) + [LINEAR] * n + [CURVE] * n + [LINEAR] * n
@@ -310,8 +337,16 @@ class Ring:
             self._net = net
         return net
 
-    def solve(self, loads_F: np.ndarray, held: Sequence[tuple[int, float]] = ()):
-        """Solve the ring; each ``(bolt, force)`` of ``held`` holds that bolt at that force."""
+    def solve(
+        self,
+        loads_F: np.ndarray,
+        held: Sequence[tuple[int, float]] = (),
+        loads_U: np.ndarray | None = None,
+    ):
+        """Solve the ring; each ``(bolt, force)`` of ``held`` holds that bolt at that force.
+
+        ``loads_F`` act on the flange face over the gasket, ``loads_U`` on the ring at the
+        bolt circle (the lever shares of a load between them, :func:`load_split`)."""
         n = self.n
         net = self._network()
         base = getattr(self, "_base", None)
@@ -327,8 +362,8 @@ class Ring:
         net.k = base[1]
         free = np.zeros(4 * n)
         free[:n] = self.bolt_free + self.thermal_bolt
-        free[n : 2 * n] = self.thermal_flange
-        net.free_elongation = free
+        g_free = self.gasket_free()
+        free[2 * n : 3 * n] = g_free
         beh = base[2].copy()
         gparts = np.arange(2 * n, 3 * n)
         for b, _ in held:
@@ -338,15 +373,56 @@ class Ring:
         net.curve_table = self.gasket_table(gparts, held)
         loads = np.zeros(self.n_nodes)
         loads[self.node_F] += loads_F
-        sol = net.solve(loads, start=self.last_u)
+        if loads_U is not None:
+            loads[self.node_U] += loads_U
+
+        def run(phi: float) -> Any:
+            # the ring's rotation shortens every plate-to-gasket link by phi = h_G theta
+            free[n : 2 * n] = self.thermal_flange - phi
+            net.free_elongation = free
+            return net.solve(loads, start=self.last_u)
+
+        if not self.rotation:
+            sol = run(0.0)
+        else:
+            sol, self.phi = self._rotate(run, n)
         self.solves += 1
         u = sol.displacement
         self.last_u = u
-        comp = np.maximum(-u[self.node_F], 0.0)
+        comp = np.maximum(g_free - u[self.node_F], 0.0)  # mechanical compression
         self.c_max = np.maximum(self.c_max, comp)
         bolt_force = sol.force[:n].copy()
         gasket_force = -sol.force[gparts]
         return u, bolt_force, gasket_force, sol
+
+    def _rotate(self, run: Any, n: int) -> tuple[Any, float]:
+        """Solve with the ring's rotation: ``phi = h_G theta`` meets the moment balance.
+
+        The ring turns as a whole (its torsional stiffness between bolts, far above its
+        twisting stiffness over one pitch, is taken as rigid), so every sector turns by
+        the same theta; the moment of the links' compressions, ``M = h_G sum c_i``, turns
+        it by ``theta = M / K_theta``: ``phi = h_G^2 sum c_i / K_theta``.  Secant on phi
+        (the rest of the ring is piecewise linear), to 1e-12 relative.
+        """
+        a = self.lever**2 / (self.rotation_stiffness * self.scale_k[1])
+        S = n * self.k_flange * self.scale_k[1]  # the stiffest the rest can be against phi
+
+        def g(phi: float) -> tuple[float, Any]:
+            sol = run(phi)
+            return phi - a * float(-np.sum(sol.force[n : 2 * n])), sol
+
+        p0 = self.phi
+        g0, sol = g(p0)
+        scale = abs(p0) + a * float(np.sum(np.abs(sol.force[n : 2 * n]))) + 1e-18
+        if abs(g0) <= 1e-12 * scale:
+            return sol, p0
+        p1 = p0 - g0 / (1.0 + a * S)
+        for _ in range(60):
+            g1, sol = g(p1)
+            if abs(g1) <= 1e-12 * scale or g1 == g0:
+                return sol, p1
+            p0, p1, g0 = p1, p1 - g1 * (p1 - p0) / (g1 - g0), g1
+        raise SolveError("the flange ring's rotation did not converge")
 
     def tighten(self, bolt: int, target: float, loads_F: np.ndarray) -> np.ndarray:
         """Turn one nut until its bolt carries ``target`` (never loosen); bolt forces after."""
@@ -416,6 +492,9 @@ def build_ring(spec: FlangeSpec) -> Ring:
     except ValueError as err:
         raise InputError(str(err), key="flange") from None
     k_bolt = (2.0 if pair else 1.0) / dS  # half bolt in the half model of a pair
+    k_plate = 1.0 / dF
+    lever = 0.5 * (spec.bolt_circle - asme_app2(spec).G)  # h_G, App. 2-3
+    K_theta = ring_rotation_stiffness(spec, E_f) if spec.rotation else math.inf
     pitch = math.pi * spec.bolt_circle / n
     I_ring = ring_width * t**3 / 12
     k_ring = 12 * E_f * I_ring / pitch**3
@@ -435,7 +514,7 @@ def build_ring(spec: FlangeSpec) -> Ring:
         spec=spec,
         n=n,
         k_bolt=k_bolt,
-        k_flange=1.0 / dF,
+        k_flange=k_plate,
         k_ring=k_ring,
         gasket_thickness=g.thickness / 2 if pair else g.thickness,
         sector_area=g.area / n,
@@ -444,7 +523,60 @@ def build_ring(spec: FlangeSpec) -> Ring:
         n_nodes=2 * n + 1,
         bolt_free=np.zeros(n),
         c_max=np.zeros(n),
+        k_plate=k_plate,
+        lever=lever,
+        rotation_stiffness=K_theta,
     )
+
+
+def ring_rotation_stiffness(spec: FlangeSpec, E: float) -> float:
+    """Rotational stiffness K_theta of one flange ring under a uniform twisting moment [N m/rad].
+
+    Ring theory: a ring of rectangular section (thickness t, inner and outer radius a, b)
+    turned through theta about its centroid circle carries the hoop stress
+    ``E theta z / r``; its energy gives ``K_theta = E t^3 / 12 * 2 pi ln(b/a)`` for the
+    whole circumference, the exact form for a rectangular section of the thin-ring result
+    ``theta = M_t R^2 / (E I)`` (M_t per unit length of the centroid circle; Timoshenko,
+    Strength of Materials, Part II, "twisting of a ring by couples uniformly distributed
+    along its centre line"; Roark's Formulas for Stress and Strain, rings under a
+    distributed twisting moment; both from memory).  The bolt holes carry no hoop stress:
+    each removes ``pi d_h^2 / (4 R_bc^2)`` from ``2 pi ln(b/a)`` (the same energy integral,
+    ``dr dphi = dA / r``, over the hole at the bolt circle; our approximation).
+    """
+    a = 0.5 * spec.ring_inner_diameter
+    b = 0.5 * spec.ring_outer_diameter
+    Rb = 0.5 * spec.bolt_circle
+    log_part = 2 * math.pi * math.log(b / a) - spec.bolt_count * math.pi * spec.hole**2 / (
+        4 * Rb**2
+    )
+    return E * spec.thickness**3 / 12 * log_part
+
+
+def load_split(spec: FlangeSpec, G: float, rotation: bool) -> tuple[np.ndarray, np.ndarray]:
+    """The working load per bolt shared between the ring at the bolt (U) and over the gasket (F).
+
+    Without rotation every load acts on the face over the gasket.  With rotation each
+    load acts at its own radius (ASME BPVC VIII-1 Appendix 2, 2-3, loose-type flange
+    moment arms, from memory): the end force on the bore ``H_D = pi/4 B^2 P`` with the
+    external force and moment at ``h_D = (C - B)/2``, the pressure on the face
+    ``H_T = H - H_D`` at ``h_T = (h_D + h_G)/2``, measured in from the bolt circle C; a
+    load at arm ``a`` is shared as ``1 - a/h_G`` on the bolt's node and ``a/h_G`` on the
+    gasket's (the same virtual work on a rigid ring section).  Returns (at U, at F) [N].
+    """
+    FA = working_loads(spec, G)
+    if not rotation:
+        return np.zeros_like(FA), FA
+    n = spec.bolt_count
+    B, C = spec.ring_inner_diameter, spec.bolt_circle
+    hG = 0.5 * (C - G)
+    hD = 0.5 * (C - B)
+    hT = 0.5 * (hD + hG)
+    H = math.pi / 4 * G**2 * spec.pressure
+    HD = math.pi / 4 * B**2 * spec.pressure
+    on_T = np.full(n, (H - HD) / n)
+    on_D = FA - on_T  # end force, external force and moment, at the bore
+    at_F = on_D * hD / hG + on_T * hT / hG
+    return FA - at_F, at_F
 
 
 def working_loads(spec: FlangeSpec, G: float) -> np.ndarray:
@@ -539,8 +671,9 @@ def transfer_loss(ring: Ring, ltf: float) -> float:
 
     Defined so that one bolt with its own flange plate and gasket sector (unloading along
     the gasket's unloading modulus) keeps ``ltf`` of the applied tension:
-    loss = (1 - LTF) x (1/k_bolt + 1/k_flange + t_g / (E_un A_sector)); our model of the
-    load transfer, the ring's interaction comes on top.
+    loss = (1 - LTF) x (1/k_bolt + 1/k_flange + t_g / (E_un A_sector) + N h_G^2/K_theta)
+    (the last term the sector's share of the ring's rotation); our model of the load
+    transfer, the ring's interaction comes on top.
     """
     g = ring.spec.gasket
     c = (
@@ -548,6 +681,8 @@ def transfer_loss(ring: Ring, ltf: float) -> float:
         + 1.0 / ring.k_flange
         + ring.gasket_thickness / (g.unload_modulus * ring.sector_area)
     )
+    if ring.rotation:  # the sector's share of the ring's rotation, N h_G^2 / K_theta
+        c += ring.n * ring.lever**2 / ring.rotation_stiffness
     return (1.0 - ltf) * c
 
 
@@ -729,7 +864,7 @@ def _sensitivity(ring: Ring, u: np.ndarray) -> np.ndarray:
     kb = ring.k_bolt
     g = ring.spec.gasket
     t = ring.gasket_thickness
-    comp = np.maximum(-u[ring.node_F], 0.0)
+    comp = np.maximum(ring.gasket_free() - u[ring.node_F], 0.0)
     cs = np.asarray(g.curve_strain) * t
     Fs = np.asarray(g.curve_stress) * ring.sector_area
     slopes = np.diff(Fs) / np.diff(cs)
@@ -779,10 +914,59 @@ class FlangeResult(Shown):
     pass_fractions: tuple[float, ...] = ()  # each pass's target (or applied tension) / final
     pass_labels: tuple[str, ...] = ()  # each pass's pattern, or which bolts a tensioner pass takes
     tensioning: Tensioning | None = None  # method tension: the tensioning sequence
+    cycle: Any = None  # the heat cycle (flange.service.Cycle)
+    assembly_rotation: np.ndarray | None = None  # ring rotation per bolt after the passes [rad]
+    rotation_stiffness: float = math.inf  # K_theta of one ring [N m/rad]; inf: no rotation
+    lever: float = 0.0  # h_G [m]
+    pressure_effect: dict[str, Any] = field(default_factory=dict)
+    ring: Any = field(default=None, repr=False, compare=False)  # the assembled ring (a copy)
 
     @property
     def ok(self) -> bool:
         return all(c.passed for c in self.checks)
+
+    @property
+    def sector_area(self) -> float:
+        """Gasket area of one bolt sector [m^2]."""
+        return self.spec.gasket.area / self.spec.bolt_count
+
+    def rotation_dict(self) -> dict[str, Any]:
+        """The ring rotation model and the rotations it gives (JSON)."""
+        on = math.isfinite(self.rotation_stiffness)
+        asm = self.assembly_rotation if self.assembly_rotation is not None else np.zeros(1)
+        srv = self.cycle["start_up"].rotation if self.cycle is not None else np.zeros(1)
+        return {
+            "enabled": on,
+            "model": (
+                "ring theory, K_theta = E t^3/12 (2 pi ln(b/a) - N pi d_h^2/(4 R_bc^2)) "
+                "(Timoshenko, Strength of Materials II; Roark; from memory)"
+                if on
+                else "off: the flange rings translate only (flange.rotation = false)"
+            ),
+            "stiffness_Nm_per_rad": self.rotation_stiffness if on else None,
+            "lever_mm": self.lever * 1e3,
+            "assembly_max_deg": float(np.degrees(np.max(np.abs(asm)))),
+            "service_max_deg": float(np.degrees(np.max(np.abs(srv)))),
+        }
+
+    def cycle_dict(self) -> dict[str, Any] | None:
+        """The heat cycle's states per bolt (JSON)."""
+        if self.cycle is None:
+            return None
+        A = self.sector_area
+        return {
+            "relaxation_factor": self.cycle.relaxation,
+            "relaxation_basis": self.cycle.relaxation_basis,
+            "operating_minimum_per_sector_N": self.app2.Hp / self.spec.bolt_count,
+            "operating_minimum_stress_MPa": self.app2.Hp / self.spec.bolt_count / A * 1e-6,
+            "seating_stress_MPa": self.spec.gasket.y * 1e-6,
+            "crush_stress_MPa": self.spec.gasket.max_stress * 1e-6,
+            "gasket_creep_mm": (self.cycle.creep * 1e3).tolist(),
+            "states": [self.cycle[k].to_dict(A) for k in self.cycle.states],
+        }
+
+    def _bolt_cycle(self, i: int) -> dict[str, float]:
+        return _bolt_cycle_keys(self, i)
 
     def to_dict(self) -> dict[str, Any]:
         """JSON form per DESIGN.md (``flange --json``)."""
@@ -849,6 +1033,7 @@ class FlangeResult(Shown):
                     "gasket_force_assembly_N": float(self.assembly_gasket[i]),
                     "gasket_force_service_N": float(self.service_gasket[i]),
                     "compensated_target_N": _finite(self.compensated_targets[i]),
+                    **self._bolt_cycle(i),
                 }
                 for i in range(n)
             ],
@@ -859,11 +1044,28 @@ class FlangeResult(Shown):
             "final_spread": self.final_spread,
             "compensated_final_spread": _spread(self.compensated_final),
             "equilibrium_residual_N": self.equilibrium_residual,
+            "rotation": self.rotation_dict(),
+            "pressure_effect": dict(self.pressure_effect),
+            "heat_cycle": self.cycle_dict(),
             "checks": [c.to_dict() for c in self.checks],
             "ok": self.ok,
             "notes": list(self.notes),
             "defaults": dict(self.defaults),
         }
+
+
+def _bolt_cycle_keys(result: FlangeResult, i: int) -> dict[str, float]:
+    """Bolt i's rotation and heat-cycle loads (JSON)."""
+    out: dict[str, float] = {}
+    if result.assembly_rotation is not None:
+        out["rotation_assembly_deg"] = float(np.degrees(result.assembly_rotation[i]))
+    if result.cycle is not None:
+        out["rotation_service_deg"] = float(np.degrees(result.cycle["start_up"].rotation[i]))
+        for k in ("hot", "cooled", "shut_down"):
+            st = result.cycle[k]
+            out[f"bolt_load_{k}_N"] = float(st.bolt[i])
+            out[f"gasket_force_{k}_N"] = float(st.gasket[i])
+    return out
 
 
 def _finite(x: float) -> float | None:
@@ -1019,7 +1221,7 @@ def analyse_flange(spec: FlangeSpec, compensate: bool = True) -> FlangeResult:
         fractions = spec.passes
         labels = spec.patterns
     assembly_bolts = passes[-1]
-    _, asm_bolts, asm_gasket, _ = ring.solve(np.zeros(n))
+    _, asm_bolts, asm_gasket, asm_sol = ring.solve(np.zeros(n))
     comp_order = orders[0]
     if compensate and tens is None:  # compensated single-pass targets: a torque-pass figure
         comp_t, comp_final = compensated_targets(spec, target, comp_order)
@@ -1031,23 +1233,31 @@ def analyse_flange(spec: FlangeSpec, compensate: bool = True) -> FlangeResult:
             f"permissible preload {FMzul / 1e3:.4g} kN: use several passes instead."
         )
 
-    # --- service: pressure, external loads, temperatures
-    ring.scale_k = (
-        spec.bolt_material.E(spec.T_bolt, True) / spec.bolt_material.E(spec.T_assembly, True),
-        spec.material.E(spec.T_flange, True) / spec.material.E(spec.T_assembly, True),
-    )
-    pair = spec.mating == "flange"
-    lK = (2 * spec.thickness if pair else spec.thickness) + g.thickness
-    d_strain_b = spec.bolt_material.strain(spec.T_bolt, True) - spec.bolt_material.strain(
-        spec.T_assembly, True
-    )
-    d_strain_f = spec.material.strain(spec.T_flange, True) - spec.material.strain(
-        spec.T_assembly, True
-    )
-    ring.thermal_bolt = (lK / (2 if pair else 1)) * d_strain_b
-    ring.thermal_flange = spec.thickness * d_strain_f
-    _, srv_bolts, srv_gasket, sol = ring.solve(FA)
+    # --- service: pressure, external loads, temperatures; then the heat cycle
+    from .service import Conditions, heat_cycle, loads, snapshot, solve_state
+
+    asm_rot = ring.rotations(asm_sol)
+    cycle = heat_cycle(snapshot(ring))
+    start = cycle["start_up"]
+    srv_bolts, srv_gasket = start.bolt, start.gasket
     residual = _equilibrium(srv_bolts, srv_gasket, FA)
+    # the pressure's (and external loads') effect on the bolts at the assembly temperature:
+    # from the compatibility of bolts, rings and gasket, beside App. 2's assumption that
+    # the bolts carry all of it (W_m1 = H + H_p)
+    T0 = spec.T_assembly
+    cold = solve_state(
+        snapshot(ring), "pressurised", Conditions(T0, T0, T0), loads(spec, ring.rotation)
+    )
+    pressure_effect = {
+        "working_load_N": float(np.sum(FA)),
+        "bolt_load_increase_N": float(np.sum(cold.bolt - asm_bolts)),
+        "gasket_load_decrease_N": float(np.sum(asm_gasket - cold.gasket)),
+        "load_factor": float(np.sum(cold.bolt - asm_bolts) / np.sum(FA))
+        if abs(float(np.sum(FA))) > 0
+        else None,
+        "app2_operating_N": a.Wm1,
+        "app2_basis": "ASME BPVC VIII-1 App. 2, 2-5: W_m1 = H + H_p, the bolts carry all of H",
+    }
 
     # --- checks on the per-bolt loads after the last pass and in service.  The passes are
     # simulated at the nominal preload; the assembly scatter scales the preload part of
@@ -1126,9 +1336,14 @@ def analyse_flange(spec: FlangeSpec, compensate: bool = True) -> FlangeResult:
             extra={"governing_bolt": int(i) + 1},
         )
     )
-    crush_all = np.concatenate([gasket_asm_hi, gasket_srv_hi])
+    # the heat cycle: losses from assembly to each state taken at the nominal preload and
+    # applied to the scattered preloads (conservative for creep, which grows with the
+    # gasket stress, at the smallest preload)
+    cyc_lo = {k: cycle[k].gasket - (1 - lo_s) * asm_gasket for k in ("hot", "cooled")}
+    cyc_hi = {k: cycle[k].gasket + (hi_s - 1) * asm_gasket for k in ("hot", "cooled")}
+    crush_all = np.concatenate([gasket_asm_hi, gasket_srv_hi, cyc_hi["hot"], cyc_hi["cooled"]])
     i = int(np.argmax(crush_all))
-    when = "at assembly" if i < n else "in service"
+    when = ("at assembly", "in service", "hot, after relaxation", "cooled back")[i // n]
     checks.append(
         Check(
             "gasket_crush",
@@ -1157,6 +1372,49 @@ def analyse_flange(spec: FlangeSpec, compensate: bool = True) -> FlangeResult:
             extra={"governing_bolt": int(i) + 1},
         )
     )
+    low = np.concatenate([cyc_lo["hot"], cyc_lo["cooled"]])
+    i = int(np.argmin(low))
+    checks.append(
+        Check(
+            "gasket_heat_cycle",
+            "Gasket load after creep relaxation when hot and after cooling back, under "
+            "pressure, at least m times the pressure (per sector)",
+            float(low[i]) / 1e3,
+            op_need / 1e3,
+            "kN",
+            ">=",
+            "ASME BPVC VIII-1 Appendix 2, 2-5 (H_p = 2 b pi G m P); ring network through the "
+            f"heat cycle, creep relaxation {cycle.relaxation_basis}",
+            f"sector of {bolt_no(i % n)}, "
+            + ("hot, after relaxation" if i < n else "cooled back, pressurised")
+            + ", smallest assembly preload",
+            extra={"governing_bolt": int(i % n) + 1},
+        )
+    )
+    if math.isfinite(ring.rotation_stiffness):
+        # the ring rotation of the model against ASME's rigidity limit; App. 2-14's loose-
+        # flange index J = 109.4 M_o / (E t^3 ln K K_L) is ring theory's rotation in degrees
+        # (109.4 = 12/(2 pi) x 180/pi) over K_L = 0.2 deg (from memory)
+        rots = {
+            "after the last pass": float(np.max(np.abs(asm_rot))),
+            "in service": float(np.max(np.abs(cycle["start_up"].rotation))),
+        }
+        when_r, rot = max(rots.items(), key=lambda kv: kv[1])
+        checks.append(
+            Check(
+                "flange_rotation",
+                "Rotation of the flange ring within the rigidity limit",
+                math.degrees(rot),
+                ROTATION_LIMIT_DEG,
+                "deg",
+                "<=",
+                "ASME BPVC VIII-1 Appendix 2-14, flange rigidity of a loose-type flange "
+                "(J = 109.4 M_o/(E t^3 ln K K_L) <= 1, K_L = 0.2; from memory), with the "
+                "rotation of the ring network (ring theory); an integral flange's hub makes "
+                "it stiffer, so for it the check is conservative",
+                f"{when_r}, nominal preload (App. 2-14 takes the design moment)",
+            )
+        )
     Rp_T, basis = yield_at_temperature(grd, spec.T_bolt)
     i = int(np.argmax(bolts_srv_hi))
     checks.append(
@@ -1210,6 +1468,12 @@ def analyse_flange(spec: FlangeSpec, compensate: bool = True) -> FlangeResult:
         notes=tuple(notes),
         equilibrium_residual=residual,
         defaults=spec.defaults,
+        cycle=cycle,
+        assembly_rotation=asm_rot,
+        rotation_stiffness=ring.rotation_stiffness,
+        lever=ring.lever,
+        pressure_effect=pressure_effect,
+        ring=snapshot(ring),
     )
 
 
@@ -1236,22 +1500,11 @@ def _equilibrium(bolts: np.ndarray, gasket: np.ndarray, FA: np.ndarray) -> float
 
 def _service_gasket_loss(spec: FlangeSpec, F: float, FA: np.ndarray) -> np.ndarray:
     """Loss of gasket force per sector from assembly (all bolts at F) to service."""
+    from .service import loads, service_conditions, solve_state
+
     ring = build_ring(spec)
     n = ring.n
     simulate_passes(ring, np.full(n, F), (1.0,), [list(range(n))])
     _, _, g0, _ = ring.solve(np.zeros(n))
-    pair = spec.mating == "flange"
-    lK = (2 * spec.thickness if pair else spec.thickness) + spec.gasket.thickness
-    ring.scale_k = (
-        spec.bolt_material.E(spec.T_bolt, True) / spec.bolt_material.E(spec.T_assembly, True),
-        spec.material.E(spec.T_flange, True) / spec.material.E(spec.T_assembly, True),
-    )
-    ring.thermal_bolt = (lK / (2 if pair else 1)) * (
-        spec.bolt_material.strain(spec.T_bolt, True)
-        - spec.bolt_material.strain(spec.T_assembly, True)
-    )
-    ring.thermal_flange = spec.thickness * (
-        spec.material.strain(spec.T_flange, True) - spec.material.strain(spec.T_assembly, True)
-    )
-    _, _, g1, _ = ring.solve(FA)
+    g1 = solve_state(ring, "start_up", service_conditions(spec), loads(spec, ring.rotation)).gasket
     return g0 - g1

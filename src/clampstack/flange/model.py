@@ -28,6 +28,23 @@ class GasketSpec:
     curve_strain: tuple[float, ...]
     curve_stress: tuple[float, ...]  # [Pa]
     source: str
+    expansion: float = 0.0  # thermal expansion through the thickness [1/K]
+    relax_temperature: tuple[float, ...] = (293.15,)  # [K]
+    relax_factor: tuple[float, ...] = (1.0,)  # creep relaxation factor P_QR at those
+    relaxation_given: float | None = None  # a P_QR from the file: applies when hot
+    service_source: str = ""  # source of expansion and relaxation
+
+    def relaxation(self, T: float, T_assembly: float) -> float:
+        """Creep relaxation factor P_QR at gasket temperature ``T`` [K] (1: no creep).
+
+        A factor given in the file applies at any temperature above assembly; otherwise
+        the type's table (EN 13555 P_QR, typical values from memory), linear and held
+        beyond its ends."""
+        if self.relaxation_given is not None:
+            return self.relaxation_given if T > T_assembly + 1e-9 else 1.0
+        import numpy as np
+
+        return float(np.interp(T, self.relax_temperature, self.relax_factor))
 
     @property
     def area(self) -> float:
@@ -90,6 +107,14 @@ class FlangeSpec:
     #: then the rest, then a check pass) or "sequence" (one tool, bolt by bolt, in the passes)
     tensioning: str | None = None
     load_transfer_factor: float | None = None  # method tension: residual / applied tension
+    rotation: bool = True  # the flange rings rotate (ring theory); False: axial only
+    T_gasket: float | None = None  # gasket temperature in operation [K]; None: the flange's
+    distributions: dict = field(default_factory=dict)  # [distributions]: key -> Dist (scatter)
+
+    @property
+    def T_gasket_service(self) -> float:
+        """The gasket's service temperature [K] (the flange's unless given)."""
+        return self.T_flange if self.T_gasket is None else self.T_gasket
 
 
 def bolt_allowable_stress(grade: Grade, thread: Thread) -> tuple[float, str]:

@@ -13,9 +13,28 @@ from ..errors import InputError
 from ..joint.model import DIST_KEYS, DIST_LOWER_BOUNDS, MAX_TRUNCATED, Dist
 from ..units import parse_quantity
 
+#: What a flange file's ``[distributions]`` may vary (each bolt, each pass; the gasket's
+#: relaxation factor once per flange).
+FLANGE_DIST_KEYS: dict[str, tuple[str, str]] = {
+    "thread_friction": DIST_KEYS["thread_friction"],
+    "head_friction": DIST_KEYS["head_friction"],
+    "nut_factor": ("dimensionless", "nut factor K of T = K F d"),
+    "torque": DIST_KEYS["torque"],
+    "torque_factor": DIST_KEYS["torque_factor"],
+    "preload": DIST_KEYS["preload"],
+    "gasket_relaxation": ("dimensionless", "gasket creep relaxation factor P_QR"),
+}
+FLANGE_LOWER_BOUNDS = {k: 0.0 for k in FLANGE_DIST_KEYS}
 
-def parse_distributions(raw: Any) -> dict[str, Dist]:
-    """The ``[distributions]`` table -> {key: Dist}; InputError naming the key."""
+
+def parse_distributions(
+    raw: Any, keys: dict[str, tuple[str, str]] | None = None
+) -> dict[str, Dist]:
+    """The ``[distributions]`` table -> {key: Dist}; InputError naming the key.
+
+    ``keys``: the keys allowed (default: a joint file's, :data:`DIST_KEYS`)."""
+    keys = DIST_KEYS if keys is None else keys
+    bounds = DIST_LOWER_BOUNDS if keys is DIST_KEYS else FLANGE_LOWER_BOUNDS
     if raw is None:
         return {}
     if not isinstance(raw, dict):
@@ -23,25 +42,23 @@ def parse_distributions(raw: Any) -> dict[str, Dist]:
     out = {}
     for name, spec in raw.items():
         key = f"distributions.{name}"
-        if name not in DIST_KEYS:
+        if name not in keys:
             import difflib
 
-            near = difflib.get_close_matches(str(name), DIST_KEYS, n=2)
+            near = difflib.get_close_matches(str(name), keys, n=2)
             hint = (
-                f" (did you mean {', '.join(near)}?)"
-                if near
-                else (f" (known: {', '.join(DIST_KEYS)})")
+                f" (did you mean {', '.join(near)}?)" if near else (f" (known: {', '.join(keys)})")
             )
             raise InputError(f"unknown key{hint}", key=key)
-        kind = DIST_KEYS[name][0]
+        kind = keys[name][0]
         d = _parse_one(spec, kind, key, name == "temperature")
-        bound = DIST_LOWER_BOUNDS.get(name)
+        bound = bounds.get(name)
         if bound is not None:
             below = d.share_below(bound)
             if d.kind == "uniform" and below > 0:
                 raise InputError(
                     f"the range reaches below {_bound_text(name, bound)}, which "
-                    f"{DIST_KEYS[name][1]} cannot be",
+                    f"{keys[name][1]} cannot be",
                     key=key,
                 )
             if below > MAX_TRUNCATED:

@@ -104,7 +104,7 @@ def load_toml(path: str | os.PathLike[str]) -> InputDocument:
 #: The kinds of input file, and the commands that read each.
 KIND_COMMANDS: dict[str, tuple[str, ...]] = {
     "joint": ("check", "sweep", "scatter", "size", "report"),
-    "flange": ("flange", "scatter", "size", "report"),
+    "flange": ("flange", "sweep", "scatter", "size", "report"),
     "assembly": ("solve", "report"),
 }
 _KIND_NAMES = {

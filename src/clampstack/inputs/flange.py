@@ -54,6 +54,13 @@ FLANGE = Schema(
             default="flange",
             choices=("flange", "rigid"),
         ),
+        Key(
+            "rotation",
+            "bool",
+            "the flange rings rotate under the bolt, gasket and pressure loads (ring "
+            "theory); false: the axial model alone",
+            default="true",
+        ),
     ),
 )
 
@@ -148,6 +155,18 @@ GASKET = Schema(
         Key("max_stress", "stress", "largest allowed gasket stress (crush)", positive=True),
         Key("unload_modulus", "stress", "unloading modulus of the gasket", positive=True),
         Key("curve", "pairs", 'loading curve [[strain, "stress"], ...], e.g. [[0.1, "30 MPa"]]'),
+        Key(
+            "expansion",
+            "expansion",
+            "thermal expansion through the thickness (overrides the type)",
+        ),
+        Key(
+            "relaxation",
+            "number",
+            "creep relaxation factor P_QR when hot, residual / initial gasket stress "
+            "(EN 13555; overrides the type's table)",
+            positive=True,
+        ),
     ),
 )
 
@@ -175,7 +194,9 @@ LOADING = Schema(
         Key(
             "gasket_temperature",
             "temperature",
-            "gasket temperature (accepted; the gasket curve has no temperature data)",
+            "gasket temperature in operation (expansion and creep relaxation; the gasket "
+            "curve itself has no temperature data)",
+            default="flange temperature",
         ),
     ),
 )
@@ -219,6 +240,13 @@ FLANGE_FILE = Schema(
         Key("gasket", "table", "the gasket", required=True, schema=GASKET),
         Key("loading", "table", "loads in operation", schema=LOADING),
         Key("tightening", "table", "tightening and passes", schema=TIGHTENING),
+        Key(
+            "distributions",
+            "raw",
+            "what `clampstack scatter` varies: thread_friction, head_friction, nut_factor, "
+            "torque or torque_factor (each bolt, each pass), preload (each bolt), "
+            'gasket_relaxation (each flange); "low..high" or {normal = [mean, std]}, ...',
+        ),
     ),
 )
 
@@ -306,6 +334,8 @@ def flange_from_data(data: dict[str, Any]) -> FlangeSpec:
         nut_factor=tight.nut_factor,
         tensioning=tensioning,
         load_transfer_factor=tight.load_transfer_factor,
+        rotation=f["rotation"] if f.get("rotation") is not None else True,
+        distributions=_distributions(raw.get("distributions"), tight.method),
         passes=passes,
         patterns=patterns,
         order=order,
@@ -314,6 +344,24 @@ def flange_from_data(data: dict[str, Any]) -> FlangeSpec:
     )
     check_fit(spec)
     return spec
+
+
+def _distributions(raw: Any, method: str) -> dict[str, Any]:
+    """``[distributions]`` of a flange file (what ``clampstack scatter`` varies)."""
+    from .distributions import FLANGE_DIST_KEYS, parse_distributions
+
+    out = parse_distributions(raw, FLANGE_DIST_KEYS)
+    torque_keys = ("torque", "torque_factor", "thread_friction", "head_friction", "nut_factor")
+    for k in out:
+        if method != "torque" and k in torque_keys:
+            raise InputError(f"{k} applies to method torque", key=f"distributions.{k}")
+        if method == "torque" and k == "preload":
+            raise InputError(
+                "with method torque the preload follows from torque and friction; vary "
+                "those instead",
+                key="distributions.preload",
+            )
+    return out
 
 
 def tensioning_mode(tr: dict[str, Any], method: str, n: int, rec: Defaults) -> str | None:
@@ -513,7 +561,33 @@ def gasket_table(g: dict[str, Any], rec: Defaults) -> GasketSpec:
         curve_strain=curve[0],
         curve_stress=curve[1],
         source=cat.source if cat else ("user m, y; curve of " + like.key if like else "user data"),
+        **_service_data(g, like or _nearest_type(m, y), rec),
     )
+
+
+def _service_data(g: dict[str, Any], like: Any, rec: Defaults) -> dict[str, Any]:
+    """The gasket's expansion and creep relaxation: given, or the (nearest) type's."""
+    relax = g.get("relaxation")
+    if relax is not None and not relax <= 1.0:
+        raise InputError(
+            f"a relaxation factor is residual / initial gasket stress, at most 1, got {relax:g}",
+            key="gasket.relaxation",
+        )
+    src = like.service_source if like is not None else ""
+    out: dict[str, Any] = {"relaxation_given": relax, "service_source": src}
+    if g.get("expansion") is not None:
+        out["expansion"] = g["expansion"]
+    elif like is not None:
+        out["expansion"] = like.expansion
+    if like is not None:
+        out["relax_temperature"] = like.relax_temperature
+        out["relax_factor"] = like.relax_factor
+        if g.get("type") is None:
+            rec.note(
+                "gasket.relaxation",
+                f"expansion and creep relaxation of catalog type {like.key!r} (nearest m and y)",
+            )
+    return out
 
 
 def loading(ld: dict[str, Any], b: dict[str, Any]) -> dict[str, float]:
@@ -536,6 +610,7 @@ def loading(ld: dict[str, Any], b: dict[str, Any]) -> dict[str, float]:
         "T_assembly": T_asm,
         "T_flange": T_fl,
         "T_bolt": T_b,
+        "T_gasket": ld.get("gasket_temperature"),
     }
 
 

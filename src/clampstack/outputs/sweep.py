@@ -9,6 +9,7 @@ from collections.abc import Iterator
 import numpy as np
 
 from ..joint.analysis import BASIS_NAMES
+from ..studies.flange_sweep import FlangeSweepResult
 from ..studies.sweep import C0, SweepResult
 from .text import CAUTION, UNIT_SYSTEMS, notes_block, table
 
@@ -263,3 +264,127 @@ def sweep_json_chunks(result: SweepResult, block: int = BLOCK) -> Iterator[str]:
         rows = [template % values for values in zip(*cols, strict=True)]
         yield ",\n    ".join(rows) + (",\n    " if stop < n else "")
     yield "\n  ]" + tail
+
+
+def flange_sweep_text(r: FlangeSweepResult, units: str = "si") -> str:
+    """Verdict, limits, a table of the points and the heat cycle per bolt."""
+    from .flange import FLANGE_CAUTION
+
+    u = UNIT_SYSTEMS[units]
+    F, S = u.label("force"), u.label("stress")
+    A = r.sector_area
+    s = r.spec
+    T = r.temperature
+    ok = r.ok
+    heat = [i for i, p in enumerate(r.phase) if p == "heating"]
+    out = [
+        s.title,
+        f"Flange temperature {u.temp(T[heat[0]]):.4g} .. {u.temp(T[heat[-1]]):.4g} "
+        f"{u.temp_label}, {len(heat)} points"
+        + (", heated, relaxed and cooled back" if r.cycle is not None else "")
+        + f"; assembly at {u.temp(s.T_assembly):.4g} {u.temp_label}; pressurised",
+        "",
+    ]
+    cyc_ok = (r.cycle or {}).get("ok", True)
+    if np.all(ok) and cyc_ok:
+        out.append("RESULT: PASS - the gasket and bolt checks pass over the whole range")
+    elif np.all(ok):
+        out.append("RESULT: FAIL - gasket_heat_cycle: below the operating minimum after the cycle")
+    else:
+        out.append(f"RESULT: FAIL - checks fail at {int((~ok).sum())} of {T.size} points")
+    for lim in r.limits:
+        where = (
+            "over the whole range"
+            if lim.fails == "whole range"
+            else f"{lim.fails} {u.temp(lim.temperature):.2f} {u.temp_label}"
+        )
+        out.append(f"  {lim.check} fails {where}")
+    out.append(
+        f"  gasket operating minimum {u.fmt('stress', r.operating_minimum / A)} {S} "
+        f"(H_p/N), seating y {u.fmt('stress', s.gasket.y)} {S}, crush "
+        f"{u.fmt('stress', s.gasket.max_stress)} {S}"
+    )
+    out.append("")
+    head = [
+        "phase",
+        f"T [{u.temp_label}]",
+        f"gasket min [{S}]",
+        f"gasket max [{S}]",
+        f"bolt min [{F}]",
+        f"bolt max [{F}]",
+        "rotation [deg]",
+        "ok",
+    ]
+    rows = []
+    idx = np.unique(np.linspace(0, T.size - 1, min(T.size, 25)).round().astype(int))
+    for i in idx:
+        rows.append(
+            [
+                r.phase[i],
+                f"{u.temp(T[i]):.4g}",
+                u.fmt("stress", r.gasket_min[i] / A),
+                u.fmt("stress", r.gasket_max[i] / A),
+                u.fmt("force", r.bolt_min[i]),
+                u.fmt("force", r.bolt_max[i]),
+                f"{np.degrees(r.rotation[i]):.3f}",
+                "yes" if ok[i] else "NO",
+            ]
+        )
+    out.append(table(head, rows))
+    if r.cycle is not None:
+        c = r.cycle
+        out += [
+            "",
+            f"Heat cycle to {u.temp(c['peak_temperature_degC'] + C0):.4g} {u.temp_label}: "
+            f"creep relaxation {c['relaxation_factor']:.3g} ({c['relaxation_basis']})",
+        ]
+        states = c["states"]
+        head = ["bolt"] + [f"{st['state']} bolt [{F}]" for st in states]
+        head += [f"{st['state']} gasket [{S}]" for st in states]
+        rows = []
+        for b in range(s.bolt_count):
+            rows.append(
+                [str(b + 1)]
+                + [u.fmt("force", st["bolt_load_N"][b]) for st in states]
+                + [u.fmt("stress", st["gasket_stress_MPa"][b] * 1e6) for st in states]
+            )
+        out.append(table(head, rows))
+        out.append("  states: " + "; ".join(f"{st['state']}: {st['label']}" for st in states))
+    out += ["", "Notes"] + [f"  - {n}" for n in r.notes]
+    out += ["", FLANGE_CAUTION]
+    return "\n".join(out)
+
+
+def flange_sweep_csv(r: FlangeSweepResult) -> str:
+    """One row per point: phase, temperature, gasket and bolt extremes, margins (SI units)."""
+    A = r.sector_area
+    names = list(r.margins)
+    lines = [
+        ",".join(
+            [
+                "phase",
+                "temperature_degC",
+                "gasket_stress_min_MPa",
+                "gasket_stress_max_MPa",
+                "bolt_load_min_N",
+                "bolt_load_max_N",
+                "rotation_deg",
+                "ok",
+            ]
+            + [f"margin_{m}" for m in names]
+        )
+    ]
+    ok = r.ok
+    for i in range(r.temperature.size):
+        vals = [
+            r.phase[i],
+            repr(float(r.temperature[i] - C0)),
+            repr(float(r.gasket_min[i] / A * 1e-6)),
+            repr(float(r.gasket_max[i] / A * 1e-6)),
+            repr(float(r.bolt_min[i])),
+            repr(float(r.bolt_max[i])),
+            repr(float(np.degrees(r.rotation[i]))),
+            "true" if ok[i] else "false",
+        ] + [repr(float(r.margins[m][i])) for m in names]
+        lines.append(",".join(vals))
+    return "\n".join(lines) + "\n"

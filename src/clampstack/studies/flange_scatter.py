@@ -26,11 +26,13 @@ from ..display import Shown
 from ..errors import InputError
 from ..flange.analysis import analyse_flange
 from ..flange.model import FlangeSpec
+from ..joint.model import Dist
 from .sampling import BLOCK, Convergence, block_rng, event_probability, run
 
-QUANTS = ("assembly_preload", "residual_clamp_load")
+QUANTS = ("assembly_preload", "residual_clamp_load", "gasket_after_cycle")
 EVENTS = (
     "gasket_below_operating",
+    "gasket_below_operating_after_cycle",
     "separation",
     "bolt_yield",
     "bolt_yield_assembly",
@@ -93,9 +95,14 @@ def flange_scatter(
     det = analyse_flange(spec, compensate=False)
     n = spec.bolt_count
     thr = spec.thread
-    block = max(256, BLOCK // max(n, 1))  # samples per block: bounded memory per block
-    loss = det.assembly_gasket - det.service_gasket  # per sector, ring model
-    gain = det.service_bolt - det.passes[-1]  # per bolt, ring model
+    block = max(256, BLOCK // max(n * len(spec.passes), 1))  # bounded memory per block
+    cyc = det.cycle
+    g_start = cyc["start_up"].gasket
+    F_det = det.passes[-1]
+    loss = F_det - g_start  # per sector, assembly -> start-up, ring model
+    cool_change = cyc["cooled"].gasket - cyc["hot"].gasket  # per sector, on cooling back
+    gain = det.service_bolt - F_det  # per bolt, ring model
+    P_det = cyc.relaxation
     Hp_n = det.app2.Hp / n
     muG_lo, muG_hi = spec.thread_friction
     muK_lo, muK_hi = spec.head_friction
@@ -104,33 +111,91 @@ def flange_scatter(
     Rp_T = float(yield_at_temperature(spec.grade, spec.T_bolt)[0])
     Wp = math.pi * thr.ds**3 / 16
     tol = spec.torque_tolerance
-    dist = {
-        "thread_friction": f"uniform {muG_lo:.4g}..{muG_hi:.4g} (each bolt)",
-        "head_friction": f"uniform {muK_lo:.4g}..{muK_hi:.4g} (each bolt)",
-    }
-    if spec.method == "torque":
-        dist["torque_factor"] = f"uniform {1 - tol:.4g}..{1 + tol:.4g} (each bolt)"
-    else:
-        dist["preload"] = (
-            f"uniform {det.assembly_range[0]:.4g}..{det.assembly_range[1]:.4g} N (each bolt)"
+    dists = dict(spec.distributions)
+    if spec.nut_factor is None and "nut_factor" in dists:
+        raise InputError(
+            "nut_factor varies a nut factor: give tightening.nut_factor",
+            key="distributions.nut_factor",
         )
+    for k in ("thread_friction", "head_friction"):
+        if spec.nut_factor is not None and k in dists:
+            raise InputError(
+                "with a nut factor the friction is implied by it: vary nut_factor",
+                key=f"distributions.{k}",
+            )
+    fixed_note = "uniform over the file's range"
+    sampled: dict[str, Dist] = {
+        "thread_friction": dists.get("thread_friction", Dist("uniform", muG_lo, muG_hi)),
+        "head_friction": dists.get("head_friction", Dist("uniform", muK_lo, muK_hi)),
+    }
+    dist = {
+        k: sampled[k].describe() + (" (each bolt)" if k in dists else f" ({fixed_note}, each bolt)")
+        for k in sampled
+    }
+    torque_mode = spec.method == "torque"
+    if spec.nut_factor is not None and torque_mode:
+        K_lo, K_hi = spec.nut_factor
+        sampled["nut_factor"] = dists.get("nut_factor", Dist("uniform", K_lo, K_hi))
+        dist["nut_factor"] = sampled["nut_factor"].describe() + " (each bolt)"
+        for k in ("thread_friction", "head_friction"):
+            sampled.pop(k)
+            dist.pop(k)
+    if torque_mode:
+        if "torque" in dists:
+            sampled["torque"] = dists["torque"]
+            dist["torque"] = dists["torque"].describe("N*m") + " (each bolt, each pass)"
+        else:
+            sampled["torque_factor"] = dists.get("torque_factor", Dist("uniform", 1 - tol, 1 + tol))
+            dist["torque_factor"] = sampled["torque_factor"].describe() + " (each bolt, each pass)"
+    else:
+        lo_a, hi_a = det.assembly_range
+        sampled["preload"] = dists.get("preload", Dist("uniform", lo_a, hi_a))
+        dist["preload"] = sampled["preload"].describe("N") + " (each bolt)"
+    if "gasket_relaxation" in dists:
+        sampled["gasket_relaxation"] = dists["gasket_relaxation"]
+        dist["gasket_relaxation"] = dists["gasket_relaxation"].describe() + " (each flange)"
+    else:
+        dist["gasket_relaxation"] = f"fixed {P_det:.4g} ({cyc.relaxation_basis})"
 
     pull = None
     if det.tensioning is not None:  # each bolt's largest pull per unit preload left
-        pull = det.tensioning.peak / np.maximum(det.passes[-1], 1e-300)
+        pull = det.tensioning.peak / np.maximum(F_det, 1e-300)
+    passes_model = _PassModel(det) if torque_mode else None
 
     def one_block(b: int, m: int) -> dict[str, np.ndarray]:
         rng = block_rng(seed, b)
-        muG = rng.uniform(muG_lo, muG_hi, (m, n))
-        muK = rng.uniform(muK_lo, muK_hi, (m, n))
-        if spec.method == "torque":
-            T = det.torque[0] * rng.uniform(1 - tol, 1 + tol, (m, n))
-            FM = T / (0.16 * thr.P + 0.58 * thr.d2 * muG + 0.5 * muK * DKm)
-            tau = FM * (thr.d2 / 2) * (thr.P / (math.pi * thr.d2) + 1.155 * muG) / Wp
+        tau = np.zeros((m, n))
+        if torque_mode:
+            npass = len(spec.passes)
+            if "nut_factor" in sampled:
+                K = sampled["nut_factor"].sample(rng, m * n).reshape(m, n)
+                k_T = K * thr.d
+                muG = None
+            else:
+                muG = sampled["thread_friction"].sample(rng, m * n).reshape(m, n)
+                muK = sampled["head_friction"].sample(rng, m * n).reshape(m, n)
+                k_T = 0.16 * thr.P + 0.58 * thr.d2 * muG + 0.5 * muK * DKm
+            if "torque" in sampled:
+                T_set = sampled["torque"].sample(rng, m * npass * n).reshape(m, npass, n)
+            else:
+                f = sampled["torque_factor"].sample(rng, m * npass * n).reshape(m, npass, n)
+                T_set = det.torque[0] * f
+            targets = np.asarray(spec.passes)[None, :, None] * T_set / k_T[:, None, :]
+            FM = passes_model.final(targets)
+            if muG is not None:
+                tau = FM * (thr.d2 / 2) * (thr.P / (math.pi * thr.d2) + 1.155 * muG) / Wp
         else:
-            FM = rng.uniform(*det.assembly_range, (m, n))
-            tau = np.zeros((m, n))
+            FM = sampled["preload"].sample(rng, m * n).reshape(m, n)
+        FM = np.maximum(FM, 0.0)
+        P = (
+            np.clip(sampled["gasket_relaxation"].sample(rng, m), 0.0, 1.0)
+            if "gasket_relaxation" in sampled
+            else np.full(m, P_det)
+        )
         gasket = FM - loss[None, :]
+        hot = P[:, None] * np.maximum(gasket, 0.0)
+        cooled = hot + cool_change[None, :]
+        after = np.minimum(hot, cooled).min(axis=1)
         FS = FM + gain[None, :]
         # at assembly a tensioned bolt carries the tool's pull, above what its nut keeps
         F_asm = FM * pull[None, :] if pull is not None else FM
@@ -142,7 +207,9 @@ def flange_scatter(
         return {
             "assembly_preload": FM.ravel(),
             "residual_clamp_load": np.maximum(gmin, 0.0),
+            "gasket_after_cycle": np.maximum(after, 0.0),
             "gasket_below_operating": gmin < Hp_n,
+            "gasket_below_operating_after_cycle": after < Hp_n,
             "separation": gmin <= 0.0,
             "bolt_yield": y_asm | y_srv,
             "bolt_yield_assembly": y_asm,
@@ -174,3 +241,47 @@ def flange_scatter(
         got.intervals,
         got.convergence,
     )
+
+
+class _PassModel:
+    """Bolt forces after the pass sequence, linear about the deterministic passes.
+
+    The tangent ``C[:, j]`` (bolt forces per unit turn of nut j) is taken on the
+    assembled ring (one solve per bolt).  Each pass turns each nut, in its order, until
+    its bolt reaches that pass's target, never back (the rule of the ring's own
+    simulation); vectorised over the samples.  The result is anchored on the
+    deterministic simulation: ``F = F_det + (F_lin(targets) - F_lin(nominal))``, exact
+    without scatter.
+    """
+
+    def __init__(self, det: Any) -> None:
+        from ..flange.service import snapshot
+
+        ring = det.ring
+        n = ring.n
+        zero = np.zeros(n)
+        base = snapshot(ring).solve(zero)[1]
+        eps = 1e-7 * max(float(np.max(det.passes[-1])), 1.0) / (ring.k_bolt * ring.scale_k[0])
+        C = np.empty((n, n))
+        for j in range(n):
+            r = snapshot(ring)
+            r.bolt_free[j] -= eps
+            C[:, j] = (r.solve(zero)[1] - base) / eps
+        self.C = C
+        self.orders = [list(o) for o in det.orders]
+        self.F_det = det.passes[-1]
+        nominal = np.asarray(det.pass_fractions)[:, None] * np.full((1, n), det.target)
+        self.F_nom = self._linear(nominal[None, :, :])[0]
+
+    def _linear(self, targets: np.ndarray) -> np.ndarray:
+        """(samples, passes, bolts) targets -> (samples, bolts) final forces, from zero."""
+        m = targets.shape[0]
+        F = np.zeros((m, self.C.shape[0]))
+        for p, order in enumerate(self.orders):
+            for j in order:
+                turn = np.maximum(targets[:, p, j] - F[:, j], 0.0) / self.C[j, j]
+                F += turn[:, None] * self.C[:, j][None, :]
+        return F
+
+    def final(self, targets: np.ndarray) -> np.ndarray:
+        return self.F_det[None, :] + self._linear(targets) - self.F_nom[None, :]
