@@ -162,14 +162,10 @@ def relax(ring: Ring, state: State, split: tuple[np.ndarray, np.ndarray], P: flo
         return g0 - st.gasket, st
 
     # the ring is linear on the gasket's unloading line: the loss of gasket force is
-    # S dc, with S found column by column (one solve per sector), then Newton-chord steps
-    eps = float(np.max(want)) / k_un
+    # S dc, with S from the ring's stiffness (creep_sensitivity); Newton-chord steps on
+    # the ring itself until each sector's loss is met
+    S = creep_sensitivity(ring, k_un)
     l0, _ = loss(np.zeros(ring.n))
-    S = np.empty((ring.n, ring.n))
-    for j in range(ring.n):
-        e = np.zeros(ring.n)
-        e[j] = eps
-        S[:, j] = (loss(e)[0] - l0) / eps
     dc = np.linalg.solve(S, want - l0)
     for _ in range(20):
         got, new = loss(dc)
@@ -177,6 +173,30 @@ def relax(ring: Ring, state: State, split: tuple[np.ndarray, np.ndarray], P: flo
             break
         dc = dc + np.linalg.solve(S, want - got)
     return State("hot", new.conditions, new.bolt, new.gasket, new.rotation, P)
+
+
+def creep_sensitivity(ring: Ring, k_un: float) -> np.ndarray:
+    """Loss of gasket force of each sector per unit thickness lost by each sector [N/m].
+
+    The linear ring (bolts in tension, gasket sectors on their unloading line of
+    stiffness ``k_un``): with element stiffnesses ``k_e``, element vectors ``b_e`` and
+    the reduced stiffness ``K``, a change ``dd0_g`` of gasket g's free elongation changes
+    the element forces by ``k_e b_e^T K^-1 b_g k_g dd0_g - k_g dd0_g``; creep is
+    ``dd0 = -dc``, so ``S = diag(k_g) - k_g b_g^T K^-1 b_g k_g`` on the gasket block.
+    """
+    _, i_n, j_n, k, _, _, gparts = ring._parts(None)
+    k = np.asarray(k, dtype=float)
+    k[gparts] = k_un
+    N = ring.n_nodes
+    B = np.zeros((len(k), N))
+    idx = np.arange(len(k))
+    B[idx, np.asarray(j_n)] += 1.0
+    B[idx, np.asarray(i_n)] -= 1.0
+    B = B[:, 1:]  # node 0 fixed
+    K = B.T @ (k[:, None] * B)
+    Bg = B[gparts]
+    X = np.linalg.solve(K, Bg.T)  # K^-1 b_g
+    return np.diag(k[gparts]) - (k[gparts][:, None] * (Bg @ X)) * k[gparts][None, :]
 
 
 @dataclass(frozen=True)

@@ -23,7 +23,8 @@ from typing import Any
 import numpy as np
 
 from .._version import __version__
-from ..flange.analysis import INCH, FlangeResult
+from ..flange.analysis import FlangeResult
+from ..flange.loads import INCH
 from ..inputs.files import InputDocument
 from ..outputs.flange import FLANGE_CAUTION
 from ..outputs.joint import _mu

@@ -24,7 +24,7 @@ from ..catalog import grade as catalog_grade
 from ..catalog import material as catalog_material
 from ..catalog.parts import bearing_face_diameter
 from ..errors import InputError
-from ..flange.analysis import analyse_flange, asme_app2
+from ..flange.analysis import analyse_flange, asme_app2, tightening_basis
 from ..flange.model import FlangeSpec, bolt_allowable_stress, check_fit, ring_outer_diameter
 from ..joint.geometry import clearance_hole, with_defaults
 from ..joint.model import PartMaterial
@@ -231,9 +231,16 @@ def size_flange(base: FlangeSpec, constraints: Constraints | None = None) -> dic
 
 
 def _screen(spec) -> bool:
-    """Cheap necessary conditions: App. 2 bolt area and a usable gasket window."""
+    """Cheap necessary conditions: App. 2 bolt area, a gasket window that seating leaves
+    within the crush and rotation limits, and (method torque) a smallest assembly preload
+    that seats the gasket."""
     a = asme_app2(spec)
     if a.Ab < a.Am:
         return False
-    n = spec.bolt_count
-    return a.Wm2 / n <= spec.gasket.max_stress * spec.gasket.area / n
+    seat = a.Wm2 / spec.bolt_count
+    tb = tightening_basis(spec)
+    if not seat <= min(tb.crush, tb.F_rot):
+        return False  # no preload seats the gasket within its crush and rotation limits
+    # with a torque, the smallest assembly preload bounds every bolt after the passes (the
+    # last pass leaves each at most at its target): it must seat the gasket
+    return tb.torque_range is None or tb.torque_range[1] >= seat
