@@ -52,6 +52,42 @@ def main() -> None:
     print("\nflange")
     print(f"  96 bolts, 4 passes (384 tightening steps)   {best * 1e3:8.1f} ms (target <= 200 ms)")
     print(f"  whole flange analysis of the same flange     {full * 1e3:8.1f} ms")
+    studies()
+
+
+def studies(runs: int = 5) -> None:
+    """Flange studies on the bundled examples: median (min .. max) of ``runs`` runs each."""
+    from pathlib import Path
+
+    from clampstack.inputs.flange import read_flange_file
+    from clampstack.studies.flange_scatter import flange_scatter
+    from clampstack.studies.flange_size import size_flange
+    from clampstack.studies.flange_sweep import flange_sweep
+
+    ex = Path(__file__).resolve().parents[1] / "examples"
+    pump = read_flange_file(str(ex / "pump-outlet-flange-8-bolts.toml"))[1]
+    steam = read_flange_file(str(ex / "steam-header-flange-tensioned.toml"))[1]
+    hot = read_flange_file(str(ex / "hot-oil-flange-spiral-wound.toml"))[1]
+    jobs = [
+        ("size, pump outlet (8 bolts, torque and tension)", lambda: size_flange(pump), 1.0),
+        ("size, steam header (tensioned half per pass)", lambda: size_flange(steam), None),
+        (
+            "sweep --cycle, hot-oil flange, 101 points",
+            lambda: flange_sweep(hot, hot.T_assembly, hot.T_flange, cycle=True),
+            None,
+        ),
+        ("scatter, hot-oil flange, 10 000 samples", lambda: flange_scatter(hot, 10_000), None),
+    ]
+    print(f"  flange studies, median (min .. max) of {runs} runs, interleaved:")
+    times: dict[str, list[float]] = {name: [] for name, _, _ in jobs}
+    for _ in range(runs):
+        for name, fn, _ in jobs:
+            times[name].append(_time(fn))
+    for name, _, target in jobs:
+        t = sorted(times[name])
+        med = t[len(t) // 2]
+        goal = f" (target < {target:g} s)" if target else ""
+        print(f"    {name:50s} {med:7.3f} s ({t[0]:.3f} .. {t[-1]:.3f}){goal}")
 
 
 def _time(fn) -> float:

@@ -71,14 +71,15 @@ def test_flange_report_has_every_section(pump):
         "window",
         "passes",
         "bolts",
+        "service",
         "checks",
         "notes",
         "references",
     ):
         assert f'<section id="{sid}">' in page
     heads = re.findall(r"<h2>(\d+)\. ", page)
-    assert heads == [str(i) for i in range(1, 10)]
-    assert page.count("<svg ") == 1  # the passes figure
+    assert heads == [str(i) for i in range(1, 11)]
+    assert page.count("<svg ") == 2  # the passes figure and the heat cycle's
     # summary: verdict, torque per bolt, target preload and window
     assert "<b>PASS</b>" in page and "governing check <b>bolt_area</b>" in page
     assert f'Torque per bolt</span><span class="big">{cell(r.torque[0])}&nbsp;N&middot;m' in page
@@ -239,3 +240,30 @@ def test_flange_report_in_us_units(pump):
     page = render_flange_report(doc, r, units="us", now=NOW)["pump-outlet-flange-8-bolts.html"]
     assert "ft&middot;lbf" in page and "lbf" in page and "psi" in page
     assert "&nbsp;kN" not in page
+
+
+def test_flange_report_shows_the_heat_cycle_per_bolt(examples_dir):
+    # the heat cycle section: per-bolt gasket stress and bolt load at each state, and the
+    # figure of gasket stress per bolt against the seating, operating-minimum and crush lines
+    import re
+
+    from clampstack.flange import analyse_flange
+    from clampstack.inputs.flange import read_flange_file
+    from clampstack.report import render_flange_report
+
+    doc, spec = read_flange_file(str(examples_dir / "hot-oil-flange-spiral-wound.toml"))
+    r = analyse_flange(spec)
+    files = render_flange_report(doc, r)
+    html = files["hot-oil-flange-spiral-wound.html"]
+    assert '<section id="service">' in html and "Figure 2." in html
+    for gid in ("state-hot", "state-cooled", "seating", "operating-minimum", "crush"):
+        assert f'id="f2-{gid}"' in html
+    # the table lists every bolt's cooled gasket stress as the result holds it
+    A = r.sector_area
+    sec = html[html.index('<section id="service">') :]
+    sec = sec[: sec.index("</section>")]
+    cells = re.findall(r"<td[^>]*>([^<]*)</td>", sec)
+    for i in range(spec.bolt_count):
+        assert f"{r.cycle['cooled'].gasket[i] / A / 1e6:.4g}" in cells
+    csv_text = files["hot-oil-flange-spiral-wound-bolts.csv"]
+    assert "gasket_force_cooled_N" in csv_text.splitlines()[0]

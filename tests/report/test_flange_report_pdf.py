@@ -36,7 +36,7 @@ def test_flange_report_prints_with_torque_and_seating_load(tmp_path):
     assert f"Torque per bolt {fmt_number(data['torque']['nominal_Nm'])} N·m" in t
     wm2 = fmt_number(data["required_bolt_load"]["seating_N"] / 1e3)
     assert f"Wm2 {wm2} kN" in t  # the App. 2 table row: symbol, value
-    assert "1. Summary" in t and "9. References" in t and "pressure equipment" in t
+    assert "1. Summary" in t and "10. References" in t and "pressure equipment" in t
     sha = data["report"]["input_sha256"]
     assert t.count(f"SHA-256 {sha[:12]}") >= n  # the page footer on every page
     assert f"page {n} of {n}" in t

@@ -197,7 +197,7 @@ force = "-2 kN"
 
 KINDS = {  # document, number of text fields, fields that must show in the page, figures
     "joint": (joint_doc, 6, range(6), 4),  # three figures and the first page's diagram
-    "flange": (flange_doc, 2, range(2), 1),
+    "flange": (flange_doc, 2, range(2), 2),  # the passes and the heat cycle
     "assembly": (assembly_doc, 8, range(1, 8), 0),  # the page does not show the input
 }
 

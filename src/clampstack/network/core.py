@@ -569,7 +569,13 @@ class _LinearSolver:
         self.bi, self.bj = fi[both], fj[both]
         self.both = both
         self.perm: np.ndarray | None = None
+        self.hubs: tuple[np.ndarray, ...] | None = None
         band = int(np.max(np.abs(self.bi - self.bj), initial=0))
+        if band > 8 and nf > 16:
+            self._find_hubs(nf, band)
+            if self.hubs is not None:
+                self.band = band
+                return
         if nf * (band + 1) ** 2 > _BAND_BUDGET and nf > 0:
             from scipy.sparse import coo_array
             from scipy.sparse.csgraph import reverse_cuthill_mckee
@@ -585,6 +591,67 @@ class _LinearSolver:
                 band = -1  # general sparse
         self.band = band
 
+    def _find_hubs(self, nf: int, band: int) -> None:
+        """Nodes coupled to very many others (a common node of many parts, such as one
+        rotation shared by a ring of parts) widen the band for all.  When a few such hubs
+        leave the rest narrow, the solve eliminates them by their Schur complement
+        (:meth:`_with_hubs`): a banded Cholesky of the rest with one right-hand side per
+        hub, then a small dense system."""
+        deg = np.bincount(self.bi, minlength=nf) + np.bincount(self.bj, minlength=nf)
+        hub = deg > max(16, 8 * float(np.median(deg)))
+        nh = int(hub.sum())
+        if nh == 0 or nh > 8:
+            return
+        rest = np.flatnonzero(~hub)
+        pos = np.full(nf, -1, dtype=np.int64)
+        pos[rest] = np.arange(rest.size)
+        inner = ~hub[self.bi] & ~hub[self.bj]
+        rb = int(np.max(np.abs(pos[self.bi[inner]] - pos[self.bj[inner]]), initial=0))
+        if (rb + 1) ** 2 * (rest.size + 1) * 4 > (band + 1) ** 2 * nf:
+            return  # not worth it: the rest is about as wide
+        hidx = np.flatnonzero(hub)
+        nh = hidx.size
+        hpos = np.full(nf, -1, dtype=np.int64)
+        hpos[hidx] = np.arange(nh)
+        a, b = self.bi[~inner], self.bj[~inner]
+        both = hub[a] & hub[b]
+        r = np.where(hub[a], b, a)  # the node of the rest
+        h = np.where(hub[a], a, b)  # the hub
+        flat_B = np.where(both, -1, pos[r] * nh + hpos[h])
+        flat_D = np.where(both, hpos[a] * nh + hpos[b], -1)
+        flat_Dt = np.where(both, hpos[b] * nh + hpos[a], -1)
+        self.hubs = (hub, rest, hidx, pos, inner, rb, both, flat_B, flat_D, flat_Dt)
+
+    def _with_hubs(self, diag, sb, rhs) -> np.ndarray:
+        """Solve by eliminating the hub nodes (see :meth:`_find_hubs`)."""
+        assert self.hubs is not None
+        hub, rest, hidx, pos, inner, rb, both, flat_B, flat_D, flat_Dt = self.hubs
+        bi, bj = self.bi, self.bj
+        nh, nr = hidx.size, rest.size
+        # couplings of the rest with the hubs (B) and among the hubs (D), from the
+        # index arrays set up once
+        v = sb[~inner]
+        B = np.bincount(flat_B[~both], -v[~both], nr * nh).reshape(nr, nh)
+        D = np.diag(diag[hidx])
+        if both.any():
+            D += np.bincount(flat_D[both], -v[both], nh * nh).reshape(nh, nh)
+            D += np.bincount(flat_Dt[both], -v[both], nh * nh).reshape(nh, nh)
+        saved = self.band, self.nf
+        try:
+            self.band, self.nf = rb, nr
+            rhs_r = np.column_stack((rhs[rest], B))
+            XY = self._banded(diag[rest], pos[bi[inner]], pos[bj[inner]], sb[inner], rhs_r)
+        finally:
+            self.band, self.nf = saved
+        XY = XY.reshape(nr, nh + 1)
+        x_r, Y = XY[:, 0], XY[:, 1:]
+        S = D - B.T @ Y
+        x_h = np.linalg.solve(S, rhs[hidx] - B.T @ x_r)
+        out = np.empty(self.nf)
+        out[rest] = x_r - Y @ x_h
+        out[hidx] = x_h
+        return out
+
     def solve(self, s: np.ndarray, rhs: np.ndarray) -> np.ndarray:
         nf = self.nf
         if nf == 0:
@@ -593,6 +660,15 @@ class _LinearSolver:
         diag = np.bincount(fi[fi >= 0], s[fi >= 0], nf) + np.bincount(fj[fj >= 0], s[fj >= 0], nf)
         sb = s[self.both]
         bi, bj = self.bi, self.bj
+        if self.hubs is not None:
+            try:
+                x = self._with_hubs(diag, sb, rhs)
+                if np.all(np.isfinite(x)):
+                    return x
+            except np.linalg.LinAlgError:
+                pass
+            self.explain()
+            return self._sparse(diag, bi, bj, sb, rhs)
         if self.band >= 0:
             if self.perm is not None:
                 diag, bi, bj, rhs = diag[self.perm], self.inv[bi], self.inv[bj], rhs[self.perm]

@@ -12,13 +12,14 @@ from __future__ import annotations
 
 from ._style import figure_png, figure_svg, inline_svg
 from .joint import bolt_load_plot, joint_diagram, spring_schematic
-from .studies import binned_histogram, histogram, passes_plot, sweep_plot
+from .studies import binned_histogram, gasket_states_plot, histogram, passes_plot, sweep_plot
 
 __all__ = [
     "binned_histogram",
     "bolt_load_plot",
     "figure_png",
     "figure_svg",
+    "gasket_states_plot",
     "histogram",
     "inline_svg",
     "joint_diagram",

@@ -203,6 +203,91 @@ def passes_plot(
     return fig
 
 
+#: colours of the flange states, from assembly to shut-down
+STATE_COLOURS = {
+    "assembly": BOLT,
+    "start_up": CLAMP,
+    "hot": LIMIT,
+    "cooled": GOOD,
+    "shut_down": MUTED,
+}
+
+
+def gasket_states_plot(
+    states: Mapping[str, Sequence[float]],
+    seating: float,
+    operating_minimum: float,
+    crush: float,
+    units: str = "si",
+    labels: Mapping[str, str] | None = None,
+    title: str = "Gasket stress at each bolt through the heat cycle",
+) -> Figure:
+    """Gasket stress of every bolt's sector at each state, against the gasket's lines.
+
+    Parameters
+    ----------
+    states
+        ``{state: stresses}``, one stress per bolt sector [Pa], in the order drawn.
+    seating, operating_minimum, crush
+        The seating stress y, the operating minimum (H_p per sector area) and the crush
+        limit [Pa], drawn as horizontal lines.
+    labels
+        Legend text per state (default: the state's name).
+    """
+    u = UNIT_SYSTEMS[units]
+    sl, sf = u.stress
+    data = {k: np.asarray(v, dtype=float) for k, v in states.items()}
+    if not data:
+        raise ValueError("no states to plot")
+    n = {v.size for v in data.values()}
+    if len(n) != 1:
+        raise ValueError("every state must list one stress per bolt")
+    (count,) = n
+    x = np.arange(1, count + 1)
+    with style():
+        fig = new_figure(height=3.6)
+        ax = fig.add_subplot()
+        ax.set_title(title)
+        ax.set_xlabel("bolt")
+        ax.set_ylabel(f"gasket stress [{sl}]")
+        for k, v in data.items():
+            ax.plot(
+                x,
+                v / sf,
+                marker="o",
+                ms=3.5,
+                lw=1.4,
+                color=STATE_COLOURS.get(k, INK),
+                label=(labels or {}).get(k, k),
+                gid=f"state-{k}",
+            )
+        for value, text, ls, gid in (
+            (seating, "seating y", (0, (5, 2)), "seating"),
+            (operating_minimum, "operating minimum", (0, (2, 2)), "operating-minimum"),
+            (crush, "crush", "-", "crush"),
+        ):
+            ax.axhline(value / sf, color=LIMIT if gid != "seating" else INK, lw=0.9, ls=ls)
+            ax.get_lines()[-1].set_gid(gid)
+            ax.annotate(
+                f"{text} {fmt_number(value / sf)} {sl}",
+                (1.0, value / sf),
+                xycoords=("axes fraction", "data"),
+                xytext=(-2, 2),
+                textcoords="offset points",
+                ha="right",
+                va="bottom",
+                fontsize=7,
+                color=INK,
+            )
+        top = max(crush, max(float(v.max()) for v in data.values())) / sf
+        ax.set_ylim(0, top * 1.08)
+        if count <= 24:
+            ax.set_xticks(x)
+        ax.set_xlim(0.5, count + 0.5)
+        fig.legend(loc="outside lower center", ncols=min(len(data), 5), fontsize=7)
+    return fig
+
+
 def histogram(
     samples: Sequence[float] | np.ndarray,
     quantity: str = "assembly preload",

@@ -579,6 +579,65 @@ def _bolts(r: FlangeResult, u: DisplayUnits) -> str:
     )
 
 
+def _service(r: FlangeResult, u: DisplayUnits, figure: str) -> str:
+    """The heat cycle per bolt, the ring's rotation and the pressure's effect."""
+    c = r.cycle
+    if c is None:
+        return ""
+    s = r.spec
+    A = r.sector_area
+    S, F = _lab(u, "stress"), _lab(u, "force")
+    names = ("start_up", "hot", "cooled", "shut_down")
+    rows = []
+    for i in range(s.bolt_count):
+        rows.append(
+            [str(i + 1), _n(u, "stress", float(r.assembly_gasket[i]) / A)]
+            + [_n(u, "stress", float(c[k].gasket[i]) / A) for k in names]
+            + [_n(u, "force", float(r.passes[-1][i]))]
+            + [_n(u, "force", float(c[k].bolt[i])) for k in names]
+        )
+    heads = (
+        ["bolt", f"gasket after passes [{S}]"]
+        + [f"{k.replace('_', '-')} [{S}]" for k in names]
+        + [f"bolt after passes [{F}]"]
+        + [f"{k.replace('_', '-')} [{F}]" for k in names]
+    )
+    table = _table(heads, rows, left=set(), cls="small bolts")
+    rot = r.rotation_dict()
+    pe = r.pressure_effect
+    if rot["enabled"]:
+        rot_text = (
+            f"The flange rings turn as a whole (ring theory, K<sub>&theta;</sub> = "
+            f"{rot['stiffness_Nm_per_rad'] / 1e3:.4g} kN&middot;m/rad per ring, lever h<sub>G</sub> "
+            f"= {u.fmt('length', r.lever)}&nbsp;{_lab(u, 'length')}): "
+            f"{rot['assembly_max_deg']:.3f}&deg; after the passes and "
+            f"{rot['service_max_deg']:.3f}&deg; at start-up, against the rigidity limit of "
+            "ASME VIII-1 App. 2-14 (0.2&deg; for a loose-type flange)."
+        )
+    else:
+        rot_text = "The flange rings translate only (flange.rotation = false)."
+    lf = pe.get("load_factor")
+    pe_text = (
+        f"The pressure and external loads ({_q(u, 'force', pe['working_load_N'])} in all) raise "
+        f"the bolt loads by {_q(u, 'force', pe['bolt_load_increase_N'])} in all and lower the "
+        f"gasket load by {_q(u, 'force', pe['gasket_load_decrease_N'])}"
+        + (f" (load factor {lf:.3g})" if lf is not None else "")
+        + "; ASME App. 2 assumes the bolts carry all of it (W<sub>m1</sub> = H + H<sub>p</sub> = "
+        f"{_q(u, 'force', pe['app2_operating_N'])})."
+    )
+    return (
+        '<section id="service"><div class="keep"><h2>7. Heat cycle and rotation</h2>'
+        f'<p class="lead">Gasket stress of each bolt sector [{S}] and bolt load [{F}] after '
+        "the passes and through the heat cycle: start-up (hot, pressurised), hot after creep "
+        f"relaxation ({_e(c.relaxation_basis)}), cooled back under pressure, and shut down. "
+        f"Operating minimum H<sub>p</sub>/N: "
+        f"{_q(u, 'stress', r.app2.Hp / s.bolt_count / A)}; seating y: "
+        f"{_q(u, 'stress', s.gasket.y)}; crush: {_q(u, 'stress', s.gasket.max_stress)}.</p>"
+        f"{table}</div>{figure}"
+        f"<p>{rot_text}</p><p>{pe_text}</p></section>"
+    )
+
+
 def _passes(r: FlangeResult, u: DisplayUnits, figure: str) -> str:
     s = r.spec
     if r.tensioning is not None:
@@ -725,6 +784,12 @@ def _bolts_csv(r: FlangeResult) -> str:
         "service_load_N",
         "gasket_force_assembly_N",
         "gasket_force_service_N",
+        *(
+            f"{q}_{k}_N"
+            for q in ("bolt_load", "gasket_force")
+            for k in ("hot", "cooled", "shut_down")
+            if r.cycle is not None
+        ),
     ]
     w.writerow(keys)
     for i, b in enumerate(d["bolts"]):
@@ -748,7 +813,7 @@ def render_flange_report(
     date and the input's SHA-256) and two CSV files (bolts, checks).  Nothing is
     written here; the page comes last.
     """
-    from ..plots import passes_plot
+    from ..plots import gasket_states_plot, passes_plot
 
     u = UNIT_SYSTEMS[units]
     now = now or datetime.now(UTC)
@@ -768,6 +833,33 @@ def render_flange_report(
         "with the target preload of the final pass; solved with the ring network, so a bolt "
         "tightened early loses preload as its neighbours are tightened.",
     )
+    figure2 = ""
+    if result.cycle is not None:
+        A = result.sector_area
+        c = result.cycle
+        states = {"assembly": result.assembly_gasket / A}
+        states.update({k: c[k].gasket / A for k in ("start_up", "hot", "cooled", "shut_down")})
+        figure2 = _figure(
+            gasket_states_plot(
+                states,
+                g.y,
+                result.app2.Hp / n / A,
+                g.max_stress,
+                units=units,
+                labels={
+                    "assembly": "after the passes",
+                    "start_up": "start-up",
+                    "hot": "hot, relaxed",
+                    "cooled": "cooled, pressurised",
+                    "shut_down": "shut down",
+                },
+            ),
+            "f2",
+            "Gasket stress at each bolt through the heat cycle",
+            "Figure 2. Gasket stress of each bolt sector after the passes and through the heat "
+            "cycle, against the seating stress y, the operating minimum H_p/N per sector area "
+            "and the crush limit (nominal preload).",
+        )
     L = _lab(u, "length")
     head = (
         f"<header><h1>{_e(s.title)}</h1>"
@@ -790,6 +882,7 @@ def render_flange_report(
             _window(result, u),
             _passes(result, u, figure),
             _bolts(result, u),
+            _service(result, u, figure2),
             _checks(result, u),
             _notes(result, u),
             _references(),
