@@ -266,6 +266,24 @@ class Ring:
         """The ring's twisting stiffness at the lever, ``K_theta / h_G^2`` [N/m]."""
         return self.rotation_stiffness / self.lever**2
 
+    def _gasket_law(self) -> tuple[np.ndarray, np.ndarray, float, float]:
+        """The sector's loading curve in descending compression (compression [m], force
+        [N]), its unloading stiffness and last slope [N/m] (computed once per ring)."""
+        law = getattr(self, "_law", None)
+        if law is None:
+            g = self.spec.gasket
+            t, A = self.gasket_thickness, self.sector_area
+            cs = np.asarray(g.curve_strain) * t  # compressions on the loading curve
+            Fs = np.asarray(g.curve_stress) * A
+            last_slope = float((Fs[-1] - Fs[-2]) / (cs[-1] - cs[-2]))
+            law = self._law = (
+                cs[::-1].copy(),
+                Fs[::-1].copy(),
+                g.unload_modulus * A / t,
+                last_slope,
+            )
+        return law
+
     def gasket_table(
         self, parts: np.ndarray, held: Sequence[tuple[int, float]] = ()
     ) -> _CurveTable:
@@ -273,36 +291,33 @@ class Ring:
 
         Each ``(part, force)`` of ``held`` adds one row of constant force (a bolt held at
         its target while it is tightened, or by its tensioner)."""
-        g = self.spec.gasket
-        t = self.gasket_thickness
-        A = self.sector_area
-        cs = np.asarray(g.curve_strain) * t  # compressions on the loading curve
-        Fs = np.asarray(g.curve_stress) * A
-        k_un = g.unload_modulus * A / t
+        cs_desc, Fs_desc, k_un, last_slope = self._gasket_law()
         n = self.n
         c_max = self.c_max
+        cs, Fs = cs_desc[::-1], Fs_desc[::-1]
         # force on the loading curve at the largest compression reached (extrapolated)
-        last_slope = (Fs[-1] - Fs[-2]) / (cs[-1] - cs[-2])
         F_at = np.where(
             c_max <= cs[-1], np.interp(c_max, cs, Fs), Fs[-1] + last_slope * (c_max - cs[-1])
         )
         # unloading line: from (c_max, F_at) down to zero at c_max - F_at/k_un
         c0 = np.maximum(c_max - F_at / k_un, 0.0)
         m = cs.size + 2
-        X = np.full((n, m), np.inf)
-        Fv = np.zeros((n, m))
-        # loading points beyond c_max, as elongations (x = -c), ascending
-        keep = cs[None, ::-1] > c_max[:, None]  # (n, len) in descending compression
-        X[:, : cs.size] = np.where(keep, -cs[None, ::-1], np.inf)
-        Fv[:, : cs.size] = np.where(keep, -Fs[None, ::-1], 0.0)
-        has_hist = c_max > 0
-        X[:, cs.size] = np.where(has_hist, -c_max, np.inf)
-        Fv[:, cs.size] = np.where(has_hist, -F_at, 0.0)
-        X[:, cs.size + 1] = np.where(has_hist, -c0, 0.0)
-        Fv[:, cs.size + 1] = 0.0
-        order = np.argsort(X, axis=1, kind="stable")
-        X = np.take_along_axis(X, order, axis=1)
-        Fv = np.take_along_axis(Fv, order, axis=1)
+        # each row, as ascending elongations (x = -c): the loading points beyond c_max (the
+        # largest compressions first), then (c_max, F_at), then (c0, 0) where there is a
+        # history; +inf pads the rest
+        kc = (cs_desc[None, :] > c_max[:, None]).sum(axis=1)  # points beyond c_max
+        p = np.arange(m)[None, :]
+        on_curve = p < kc[:, None]
+        pc = np.minimum(p, cs.size - 1)
+        has_hist = (c_max > 0)[:, None]
+        at_max = p == kc[:, None]
+        at_zero = (p == kc[:, None] + 1) & has_hist
+        X = np.where(
+            on_curve,
+            -cs_desc[pc],
+            np.where(at_max, -c_max[:, None], np.where(at_zero, -c0[:, None], np.inf)),
+        )
+        Fv = np.where(on_curve, -Fs_desc[pc], np.where(at_max, -F_at[:, None], 0.0))
         below = np.full(n, last_slope)
         above = np.zeros(n)
         if held:
