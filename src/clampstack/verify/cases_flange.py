@@ -228,3 +228,60 @@ def moment_loading() -> Outcome:
         "statics of a rigid bolt circle, F_i = F/N + M r cos(theta_i)/sum(r^2 cos^2), closed form",
         "kN",
     )
+
+
+# Ring rotation, ring theory by hand for the verification flange with 36 mm rings:
+# ring 90 .. 200 mm, 8 holes of 17.5 mm on a 160 mm circle; K_theta / E = t^3/12 (2 pi
+# ln(b/a) - N pi d_h^2/(4 R_bc^2)) = 3.888e-6 x (5.017171 - 0.300660) = 1.833780e-5 m^3
+RING = "ring theory (Timoshenko, Strength of Materials II; Roark; from memory), hand calculation"
+
+
+def _ring_spec():
+    from ..inputs.flange import flange_from_data
+
+    d = _data()
+    d["flange"] = dict(d["flange"], thickness="36 mm")
+    return flange_from_data(d)
+
+
+@register("flange ring rotational stiffness K_theta / E", G, kind="hand")
+def ring_stiffness() -> Outcome:
+    from ..flange.analysis import ring_rotation_stiffness
+
+    return Outcome(ring_rotation_stiffness(_ring_spec(), 1.0) * 1e6, 18.33780, 2e-6, RING, "cm^3")
+
+
+@register("App. 2-14 rigidity constant 109.4 from ring theory (no holes)", G, kind="hand")
+def rigidity_constant() -> Outcome:
+    # ASME VIII-1 App. 2-14 (loose flange): J = 109.4 M_o/(E t^3 ln K K_L) <= 1 (from
+    # memory); ring theory's rotation in degrees is 12/(2 pi) x 180/pi M/(E t^3 ln K)
+    import dataclasses
+    import math
+
+    from ..flange.analysis import ring_rotation_stiffness
+
+    spec = dataclasses.replace(_ring_spec(), hole=1e-12)
+    lnK = math.log(spec.ring_outer_diameter / spec.ring_inner_diameter)
+    got = math.degrees(1.0 / ring_rotation_stiffness(spec, 1.0)) * spec.thickness**3 * lnK
+    return Outcome(got, 109.4, 5e-4, "ASME BPVC VIII-1 App. 2-14 (from memory)", "")
+
+
+@register("ring network: rotation meets the moment balance", G, kind="consistency")
+def ring_moment_balance() -> Outcome:
+    # every bolt tightened, no pressure: theta = h_G sum F / K_theta
+    import numpy as np
+
+    from ..flange.analysis import build_ring, simulate_passes
+
+    spec = _ring_spec()
+    ring = build_ring(spec)
+    simulate_passes(ring, np.full(ring.n, 50e3), (1.0,), [list(range(ring.n))])
+    _, bolts, _, _ = ring.solve(np.zeros(ring.n))
+    want = ring.lever * float(bolts.sum()) / ring.rotation_stiffness
+    return Outcome(
+        float(ring.rotations()[0]) * 1e3,
+        want * 1e3,
+        1e-9,
+        "moment balance of the ring, closed form",
+        "mrad",
+    )
