@@ -31,7 +31,8 @@ LAYERS: tuple[tuple[str, ...], ...] = (
     ("report",),
     ("verify",),
     ("demo",),
-    ("cli", "__main__"),
+    ("cli",),
+    ("__main__",),  # python -m clampstack: the command line
     ("",),  # clampstack/__init__.py: the package's front door, above every layer
 )
 RANK = {unit: i for i, row in enumerate(LAYERS) for unit in row}

@@ -1,7 +1,8 @@
 """Command line: thin click commands that parse, call, print and set the exit code.
 
 Exit codes (DESIGN.md): 0 every check passes, 1 a design check fails, 2 bad
-input or usage (one line on stderr naming the file and key; nothing written).
+input or usage (one line on stderr naming the file and key; nothing written),
+3 an internal error (one line; ``clampstack --debug`` shows the traceback).
 Heavy imports (numpy, scipy, pint, matplotlib) happen inside the commands so
 that ``clampstack --help`` starts fast.
 """
@@ -19,7 +20,8 @@ import click
 
 from ._version import __version__
 
-EXIT_OK, EXIT_FAIL, EXIT_INPUT = 0, 1, 2
+EXIT_OK, EXIT_FAIL, EXIT_INPUT, EXIT_INTERNAL = 0, 1, 2, 3
+_DEBUG = False  # clampstack --debug: show the traceback of an internal error
 
 
 def _fail_input(message: str) -> None:
@@ -40,6 +42,21 @@ def handle_errors(fn: Callable[..., Any]) -> Callable[..., Any]:
             _fail_input(" ".join(str(err).split()))
         except RecursionError:
             _fail_input("input is nested too deeply")
+        except (click.exceptions.ClickException, click.exceptions.Abort, KeyboardInterrupt):
+            raise
+        except Exception as err:  # a bug of clampstack's: one line, exit 3
+            if _DEBUG:
+                import traceback
+
+                traceback.print_exc()
+            what = " ".join(f"{type(err).__name__}: {err}".split())[:300]
+            _echo(
+                f"clampstack: internal error in `{fn.__name__.replace('_', ' ')}`: {what}; "
+                "please report it with the input file (clampstack --debug "
+                f"{fn.__name__} ... shows the traceback)",
+                err=True,
+            )
+            sys.exit(EXIT_INTERNAL)
 
     return wrapper
 
@@ -93,6 +110,23 @@ class _Group(click.Group):
         sys.exit(rv if isinstance(rv, int) else 0)
 
 
+class _InputFile(click.ParamType):
+    """An input file (or ``-``): completes as a file name in the shell; the path is
+    validated by the reader, which names the file in its one-line errors."""
+
+    name = "file"
+
+    def convert(self, value: Any, param: Any, ctx: Any) -> Any:
+        return value
+
+    def shell_complete(self, ctx: Any, param: Any, incomplete: str) -> list[Any]:
+        from click.shell_completion import CompletionItem
+
+        return [CompletionItem(incomplete, type="file")]
+
+
+FILE = _InputFile()
+
 #: the options every analysing command shares (DESIGN.md: --json; readable units)
 case_option = click.option(
     "--case",
@@ -115,16 +149,21 @@ units_option = click.option(
 
 @click.group(cls=_Group, context_settings={"help_option_names": ["-h", "--help"]})
 @click.version_option(__version__, prog_name="clampstack")
-def main() -> None:
+@click.option(
+    "--debug", is_flag=True, help="Show the traceback of an internal error (exit code 3)."
+)
+def main(debug: bool) -> None:
     """clampstack: bolted-joint preload and clamp load as axial springs.
 
     Results support, and do not replace, the judgement of a qualified engineer;
-    applicable codes and regulations govern.
+    applicable codes and regulations govern.  FILE may be - for standard input.
     """
+    global _DEBUG
+    _DEBUG = debug
 
 
 @main.command()
-@click.argument("file", type=str)
+@click.argument("file", type=FILE)
 @json_option
 @units_option
 @handle_errors
@@ -144,7 +183,7 @@ def solve(file: str, as_json: bool, units: str) -> None:
 
 
 @main.command()
-@click.argument("file", type=str)
+@click.argument("file", type=FILE)
 @json_option
 @units_option
 @handle_errors
@@ -177,7 +216,7 @@ def _parse_temperature_range(text: str) -> tuple[float, float]:
 
 
 @main.command()
-@click.argument("file", type=str)
+@click.argument("file", type=FILE)
 @click.option(
     "--temperature",
     "trange",
@@ -292,7 +331,7 @@ def _sweep_flange(
 
 
 @main.command()
-@click.argument("file", type=str)
+@click.argument("file", type=FILE)
 @json_option
 @units_option
 @handle_errors
@@ -312,7 +351,7 @@ def flange(file: str, as_json: bool, units: str) -> None:
 
 
 @main.command()
-@click.argument("file", type=str)
+@click.argument("file", type=FILE)
 @click.option(
     "--samples",
     type=int,
@@ -442,7 +481,7 @@ def _progress(total: int, quiet: bool, label: str):
 
 
 @main.command()
-@click.argument("file", type=str)
+@click.argument("file", type=FILE)
 @click.option(
     "--thread",
     "threads",
@@ -543,7 +582,7 @@ def demo(out_dir: str) -> None:
 
 
 @main.command()
-@click.argument("file", type=str)
+@click.argument("file", type=FILE)
 @click.option(
     "-o",
     "--output",

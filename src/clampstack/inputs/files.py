@@ -57,6 +57,8 @@ def load_toml(path: str | os.PathLike[str]) -> InputDocument:
         raise InputError("no input file given (the file name is empty)")
     if "\x00" in text_name:
         raise InputError("the file name contains a NUL character", source=name)
+    if text_name == "-":
+        return _parse(STDIN_NAME, _read_stdin())
     p = Path(text_name)
     try:
         st = p.stat()
@@ -83,6 +85,39 @@ def load_toml(path: str | os.PathLike[str]) -> InputDocument:
         raise InputError(f"cannot read the file ({err.strerror})", source=name) from None
     if len(raw) > MAX_INPUT_BYTES:
         raise InputError(too_large, source=name)
+    return _parse(text_name, raw, name)
+
+
+#: The name standard input goes by in messages and results (``-`` on the command line).
+STDIN_NAME = "<stdin>"
+_stdin_read: tuple[object, bytes] | None = None
+
+
+def _read_stdin() -> bytes:
+    """Standard input, read once per stream (a command may parse its file twice)."""
+    global _stdin_read
+    import sys
+
+    if _stdin_read is None or _stdin_read[0] is not sys.stdin:
+        raw = sys.stdin.buffer.read(MAX_INPUT_BYTES + 1)
+        if len(raw) > MAX_INPUT_BYTES:
+            raise InputError(
+                f"input is too large (at most {MAX_INPUT_BYTES} bytes)", source=STDIN_NAME
+            )
+        _stdin_read = (sys.stdin, raw)
+    return _stdin_read[1]
+
+
+def file_stem(doc: InputDocument, default: str) -> str:
+    """The stem of the input's file name for files written beside it ("stdin" for ``-``)."""
+    if doc.path == STDIN_NAME:
+        return "stdin"
+    return Path(doc.path).stem or default
+
+
+def _parse(text_name: str, raw: bytes, name: str | None = None) -> InputDocument:
+    """Decode and parse the bytes of an input (InputError naming ``name``)."""
+    name = name or text_name
     try:
         text = raw.decode("utf-8-sig")
     except UnicodeDecodeError:

@@ -13,7 +13,7 @@ from pathlib import Path
 
 from .._version import __version__
 from ..assembly import AssemblyResult
-from ..inputs.files import InputDocument
+from ..inputs.files import InputDocument, file_stem
 from ..outputs.text import CAUTION, UNIT_SYSTEMS, DisplayUnits
 from ._common import _e, _figure, _kv, _lab, _page, _renumber, _table, report_block
 
@@ -139,7 +139,7 @@ def render_assembly_report(
     now = now or datetime.now(UTC)
     stamp = now.strftime("%Y-%m-%d %H:%M UTC")
     name = Path(doc.path).name
-    names = assembly_report_file_names(Path(doc.path).stem or "assembly")
+    names = assembly_report_file_names(file_stem(doc, "assembly"))
     asm = result.assembly
     f1 = _figure(
         force_diagram(result, units),

@@ -25,7 +25,7 @@ import numpy as np
 from .._version import __version__
 from ..flange.analysis import FlangeResult
 from ..flange.loads import INCH
-from ..inputs.files import InputDocument
+from ..inputs.files import InputDocument, file_stem
 from ..outputs.flange import FLANGE_CAUTION
 from ..outputs.joint import _mu
 from ..outputs.joint import check_value as _check_value
@@ -819,7 +819,7 @@ def render_flange_report(
     now = now or datetime.now(UTC)
     stamp = now.strftime("%Y-%m-%d %H:%M UTC")
     name = Path(doc.path).name
-    stem = Path(doc.path).stem or "flange"
+    stem = file_stem(doc, "flange")
     names = flange_report_file_names(stem)
     s = result.spec
     g = s.gasket

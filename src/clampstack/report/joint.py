@@ -17,7 +17,7 @@ from typing import Any
 
 from .._version import __version__
 from ..errors import InputError
-from ..inputs.files import InputDocument
+from ..inputs.files import InputDocument, file_stem
 from ..joint.analysis import JointResult
 from ..outputs.joint import _margin, _mu, case_rows, check_value, eccentric_lines, governing
 from ..outputs.text import (
@@ -883,7 +883,7 @@ def render_joint_report(
     now = now or datetime.now(UTC)
     stamp = now.strftime("%Y-%m-%d %H:%M UTC")
     name = Path(doc.path).name
-    stem = Path(doc.path).stem or "joint"
+    stem = file_stem(doc, "joint")
     names = report_file_names(stem)
     s = result.spec
     thermal = abs(s.service.temperature - s.service.assembly_temperature) > 1e-9
