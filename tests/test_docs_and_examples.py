@@ -18,6 +18,15 @@ def test_bundled_demo_matches_example_file():
         assert bundled == (ROOT / "examples" / name).read_text(encoding="utf-8")
 
 
+def test_every_example_is_bundled_unchanged():
+    # the package ships every example (clampstack examples DIR copies them out); the
+    # copies in src/clampstack/examples are the files of examples/, byte for byte
+    from clampstack.demo import bundled_examples
+
+    on_disk = {p.name: p.read_text(encoding="utf-8") for p in (ROOT / "examples").glob("*.toml")}
+    assert bundled_examples() == on_disk, "copy examples/*.toml to src/clampstack/examples/"
+
+
 def test_readme_quick_start_is_two_commands():
     text = (ROOT / "README.md").read_text(encoding="utf-8")
     block = text.split("## Quick start", 1)[1].split("```sh", 1)[1].split("```", 1)[0]

@@ -44,6 +44,11 @@ def handle_errors(fn: Callable[..., Any]) -> Callable[..., Any]:
             _fail_input("input is nested too deeply")
         except (click.exceptions.ClickException, click.exceptions.Abort, KeyboardInterrupt):
             raise
+        except BrokenPipeError:  # the reader went away (`... | head`): stop quietly
+            import os
+
+            os.dup2(os.open(os.devnull, os.O_WRONLY), sys.stdout.fileno())
+            sys.exit(141)  # 128 + SIGPIPE, as a command killed by the broken pipe
         except Exception as err:  # a bug of clampstack's: one line, exit 3
             if _DEBUG:
                 import traceback
@@ -561,6 +566,29 @@ def catalog(what: str, as_json: bool) -> None:
         _print_json([dict(zip(headers, r, strict=True)) for r in rows])
     else:
         _echo(table(headers, rows))
+
+
+@main.command()
+@click.argument("directory", type=click.Path(file_okay=False))
+@click.option("--force", is_flag=True, help="Replace example files already in DIRECTORY.")
+@handle_errors
+def examples(directory: str, force: bool) -> None:
+    """Copy the bundled example input files into DIRECTORY (created if missing)."""
+    from pathlib import Path
+
+    from .demo import bundled_examples
+    from .errors import InputError
+    from .outputs.files import write_files
+
+    files = bundled_examples()
+    there = [n for n in files if (Path(directory) / n).exists()]
+    if there and not force:
+        raise InputError(
+            f"{len(there)} example file(s) already there, e.g. {there[0]} (--force replaces them)",
+            source=directory,
+        )
+    for p in write_files(directory, files):
+        _echo(str(p))
 
 
 @main.command()

@@ -52,3 +52,13 @@ def run_demo(out_dir: str) -> list[str]:
     written = write_files(out_dir, files)
     page = Path(out_dir) / report_file_names(Path(DEMO_JOINT).stem)["html"]
     return [text, "", f"Report: {page}", "", "Wrote:", *(f"  {p}" for p in written)]
+
+
+def bundled_examples() -> dict[str, str]:
+    """Every example input file shipped in the package: {file name: text}."""
+    folder = resources.files("clampstack") / "examples"
+    return {
+        e.name: e.read_text(encoding="utf-8")
+        for e in sorted(folder.iterdir(), key=lambda e: e.name)
+        if e.name.endswith(".toml")
+    }
