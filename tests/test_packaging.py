@@ -11,10 +11,10 @@ import zipfile
 
 import pytest
 from click.testing import CliRunner
-from conftest import ROOT
 
 import clampstack
 from clampstack.cli import main
+from conftest import ROOT
 
 
 @pytest.fixture(scope="module")
