@@ -48,3 +48,23 @@ def test_the_hub_path_is_taken_and_small_networks_stay_banded():
     fi = np.where(i == 0, -1, i - 1)
     fj = np.where(j == 0, -1, j - 1)
     assert _LinearSolver(N - 1, fi, fj, lambda: None).hubs is None
+
+
+def test_a_floating_network_with_a_hub_is_reported():
+    # a chain and its hub joined to nothing fixed, mixed stiffnesses (the Schur complement
+    # is tiny but not exactly zero): the floating group is named, never a huge answer
+    import pytest
+
+    from clampstack.errors import InputError
+
+    n = 200
+    rng = np.random.default_rng(3)
+    hub = n + 1
+    i = np.concatenate((np.arange(1, n), np.arange(1, n + 1)))
+    j = np.concatenate((np.arange(2, n + 1), np.full(n, hub)))
+    k = rng.uniform(1e5, 1e9, i.size)
+    f = np.zeros(n + 2)
+    f[5] = 1e3
+    net = Network.from_arrays(n + 2, i, j, k, fixed=[0])
+    with pytest.raises(InputError, match="not joined to any fixed node"):
+        net.solve(f)

@@ -166,3 +166,26 @@ def test_scatter_per_pass_model_follows_a_changed_last_pass(examples_dir):
     ref = ring.solve(zero)[1]
     assert math.isclose(lin[3], ref[3], rel_tol=2e-3)
     np.testing.assert_allclose(lin, ref, rtol=2e-2)
+
+
+def test_sweep_cycle_cools_back_to_the_assembly_temperature(examples_dir):
+    # a range that starts above the assembly temperature still reports the cooled state
+    # at the assembly temperature, as `clampstack flange` does (review finding)
+    spec = _spec(examples_dir, "hot-oil-flange-spiral-wound.toml")
+    r = flange_sweep(spec, 150 + C0, spec.T_flange, cycle=True)
+    states = {s["state"]: s for s in r.cycle["states"]}
+    assert states["cooled"]["flange_temperature_degC"] == pytest.approx(spec.T_assembly - C0)
+    det = analyse_flange(spec, compensate=False)
+    np.testing.assert_allclose(
+        states["cooled"]["gasket_force_N"], det.cycle["cooled"].gasket, rtol=1e-6
+    )
+
+
+def test_a_relaxation_factor_range_above_one_is_refused(examples_dir, tmp_path):
+    f = examples_dir / "hot-oil-flange-spiral-wound.toml"
+    g = tmp_path / "f.toml"
+    g.write_text(
+        f.read_text().replace('gasket_relaxation = "0.85..0.93"', 'gasket_relaxation = "0.9..1.3"')
+    )
+    res = CliRunner().invoke(main, ["scatter", str(g), "--samples", "100"])
+    assert res.exit_code == 2 and "distributions.gasket_relaxation" in res.stderr

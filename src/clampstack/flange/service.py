@@ -32,6 +32,7 @@ from typing import Any
 
 import numpy as np
 
+from ..errors import SolveError
 from .loads import asme_app2, load_split
 from .model import FlangeSpec
 
@@ -83,6 +84,7 @@ class State:
             "rotation_deg": np.degrees(self.rotation).tolist(),
             "bolt_load_min_N": float(self.bolt.min()),
             "gasket_stress_min_MPa": float(self.gasket.min()) / sector_area * 1e-6,
+            "preload_basis": "nominal",
         }
 
 
@@ -94,13 +96,20 @@ def service_conditions(spec: FlangeSpec) -> Conditions:
 def at_fraction(spec: FlangeSpec, T: float) -> Conditions:
     """Conditions with the flange at ``T`` [K] and bolt and gasket at the same fraction of
     their rise from assembly as in the file (at the assembly temperature all parts are at
-    it; beyond the file's flange temperature each part rises in proportion)."""
+    it; beyond the file's flange temperature each part rises in proportion).  A file whose
+    flange stays at the assembly temperature moves every part with the flange, each
+    keeping its offset."""
     T0 = spec.T_assembly
     rise = spec.T_flange - T0
-    s = (T - T0) / rise if abs(rise) > 1e-9 else 1.0
+    if abs(rise) < 1e-3:  # the flange stays at assembly temperature in the file:
+        # every part moves with the flange by the same amount, keeping its offset
+        return Conditions(
+            T, T + (spec.T_bolt - spec.T_flange), T + (spec.T_gasket_service - spec.T_flange)
+        )
+    s = (T - T0) / rise
 
     def part(Tp: float) -> float:
-        return T0 + s * (Tp - T0) if abs(rise) > 1e-9 else T + (Tp - spec.T_flange)
+        return T0 + s * (Tp - T0)
 
     return Conditions(T, part(spec.T_bolt), part(spec.T_gasket_service))
 
@@ -142,8 +151,10 @@ def solve_state(
 def relax(ring: Ring, state: State, split: tuple[np.ndarray, np.ndarray], P: float) -> State:
     """Creep relaxation: each sector keeps ``P`` of its gasket force of ``state``.
 
-    The thickness each sector loses (``ring.creep``) is found by a per-sector secant on
-    the ring (linear on the unloading line, so a few steps); 1e-10 relative.
+    The thickness each loaded sector loses (``ring.creep``) is found by Newton-chord
+    steps on the ring with the sensitivity of the loaded sectors (the ring is linear on
+    the unloading line, so a few steps); 1e-10 relative.  A sector that carries nothing
+    has nothing to relax and loses no thickness.
     """
     if ring.creep is None:
         ring.creep = np.zeros(ring.n)
@@ -164,14 +175,18 @@ def relax(ring: Ring, state: State, split: tuple[np.ndarray, np.ndarray], P: flo
     # the ring is linear on the gasket's unloading line: the loss of gasket force is
     # S dc, with S from the ring's stiffness (creep_sensitivity); Newton-chord steps on
     # the ring itself until each sector's loss is met
-    S = creep_sensitivity(ring, k_un)
+    on = g0 > 0  # loaded sectors; the others stay as they are
+    S = creep_sensitivity(ring, k_un)[np.ix_(on, on)]
     l0, _ = loss(np.zeros(ring.n))
-    dc = np.linalg.solve(S, want - l0)
-    for _ in range(20):
+    dc = np.zeros(ring.n)
+    dc[on] = np.linalg.solve(S, (want - l0)[on])
+    for _ in range(30):
         got, new = loss(dc)
-        if np.all(np.abs(got - want) <= tol):
+        if np.all(np.abs(got - want)[on] <= tol):
             break
-        dc = dc + np.linalg.solve(S, want - got)
+        dc[on] += np.linalg.solve(S, (want - got)[on])
+    else:
+        raise SolveError("the gasket's creep relaxation did not converge")
     return State("hot", new.conditions, new.bolt, new.gasket, new.rotation, P)
 
 
@@ -206,7 +221,7 @@ class Cycle:
     states: dict[str, State]
     relaxation: float  # P_QR at the hot state
     relaxation_basis: str
-    creep: np.ndarray  # gasket thickness lost per sector [m] (the model's, half for a pair)
+    creep: np.ndarray  # gasket thickness lost per sector [m] (the whole gasket's)
 
     def __getitem__(self, name: str) -> State:
         return self.states[name]
@@ -218,9 +233,11 @@ def relaxation_basis(spec: FlangeSpec, T: float) -> tuple[float, str]:
     P = g.relaxation(T, spec.T_assembly)
     if g.relaxation_given is not None:
         return P, "given in the file (gasket.relaxation)"
+    lo, hi = g.relax_temperature[0], g.relax_temperature[-1]
+    how = "interpolated in" if lo <= T <= hi else "held at the end of"
     return P, (
-        f"P_QR = {P:.3g} at {T - 273.15:.4g} degC, interpolated in the gasket type's "
-        f"table ({g.service_source or 'no source'})"
+        f"P_QR = {P:.3g} at {T - 273.15:.4g} degC, {how} the gasket type's table "
+        f"({lo - 273.15:g}..{hi - 273.15:g} degC; {g.service_source or 'no source'})"
     )
 
 
@@ -239,13 +256,20 @@ def heat_cycle(ring: Ring, hot: Conditions | None = None) -> Cycle:
     shut = solve_state(
         ring, "shut_down", Conditions(cold.T_flange, cold.T_bolt, cold.T_gasket, 0.0), split
     )
-    creep = ring.creep.copy() if ring.creep is not None else np.zeros(ring.n)
+    creep = creep_lost(ring)
     return Cycle(
         {"start_up": start, "hot": relaxed, "cooled": cooled, "shut_down": shut},
         P,
         basis,
         creep,
     )
+
+
+def creep_lost(ring: Ring) -> np.ndarray:
+    """Gasket thickness lost to creep in each sector [m], of the whole gasket (the ring
+    model of a flange pair holds half the gasket)."""
+    c = ring.creep if ring.creep is not None else np.zeros(ring.n)
+    return c * (2.0 if ring.spec.mating == "flange" else 1.0)
 
 
 def snapshot(ring: Ring) -> Ring:

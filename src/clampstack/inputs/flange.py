@@ -351,6 +351,18 @@ def _distributions(raw: Any, method: str) -> dict[str, Any]:
     from .distributions import FLANGE_DIST_KEYS, parse_distributions
 
     out = parse_distributions(raw, FLANGE_DIST_KEYS)
+    rel = out.get("gasket_relaxation")
+    if rel is not None:
+        # a relaxation factor is residual over initial gasket stress: at most 1
+        from ..joint.model import MAX_TRUNCATED
+
+        above = 1.0 - rel.share_below(1.0) if rel.kind != "lognormal" else float("nan")
+        if (rel.kind == "uniform" and rel.b > 1.0) or not above <= MAX_TRUNCATED:
+            raise InputError(
+                "the relaxation factor is residual / initial gasket stress, at most 1: give "
+                "a range or distribution that stays at or below 1",
+                key="distributions.gasket_relaxation",
+            )
     torque_keys = ("torque", "torque_factor", "thread_friction", "head_friction", "nut_factor")
     for k in out:
         if method != "torque" and k in torque_keys:

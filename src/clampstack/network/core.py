@@ -646,6 +646,10 @@ class _LinearSolver:
         XY = XY.reshape(nr, nh + 1)
         x_r, Y = XY[:, 0], XY[:, 1:]
         S = D - B.T @ Y
+        # a floating group shows as a (nearly) singular Schur complement: the same test
+        # as the banded Cholesky's tiny pivot
+        if np.min(np.linalg.eigvalsh(0.5 * (S + S.T))) <= 1e-12 * max(float(diag.max()), 1e-300):
+            self.explain()
         x_h = np.linalg.solve(S, rhs[hidx] - B.T @ x_r)
         out = np.empty(self.nf)
         out[rest] = x_r - Y @ x_h

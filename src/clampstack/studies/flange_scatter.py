@@ -75,6 +75,10 @@ class FlangeScatterResult(Shown):
                 "percentiles of the assembly preload pool every bolt of every sample; the "
                 "residual clamp load is the smallest sector gasket force of a sample",
                 "slip does not apply to an axially loaded gasketed flange",
+                "the passes are linear about the deterministic ring: a bolt the model leaves "
+                "below zero is taken as loose (zero preload)",
+                "a sampled relaxation factor is taken at most 1 (the few normal samples "
+                "above are truncated)",
             ],
         }
 

@@ -35,6 +35,7 @@ from ..flange.analysis import FlangeResult, analyse_flange
 from ..flange.model import FlangeSpec
 from ..flange.service import (
     STATE_TEXT,
+    Conditions,
     State,
     at_fraction,
     loads,
@@ -172,12 +173,11 @@ def flange_sweep(
         for c in conds[::-1]:
             states.append(solve_state(ring, "cooling", c, split))
             phase.append("cooling")
-        shut = solve_state(
-            ring,
-            "shut_down",
-            type(conds[0])(spec.T_assembly, spec.T_assembly, spec.T_assembly, 0.0),
-            split,
-        )
+        # cooled back to the assembly temperature (wherever the range ends), pressurised,
+        # then shut down
+        T0 = spec.T_assembly
+        cooled = solve_state(ring, "cooled", Conditions(T0, T0, T0), split)
+        shut = solve_state(ring, "shut_down", Conditions(T0, T0, T0, 0.0), split)
     else:
         for i, c in enumerate(conds):
             states.append(solve_state(snapshot(ring0), "point", c, split))
@@ -203,7 +203,6 @@ def flange_sweep(
     )
     cyc = None
     if cycle:
-        cooled = states[-1]
         cooled_lo = cooled.gasket - (1 - lo_s) * asm_g
         cyc = {
             "peak_temperature_degC": float(T[-1] - C0),
