@@ -17,6 +17,7 @@ PAGES = [
     "theory.md",
     "validation.md",
     "limits.md",
+    "json.md",
 ]
 
 

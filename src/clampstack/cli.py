@@ -85,8 +85,11 @@ def _echo(text: str = "", err: bool = False, nl: bool = True) -> None:
     click.echo(terminal_safe(str(text)), err=err, nl=nl)
 
 
-def _print_json(obj: Any) -> None:
-    click.echo(json.dumps(obj, indent=2, allow_nan=False))  # ASCII: escapes all
+def _print_json(obj: Any, schema: str, sha256: str | None = None) -> None:
+    """Print a ``--json`` document: the contract's header keys first, then ``obj``."""
+    from .outputs.contract import envelope
+
+    click.echo(json.dumps(envelope(schema, obj, sha256), indent=2, allow_nan=False))  # ASCII
 
 
 class _Group(click.Group):
@@ -181,7 +184,7 @@ def solve(file: str, as_json: bool, units: str) -> None:
     doc, asm = read_assembly_file(file)
     result = _in_file(doc.path, solve_assembly, asm)
     if as_json:
-        _print_json(result.to_dict())
+        _print_json(result.to_dict(), "solve", doc.sha256)
     else:
         _echo(assembly_text(result, units))
     sys.exit(EXIT_OK)
@@ -201,7 +204,7 @@ def check(file: str, as_json: bool, units: str) -> None:
     doc, spec = read_joint_file(file)
     result = _in_file(doc.path, analyse, spec)
     if as_json:
-        _print_json(result.to_dict())
+        _print_json(result.to_dict(), "check", doc.sha256)
     else:
         _echo(joint_text(result, units))
     sys.exit(EXIT_OK if result.ok else EXIT_FAIL)
@@ -285,7 +288,9 @@ def sweep(
     if case_note is not None:
         result = replace(result, notes=(case_note, *result.notes))
     if as_json:  # streamed: the text of _print_json(result.to_dict()), a piece at a time
-        for piece in sweep_json_chunks(result):
+        from .outputs.contract import header
+
+        for piece in sweep_json_chunks(result, head=header("sweep", doc.sha256)):
             click.echo(piece, nl=False)  # ASCII: json escapes all
         click.echo("")
     elif as_csv:
@@ -327,7 +332,7 @@ def _sweep_flange(
     if progress is not None:
         progress(None)
     if as_json:
-        _print_json(result.to_dict())
+        _print_json(result.to_dict(), "sweep", doc.sha256)
     elif as_csv:
         _echo(flange_sweep_csv(result), nl=False)
     else:
@@ -349,7 +354,7 @@ def flange(file: str, as_json: bool, units: str) -> None:
     doc, spec = read_flange_file(file)
     result = _in_file(doc.path, analyse_flange, spec)
     if as_json:
-        _print_json(result.to_dict())
+        _print_json(result.to_dict(), "flange", doc.sha256)
     else:
         _echo(flange_text(result, units))
     sys.exit(EXIT_OK if result.ok else EXIT_FAIL)
@@ -444,7 +449,7 @@ def scatter(
         fdoc, fspec = read_flange_file(file, "scatter")
         fres = _in_file(fdoc.path, flange_scatter, fspec, samples, seed, 1, conv)
         if as_json:
-            _print_json(fres.to_dict())
+            _print_json(fres.to_dict(), "scatter", fdoc.sha256)
         else:
             _echo(flange_scatter_text(fres, units))
         sys.exit(EXIT_OK if fres.deterministic["ok"] else EXIT_FAIL)
@@ -459,7 +464,7 @@ def scatter(
     if case_note is not None:
         result = replace(result, notes=(case_note, *result.notes))
     if as_json:
-        _print_json(result.to_dict())
+        _print_json(result.to_dict(), "scatter", doc.sha256)
     else:
         _echo(scatter_text(result, units))
     sys.exit(EXIT_OK if result.ok else EXIT_FAIL)
@@ -529,7 +534,7 @@ def size(
         fspec = _in_file(doc.path, flange_from_data, doc.data)
         fres = _in_file(doc.path, size_flange, fspec, constraints)
         if as_json:
-            _print_json(fres)
+            _print_json(fres, "size", doc.sha256)
         else:
             _echo(flange_size_text(fres, units))
         sys.exit(EXIT_OK if fres["designs"] else EXIT_FAIL)
@@ -542,7 +547,7 @@ def size(
     if progress is not None:
         progress(None)
     if as_json:
-        _print_json(result.to_dict())
+        _print_json(result.to_dict(), "size", doc.sha256)
     else:
         _echo(size_text(result, units))
     sys.exit(EXIT_OK if result.designs else EXIT_FAIL)
@@ -558,14 +563,16 @@ def size(
 def catalog(what: str, as_json: bool) -> None:
     """List what the catalog holds (threads, grades, materials, gaskets, friction of
     lubricants and coatings, torque tools), with sources."""
+    if as_json:
+        from .catalog.listing import records
+
+        _print_json({"listing": what, "records": records(what)}, "catalog")
+        return
     from .catalog import listing
     from .outputs.text import table
 
     headers, rows = listing(what)
-    if as_json:
-        _print_json([dict(zip(headers, r, strict=True)) for r in rows])
-    else:
-        _echo(table(headers, rows))
+    _echo(table(headers, rows))
 
 
 @main.command()
@@ -646,7 +653,11 @@ def report(file: str, out_dir: str, units: str, as_json: bool) -> None:
         written = write_files(out_dir, afiles)
         page = next(p for p in written if p.suffix == ".html")
         if as_json:
-            _print_json({"ok": True, "report": str(page), "files": [str(p) for p in written]})
+            _print_json(
+                {"ok": True, "report": str(page), "files": [str(p) for p in written]},
+                "report",
+                adoc.sha256,
+            )
         else:
             _echo(f"SOLVED: {asm.title}")
             _echo(f"Report: {page}")
@@ -671,7 +682,11 @@ def report(file: str, out_dir: str, units: str, as_json: bool) -> None:
     written = write_files(out_dir, files)  # all or nothing; an OSError is an InputError
     page = next(p for p in written if p.suffix == ".html")
     if as_json:
-        _print_json({"ok": result.ok, "report": str(page), "files": [str(p) for p in written]})
+        _print_json(
+            {"ok": result.ok, "report": str(page), "files": [str(p) for p in written]},
+            "report",
+            doc.sha256,
+        )
     else:
         _echo(f"{'PASS' if result.ok else 'FAIL'}: {spec.title}")
         _echo(f"Report: {page}")
@@ -690,7 +705,7 @@ def verify(as_json: bool) -> None:
     results = run_all()
     doc = summary(results)
     if as_json:
-        _print_json(doc)
+        _print_json(doc, "verify")
     else:
         _echo(table(HEADERS, rows(results)))
         _echo("")

@@ -49,8 +49,25 @@ def test_catalog_listings():
         assert res.exit_code == 0
         assert needle in res.output and "source" in res.output
     res = CliRunner().invoke(main, ["catalog", "grades", "--json"])
-    rows = json.loads(res.stdout)
-    assert any(r["grade"] == "8.8" for r in rows)
+    doc = json.loads(res.stdout)
+    assert doc["schema"] == "clampstack.catalog" and doc["listing"] == "grades"
+    (g88,) = [r for r in doc["records"] if r["grade"] == "8.8" and r["d_max_mm"] <= 16]
+    # ISO 898-1: class 8.8 up to M16, R_m 800 MPa, R_p0.2 640 MPa (numbers, not text)
+    assert g88["tensile_strength_MPa"] == 800 and g88["yield_strength_MPa"] == 640
+
+
+def test_catalog_json_is_snake_case_numbers():
+    import re
+
+    for what in ("threads", "grades", "materials", "gaskets", "friction", "tools"):
+        doc = json.loads(CliRunner().invoke(main, ["catalog", what, "--json"]).stdout)
+        assert doc["records"], what
+        for r in doc["records"]:
+            for k, v in r.items():
+                assert re.fullmatch(r"[a-z][a-z0-9_]*(_[A-Za-z0-9]+)?", k), (what, k)
+                if k.endswith(("_mm", "_MPa", "_GPa", "_mm2", "_per_K", "_psi")):
+                    assert v is None or isinstance(v, float | int), (what, k, v)
+            assert r["source"]
 
 
 def test_help_lists_commands():

@@ -57,6 +57,16 @@ def _tools() -> tuple[Tool, ...]:
     )
 
 
+def lubricants() -> list[Lubricant]:
+    """Every lubricant and coating of the catalog."""
+    return list(_lubricants())
+
+
+def tools() -> list[Tool]:
+    """Every torque tool class of the catalog."""
+    return list(_tools())
+
+
 def lubricant(key: str) -> Lubricant:
     """The lubricant or coating ``key`` (case and punctuation ignored); InputError with near
     matches if unknown."""

@@ -215,15 +215,18 @@ def sweep_csv_chunks(result: SweepResult, block: int = BLOCK) -> Iterator[str]:
 _POINTS_MARK = "\x00points"  # stands for the points in the frame of the JSON text
 
 
-def sweep_json_chunks(result: SweepResult, block: int = BLOCK) -> Iterator[str]:
-    """``json.dumps(result.to_dict(), indent=2, allow_nan=False)`` in pieces, byte for byte.
+def sweep_json_chunks(
+    result: SweepResult, block: int = BLOCK, head: dict | None = None
+) -> Iterator[str]:
+    """``json.dumps(result.to_dict(), indent=2, allow_nan=False)`` in pieces, byte for byte
+    (with the keys of ``head``, the JSON contract's header, first).
 
     The frame (title, limits, cycle, ...) is encoded by :mod:`json`; the points are
     written ``block`` at a time from the result's arrays, never as a list of dicts.
     Anything that cannot be encoded (a value that is not finite) raises before the
     first piece.  ``sweep --json`` writes the pieces as they come, then a line feed.
     """
-    frame = result.to_dict(points=False)
+    frame = {**(head or {}), **result.to_dict(points=False)}
     frame["points"] = _POINTS_MARK
     text = json.dumps(frame, indent=2, allow_nan=False)
     mark = '\n  "points": ' + json.dumps(_POINTS_MARK)
