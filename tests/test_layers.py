@@ -31,6 +31,8 @@ LAYERS: tuple[tuple[str, ...], ...] = (
     ("report",),
     ("verify",),
     ("demo",),
+    ("api",),  # the Python interface: the commands as functions
+    ("apidoc",),  # docs/api.md from the interface's docstrings
     ("cli",),
     ("__main__",),  # python -m clampstack: the command line
     ("",),  # clampstack/__init__.py: the package's front door, above every layer

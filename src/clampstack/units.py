@@ -99,7 +99,10 @@ def registry():
         ureg = pint.UnitRegistry(cache_folder=":auto:")
     except Exception:  # pragma: no cover - read-only home, odd platforms
         ureg = pint.UnitRegistry()
-    ureg.formatter.default_format = "~P"
+    if hasattr(ureg, "formatter"):  # pint >= 0.24
+        ureg.formatter.default_format = "~P"
+    else:  # pint 0.23, the dependency floor
+        ureg.default_format = "~P"
     return ureg
 
 

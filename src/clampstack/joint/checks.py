@@ -32,6 +32,20 @@ CHECK_NAMES: tuple[str, ...] = (
 _TOL = 1e-9
 
 
+#: display unit of a check -> (factor to SI, SI unit)
+SI_UNITS: dict[str, tuple[float, str]] = {
+    "kN": (1e3, "N"),
+    "N": (1.0, "N"),
+    "MPa": (1e6, "Pa"),
+    "mm": (1e-3, "m"),
+    "um": (1e-6, "m"),
+    "mm2": (1e-6, "m2"),
+    "deg": (math.pi / 180.0, "rad"),
+    "N*m": (1.0, "N*m"),
+    "": (1.0, ""),
+}
+
+
 @dataclass(frozen=True)
 class Check:
     """One design check.  ``value`` and ``limit`` are in ``unit``."""
@@ -67,15 +81,32 @@ class Check:
             return True
         return self.margin >= -_TOL
 
+    @property
+    def si(self) -> tuple[float | None, float | None, str]:
+        """Value, limit and unit in SI (N, Pa, m, m^2, rad; a ratio as it is)."""
+        factor, unit = SI_UNITS.get(self.unit, (1.0, self.unit))
+
+        def conv(x: float | None) -> float | None:
+            if x is None or not math.isfinite(x):
+                return None
+            return x * factor
+
+        return conv(self.value), conv(self.limit), unit
+
     def to_dict(self) -> dict[str, Any]:
-        """JSON form: ``{name, value, limit, unit, margin, pass, source, ...}``."""
+        """JSON form: ``{name, value, limit, unit, value_si, limit_si, unit_si, margin, pass,
+        source, ...}`` (value and limit in the display unit of the check, and in SI)."""
         m = self.margin
+        v_si, l_si, u_si = self.si
         return {
             "name": self.name,
             "title": self.title,
             "value": self.value,
             "limit": self.limit,
             "unit": self.unit,
+            "value_si": v_si,
+            "limit_si": l_si,
+            "unit_si": u_si,
             "relation": self.relation,
             "margin": None if math.isinf(m) else m,
             "pass": self.passed,
