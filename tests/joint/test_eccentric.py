@@ -209,7 +209,7 @@ def test_middle_third_rule_of_a_rectangle_and_kern_of_a_circle():
     D = 0.05
     jc = _joint(s=0.0, a=0.0, u=D / 2, interface=Interface.circle(D))
     x, b = jc.interface.profile()
-    area = np.trapezoid(b, x)
+    area = float(np.sum(0.5 * (b[1:] + b[:-1]) * np.diff(x)))  # trapezoid rule
     assert area == pytest.approx(math.pi * D**2 / 4, rel=1e-4)
     for e, full in ((D / 8 * 0.99, True), (D / 8 * 1.02, False)):
         w, th = jc.bed_inverse(10e3, 10e3 * e)
