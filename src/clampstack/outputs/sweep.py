@@ -5,6 +5,7 @@ from __future__ import annotations
 import html
 import json
 from collections.abc import Iterator
+from typing import Any
 
 import numpy as np
 
@@ -14,6 +15,19 @@ from ..studies.sweep import C0, SweepResult
 from .text import CAUTION, UNIT_SYSTEMS, notes_block, table
 
 MAX_ROWS = 25
+
+
+def _limit_lines(limits: tuple, u: Any) -> list[str]:
+    """One line per limit temperature: where a check starts to fail."""
+    out = []
+    for lim in limits:
+        where = (
+            "over the whole range"
+            if lim.fails == "whole range"
+            else f"{lim.fails} {u.temp(lim.temperature):.2f} {u.temp_label}"
+        )
+        out.append(f"  {lim.check} fails {where}")
+    return out
 
 
 def sweep_text(r: SweepResult, units: str = "si") -> str:
@@ -36,13 +50,7 @@ def sweep_text(r: SweepResult, units: str = "si") -> str:
         out.append("RESULT: PASS - every check passes over the whole range")
     else:
         out.append(f"RESULT: FAIL - checks fail at {int((~r.ok).sum())} of {T.size} points")
-    for lim in r.limits:
-        where = (
-            "over the whole range"
-            if lim.fails == "whole range"
-            else f"{lim.fails} {u.temp(lim.temperature):.2f} {u.temp_label}"
-        )
-        out.append(f"  {lim.check} fails {where}")
+    out.extend(_limit_lines(r.limits, u))
     out.append("")
     out.append(
         f"Thermal preload change (minimum preload, after embedding): "
@@ -295,13 +303,7 @@ def flange_sweep_text(r: FlangeSweepResult, units: str = "si") -> str:
         out.append("RESULT: FAIL - gasket_heat_cycle: below the operating minimum after the cycle")
     else:
         out.append(f"RESULT: FAIL - checks fail at {int((~ok).sum())} of {T.size} points")
-    for lim in r.limits:
-        where = (
-            "over the whole range"
-            if lim.fails == "whole range"
-            else f"{lim.fails} {u.temp(lim.temperature):.2f} {u.temp_label}"
-        )
-        out.append(f"  {lim.check} fails {where}")
+    out.extend(_limit_lines(r.limits, u))
     out.append(
         f"  gasket operating minimum {u.fmt('stress', r.operating_minimum / A)} {S} "
         f"(H_p/N), seating y {u.fmt('stress', s.gasket.y)} {S}, crush "
