@@ -170,7 +170,7 @@ def main(debug: bool) -> None:
     _DEBUG = debug
 
 
-@main.command()
+@main.command(short_help="Load share of an axial assembly of parts between nodes.")
 @click.argument("file", type=FILE)
 @json_option
 @units_option
@@ -190,7 +190,7 @@ def solve(file: str, as_json: bool, units: str) -> None:
     sys.exit(EXIT_OK)
 
 
-@main.command()
+@main.command(short_help="Check a single-bolt joint (exit 1 if a check fails).")
 @click.argument("file", type=FILE)
 @json_option
 @units_option
@@ -223,7 +223,7 @@ def _parse_temperature_range(text: str) -> tuple[float, float]:
     return parse_range(t, "temperature", "--temperature")
 
 
-@main.command()
+@main.command(short_help="Preload and every check over a temperature range.")
 @click.argument("file", type=FILE)
 @click.option(
     "--temperature",
@@ -340,7 +340,7 @@ def _sweep_flange(
     sys.exit(EXIT_OK if result.passed else EXIT_FAIL)
 
 
-@main.command()
+@main.command(short_help="Bolt loads, gasket window and passes of a flange.")
 @click.argument("file", type=FILE)
 @json_option
 @units_option
@@ -360,7 +360,7 @@ def flange(file: str, as_json: bool, units: str) -> None:
     sys.exit(EXIT_OK if result.ok else EXIT_FAIL)
 
 
-@main.command()
+@main.command(short_help="Monte Carlo of the assembly scatter of a joint or flange.")
 @click.argument("file", type=FILE)
 @click.option(
     "--samples",
@@ -490,7 +490,7 @@ def _progress(total: int, quiet: bool, label: str):
     return report
 
 
-@main.command()
+@main.command(short_help="Smallest thread, grade and method that pass.")
 @click.argument("file", type=FILE)
 @click.option(
     "--thread",
@@ -553,7 +553,7 @@ def size(
     sys.exit(EXIT_OK if result.designs else EXIT_FAIL)
 
 
-@main.command()
+@main.command(short_help="List the catalog's data, each row with its source.")
 @click.argument(
     "what",
     type=click.Choice(["threads", "grades", "materials", "gaskets", "friction", "tools"]),
@@ -575,7 +575,7 @@ def catalog(what: str, as_json: bool) -> None:
     _echo(table(headers, rows))
 
 
-@main.command()
+@main.command(short_help="Copy the bundled example files into a folder.")
 @click.argument("directory", type=click.Path(file_okay=False))
 @click.option("--force", is_flag=True, help="Replace example files already in DIRECTORY.")
 @handle_errors
@@ -598,7 +598,7 @@ def examples(directory: str, force: bool) -> None:
         _echo(str(p))
 
 
-@main.command()
+@main.command(short_help="Run the bundled example end to end.")
 @click.option(
     "-o",
     "--output",
@@ -616,7 +616,7 @@ def demo(out_dir: str) -> None:
         _echo(line)
 
 
-@main.command()
+@main.command(short_help="HTML calculation report with JSON and CSV beside it.")
 @click.argument("file", type=FILE)
 @click.option(
     "-o",
@@ -694,7 +694,7 @@ def report(file: str, out_dir: str, units: str, as_json: bool) -> None:
     sys.exit(EXIT_OK if result.ok else EXIT_FAIL)
 
 
-@main.command()
+@main.command(short_help="Check the tool against published values.")
 @json_option
 @handle_errors
 def verify(as_json: bool) -> None:

@@ -57,3 +57,10 @@ def test_an_internal_error_exits_3_with_one_line(examples_dir, monkeypatch):
     assert "Traceback" not in res.stderr and res.stdout == ""
     res = CliRunner().invoke(main, ["--debug", "check", f])
     assert res.exit_code == 3 and "Traceback" in res.stderr and "ZeroDivisionError" in res.stderr
+
+
+def test_short_help_texts_are_not_cut_off():
+    res = CliRunner().invoke(main, ["--help"], terminal_width=80)
+    commands = res.output.split("Commands:", 1)[1]
+    assert "..." not in commands, commands
+    assert len([ln for ln in commands.splitlines() if ln.strip()]) >= 11

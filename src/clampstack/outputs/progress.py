@@ -1,8 +1,10 @@
-"""A small progress bar for long runs, shown only on a terminal.
+"""A progress bar for long runs, shown only on a terminal.
 
 Long studies (sweeps with thousands of points, scatter studies) report their
 progress on stderr while a person watches; piped output, ``--json`` and
-``--csv`` stay clean.  No dependency beyond the standard library.
+``--csv`` stay clean.  The bar is click's own (``click.progressbar``): click is
+loaded by the command line anyway, so it costs neither start-up time nor a
+dependency; this module decides when a bar is shown and throttles its redraws.
 
 Usage::
 
@@ -85,41 +87,61 @@ class Progress:
         self.width = width
         self.interval = interval
         self.done = 0
+        self._shown = 0  # steps handed to click's bar
         self._last: float | None = None  # time of the last draw
-        self._drawn = 0
-        self._start = time.monotonic()
+        self._bar = None
+        if self.enabled:
+            import click
+
+            self._bar = click.progressbar(
+                length=max(self.total, 1),
+                label=label,
+                file=self.stream,
+                width=width,
+                fill_char="#",
+                empty_char=".",
+                show_percent=True,
+                show_pos=True,
+                show_eta=False,
+                bar_template="%(label)s [%(bar)s] %(info)s",
+            )
 
     def line(self) -> str:
-        """The text of the bar as it stands: ``label [#####.....]  45 %  450/1000``."""
-        frac = 1.0 if self.total == 0 else min(self.done / self.total, 1.0)
-        full = int(round(frac * self.width))
-        bar = "#" * full + "." * (self.width - full)
-        head = f"{self.label} " if self.label else ""
-        return f"{head}[{bar}] {frac * 100:3.0f} %  {self.done}/{self.total}"
+        """The text of the bar as it stands: ``label [#####.....]  450/1000   45%``."""
+        import click
+
+        bar = click.progressbar(
+            length=max(self.total, 1),
+            label=self.label,
+            width=self.width,
+            fill_char="#",
+            empty_char=".",
+            show_percent=True,
+            show_pos=True,
+            show_eta=False,
+            bar_template="%(label)s [%(bar)s] %(info)s",
+        )
+        bar.pos = min(self.done, bar.length)
+        return bar.format_progress_line().strip()
 
     def update(self, steps: int = 1) -> None:
         """Count ``steps`` more done and redraw (at most every ``interval`` seconds)."""
         self.done += steps
-        if not self.enabled:
+        if self._bar is None:
             return
         now = time.monotonic()
         if self._last is not None and self.done < self.total and now - self._last < self.interval:
             return
         self._last = now
-        self._draw(self.line())
-
-    def _draw(self, text: str) -> None:
-        pad = max(self._drawn - len(text), 0)
-        self.stream.write("\r" + text + " " * pad)
-        self.stream.flush()
-        self._drawn = len(text)
+        self._bar.update(self.done - self._shown)
+        self._shown = self.done
 
     def close(self) -> None:
-        """Clear the bar's line, so that what follows starts on a clean line."""
-        if self.enabled and self._drawn:
-            self.stream.write("\r" + " " * self._drawn + "\r")
-            self.stream.flush()
-            self._drawn = 0
+        """Finish the bar's line, so that what follows starts on a clean line."""
+        if self._bar is not None:
+            if self._shown:
+                self._bar.render_finish()
+            self._bar = None
 
     def __enter__(self) -> Progress:
         return self
