@@ -68,3 +68,28 @@ def test_results_are_frozen_and_errors_name_the_file(tmp_path):
     assert (
         "bad.toml" in str(e.value) and os.fspath(bad) in str(e.value) or "bad.toml" in str(e.value)
     )
+
+
+def test_every_result_is_a_frozen_dataclass_with_to_dict_and_html():
+    import dataclasses
+
+    j = clampstack.load(ROOT / "examples" / "m10-cover-screw-aluminium.toml")
+    f = clampstack.load(ROOT / "examples" / "pump-outlet-flange-8-bolts.toml")
+    a = clampstack.load(ROOT / "examples" / "load-cell-rig-bolts-and-sleeves.toml")
+    results = [
+        clampstack.analyse(j),
+        clampstack.analyse_flange(f),
+        clampstack.solve(a),
+        clampstack.sweep(j, "0 degC", "80 degC"),
+        clampstack.sweep(f, 293.15, 393.15),
+        clampstack.scatter(j, samples=500),
+        clampstack.scatter(f, samples=500),
+        clampstack.size(j),
+        clampstack.size(f),
+    ]
+    for r in results:
+        name = type(r).__name__
+        assert dataclasses.is_dataclass(r) and type(r).__dataclass_params__.frozen, name
+        assert isinstance(r.to_dict(), dict), name
+        html = r._repr_html_()
+        assert html and html.lstrip().startswith("<"), name

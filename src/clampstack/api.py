@@ -158,14 +158,14 @@ def scatter(spec: Any, samples: int = 10_000, seed: int = 0) -> Any:
 
 
 def size(spec: Any) -> Any:
-    """The smallest passing designs (``clampstack size``): a ``SizeResult`` for a joint, the
-    JSON-ready dict of ``size --json`` for a flange."""
+    """The smallest passing designs (``clampstack size``): a ``SizeResult`` for a joint, a
+    ``FlangeSizeResult`` (its ``to_dict()`` the ``size --json`` document) for a flange."""
     from .flange.model import FlangeSpec
 
     if isinstance(spec, FlangeSpec):
-        from .studies.flange_size import size_flange
+        from .studies.flange_size import FlangeSizeResult, size_flange
 
-        return size_flange(spec)
+        return FlangeSizeResult(size_flange(spec))
     from .studies.size import size as run
 
     return run(spec)

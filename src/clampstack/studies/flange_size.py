@@ -16,13 +16,14 @@ the fewest bolts of the smallest size.
 from __future__ import annotations
 
 import math
-from dataclasses import replace
+from dataclasses import dataclass, replace
 from typing import Any
 
 from ..catalog import Thread, grades, threads
 from ..catalog import grade as catalog_grade
 from ..catalog import material as catalog_material
 from ..catalog.parts import bearing_face_diameter
+from ..display import Shown
 from ..errors import InputError
 from ..flange.analysis import analyse_flange, asme_app2, tightening_basis
 from ..flange.model import FlangeSpec, bolt_allowable_stress, check_fit, ring_outer_diameter
@@ -111,6 +112,19 @@ PRESSURE_GRADES_SOURCE = (
     "grades used for pressure bolting: EN 1515-1 (5.6, 8.8) and ASME B16.5 (ASTM A193 B7), "
     "from memory; --grades for others"
 )
+
+
+@dataclass(frozen=True)
+class FlangeSizeResult(Shown):
+    """The result of a flange search: the JSON-ready dict of ``size --json``."""
+
+    data: dict[str, Any]
+
+    def to_dict(self) -> dict[str, Any]:
+        return dict(self.data)
+
+    def __getitem__(self, key: str) -> Any:
+        return self.data[key]
 
 
 def size_flange(base: FlangeSpec, constraints: Constraints | None = None) -> dict[str, Any]:

@@ -27,6 +27,7 @@ from ..catalog import Thread, grades, threads
 from ..catalog import grade as catalog_grade
 from ..catalog import material as catalog_material
 from ..catalog.parts import washer_size
+from ..display import Shown
 from ..errors import InputError
 from ..joint import geometry
 from ..joint.cases import case_spec
@@ -133,7 +134,7 @@ class Design:
 
 
 @dataclass(frozen=True)
-class SizeResult:
+class SizeResult(Shown):
     title: str
     designs: tuple[Design, ...]
     candidates: int
