@@ -20,7 +20,7 @@ import os
 import sys
 import time
 from collections.abc import Iterable, Iterator
-from typing import IO, TypeVar
+from typing import IO, Any, TypeVar
 
 T = TypeVar("T")
 
@@ -91,28 +91,16 @@ class Progress:
         self._last: float | None = None  # time of the last draw
         self._bar = None
         if self.enabled:
-            import click
+            self._bar = self._click_bar(self.stream)
 
-            self._bar = click.progressbar(
-                length=max(self.total, 1),
-                label=label,
-                file=self.stream,
-                width=width,
-                fill_char="#",
-                empty_char=".",
-                show_percent=True,
-                show_pos=True,
-                show_eta=False,
-                bar_template="%(label)s [%(bar)s] %(info)s",
-            )
-
-    def line(self) -> str:
-        """The text of the bar as it stands: ``label [#####.....]  450/1000   45%``."""
+    def _click_bar(self, stream: IO[str] | None) -> Any:
+        """click's bar in this module's look: ``label [####....] 450/1000   45%``."""
         import click
 
-        bar = click.progressbar(
+        return click.progressbar(
             length=max(self.total, 1),
             label=self.label,
+            file=stream,
             width=self.width,
             fill_char="#",
             empty_char=".",
@@ -121,6 +109,10 @@ class Progress:
             show_eta=False,
             bar_template="%(label)s [%(bar)s] %(info)s",
         )
+
+    def line(self) -> str:
+        """The text of the bar as it stands: ``label [#####.....]  450/1000   45%``."""
+        bar = self._click_bar(None)
         bar.pos = min(self.done, bar.length)
         return bar.format_progress_line().strip()
 
