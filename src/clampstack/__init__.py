@@ -14,29 +14,10 @@ from ._version import __version__
 # a result shown in a notebook loads its HTML view from the presentation layer
 _display.set_loader(lambda: _importlib.import_module("clampstack.outputs.notebook"))
 
-#: the Python interface (clampstack.api), loaded on first use so that `import clampstack`
-#: and the command line start fast
-_API = (
-    "analyse",
-    "analyse_flange",
-    "assembly_from_dict",
-    "flange_from_dict",
-    "joint_from_dict",
-    "load",
-    "scatter",
-    "size",
-    "solve",
-    "sweep",
-)
+# the Python interface (its one list of names is clampstack.api.__all__); clampstack.api
+# imports nothing heavy at its top (each function loads what it needs), so
+# `import clampstack` and the command line stay fast
+from . import api as _api  # noqa: E402
+from .api import *  # noqa: E402, F403
 
-__all__ = ["__version__", *_API]
-
-
-def __getattr__(name: str):
-    if name in _API:
-        return getattr(_importlib.import_module("clampstack.api"), name)
-    raise AttributeError(f"module 'clampstack' has no attribute {name!r}")
-
-
-def __dir__() -> list[str]:
-    return sorted(__all__)
+__all__ = ["__version__", *_api.__all__]

@@ -258,30 +258,24 @@ def sweep(
     """Preload, clamp load and every check over a temperature range (exit 1 if one fails)."""
 
     from .errors import InputError
-    from .inputs.joint import read_joint_file
+    from .inputs.files import file_kind, load_toml, require_kind
+    from .inputs.joint import joint_from_data
     from .joint.analysis import select_case
     from .joint.cases import check_case_name
     from .outputs.sweep import sweep_csv_chunks, sweep_json_chunks, sweep_text
     from .studies.sweep import sweep as run_sweep
-    from .studies.sweep import temperature_points
 
     if as_json and as_csv:
         raise InputError("choose --json or --csv, not both", key="--csv")
-    from .inputs.files import file_kind, load_toml
-
-    if file_kind(load_toml(file).data) == "flange":  # a flange file: per-bolt states
-        _sweep_flange(file, trange, step, cycle, case, as_json, as_csv, units)
+    doc = load_toml(file)  # read once; the kind decides which sweep
+    if file_kind(doc.data) == "flange":  # a flange file: per-bolt states
+        _sweep_flange(doc, trange, step, cycle, case, as_json, as_csv, units)
         return
-    doc, spec = read_joint_file(file, "sweep")
+    require_kind(doc, "joint", "sweep")
+    spec = _in_file(doc.path, joint_from_data, doc.data)
     check_case_name(spec, case)  # an option's error names the option, not the file
     spec, case_note = _in_file(doc.path, select_case, spec, case)
-    lo, hi = _parse_temperature_range(trange)
-    import math
-
-    if step is not None and not (math.isfinite(step) and step > 0):
-        raise InputError(f"the step must be a positive number of kelvin, got {step}", key="--step")
-    n_points = _in_file(doc.path, temperature_points, lo, hi, step).size  # refused before a bar
-    progress = _progress(n_points, as_json or as_csv, "sweep")
+    lo, hi, progress = _sweep_range(doc.path, trange, step, as_json or as_csv)
     result = _in_file(doc.path, run_sweep, spec, lo, hi, step, cycle, progress)
     if progress is not None:
         progress(None)
@@ -301,8 +295,25 @@ def sweep(
     sys.exit(EXIT_OK if result.passed else EXIT_FAIL)
 
 
+def _sweep_range(
+    path: str, trange: str, step: float | None, quiet: bool
+) -> tuple[float, float, Any]:
+    """``--temperature`` and ``--step`` checked (the points refused before any bar), and the
+    progress bar of the sweep (None when quiet or short)."""
+    import math
+
+    from .errors import InputError
+    from .studies.sweep import temperature_points
+
+    lo, hi = _parse_temperature_range(trange)
+    if step is not None and not (math.isfinite(step) and step > 0):
+        raise InputError(f"the step must be a positive number of kelvin, got {step}", key="--step")
+    n_points = _in_file(path, temperature_points, lo, hi, step).size
+    return lo, hi, _progress(n_points, quiet, "sweep")
+
+
 def _sweep_flange(
-    file: str,
+    doc: Any,
     trange: str,
     step: float | None,
     cycle: bool,
@@ -312,22 +323,15 @@ def _sweep_flange(
     units: str,
 ) -> None:
     """``sweep`` on a flange file (see :mod:`clampstack.studies.flange_sweep`)."""
-    import math
-
     from .errors import InputError
-    from .inputs.flange import read_flange_file
+    from .inputs.flange import flange_from_data
     from .outputs.sweep import flange_sweep_csv, flange_sweep_text
     from .studies.flange_sweep import flange_sweep
-    from .studies.sweep import temperature_points
 
     if case is not None:
         raise InputError("a flange file has no load cases", key="--case")
-    doc, spec = read_flange_file(file, "sweep")
-    lo, hi = _parse_temperature_range(trange)
-    if step is not None and not (math.isfinite(step) and step > 0):
-        raise InputError(f"the step must be a positive number of kelvin, got {step}", key="--step")
-    n_points = _in_file(doc.path, temperature_points, lo, hi, step).size
-    progress = _progress(n_points, as_json or as_csv, "sweep")
+    spec = _in_file(doc.path, flange_from_data, doc.data)
+    lo, hi, progress = _sweep_range(doc.path, trange, step, as_json or as_csv)
     result = _in_file(doc.path, flange_sweep, spec, lo, hi, step, cycle, progress)
     if progress is not None:
         progress(None)

@@ -154,9 +154,6 @@ def flange_sweep(
     conds = [at_fraction(spec, float(t)) for t in T]
     for c in (conds[0], conds[-1]):
         _check_temperatures(spec, c)
-    lo_s = det.assembly_range[0] / det.target
-    hi_s = det.assembly_range[1] / det.target
-    asm_g, asm_b = det.assembly_gasket, det.passes[-1]
     Hp_n = det.app2.Hp / n
     A = spec.gasket.area / n
     states: list[State] = []
@@ -187,10 +184,7 @@ def flange_sweep(
     bolt = np.vstack([s.bolt for s in states])
     gasket = np.vstack([s.gasket for s in states])
     rot = np.array([float(s.rotation[0]) for s in states])
-    g_lo = (gasket - (1 - lo_s) * asm_g[None, :]).min(axis=1)
-    g_hi = (gasket + (hi_s - 1) * asm_g[None, :]).max(axis=1)
-    b_lo = (bolt - (1 - lo_s) * asm_b[None, :]).min(axis=1)
-    b_hi = (bolt + (hi_s - 1) * asm_b[None, :]).max(axis=1)
+    g_lo, g_hi, b_lo, b_hi = _extremes(det, gasket, bolt)
     T_all = np.array(
         [c.T_flange for c in conds] + ([c.T_flange for c in conds[::-1]] if cycle else [])
     )
@@ -203,7 +197,8 @@ def flange_sweep(
     )
     cyc = None
     if cycle:
-        cooled_lo = cooled.gasket - (1 - lo_s) * asm_g
+        cooled_lo = _extremes(det, cooled.gasket[None, :], cooled.bolt[None, :])[0][0]
+        relaxed_lo = _extremes(det, relaxed.gasket[None, :], relaxed.bolt[None, :])[0][0]
         cyc = {
             "peak_temperature_degC": float(T[-1] - C0),
             "relaxation_factor": P,
@@ -217,11 +212,9 @@ def flange_sweep(
             "gasket_creep_mm": (
                 (ring.creep if ring.creep is not None else np.zeros(n)) * 1e3
             ).tolist(),
-            "gasket_after_cycle_min_N": float(cooled_lo.min()),
+            "gasket_after_cycle_min_N": float(cooled_lo),
             "check": "gasket_heat_cycle",
-            "ok": bool(
-                cooled_lo.min() >= Hp_n and (relaxed.gasket - (1 - lo_s) * asm_g).min() >= Hp_n
-            ),
+            "ok": bool(cooled_lo >= Hp_n and relaxed_lo >= Hp_n),
         }
     notes = (
         "Each point: the assembled flange (nominal preload, after the pass sequence) at "
@@ -245,6 +238,23 @@ def flange_sweep(
         cycle=cyc,
         notes=notes,
         det=det,
+    )
+
+
+def _extremes(
+    det: FlangeResult, gasket: np.ndarray, bolt: np.ndarray
+) -> tuple[np.ndarray, np.ndarray, np.ndarray, np.ndarray]:
+    """Per point (rows of per-bolt loads at the nominal preload): the smallest and largest
+    sector gasket force and bolt load at the smallest and largest assembly preload, the
+    loss or gain from assembly taken at the nominal preload (as ``clampstack flange``)."""
+    lo_s = det.assembly_range[0] / det.target
+    hi_s = det.assembly_range[1] / det.target
+    asm_g, asm_b = det.assembly_gasket[None, :], det.passes[-1][None, :]
+    return (
+        (gasket - (1 - lo_s) * asm_g).min(axis=1),
+        (gasket + (hi_s - 1) * asm_g).max(axis=1),
+        (bolt - (1 - lo_s) * asm_b).min(axis=1),
+        (bolt + (hi_s - 1) * asm_b).max(axis=1),
     )
 
 
@@ -295,8 +305,6 @@ def _limits(
     """Pass/fail boundaries of each check on the heating branch, refined by Brent's method."""
     n = spec.bolt_count
     A = spec.gasket.area / n
-    lo_s = det.assembly_range[0] / det.target
-    hi_s = det.assembly_range[1] / det.target
     out: list[Limit] = []
     for name, mm in m.items():
         fail = mm < -1e-9
@@ -310,9 +318,7 @@ def _limits(
         def f(t: float, name: str = name) -> float:
             c = at_fraction(spec, t)
             st = solve_state(snapshot(det.ring), "point", c, split)
-            g_lo = np.array([(st.gasket - (1 - lo_s) * det.assembly_gasket).min()])
-            g_hi = np.array([(st.gasket + (hi_s - 1) * det.assembly_gasket).max()])
-            b_hi = np.array([(st.bolt + (hi_s - 1) * det.passes[-1]).max()])
+            g_lo, g_hi, _, b_hi = _extremes(det, st.gasket[None, :], st.bolt[None, :])
             mg = _margins(spec, g_lo, g_hi, b_hi, np.array([c.T_bolt]), det.app2.Hp / n, A)
             return float(mg[name][0])
 
