@@ -38,6 +38,7 @@ from ..flange.service import (
     Conditions,
     State,
     at_fraction,
+    creep_lost,
     loads,
     relax,
     relaxation_basis,
@@ -209,9 +210,7 @@ def flange_sweep(
                 _state_dict(cooled, "cooled", A),
                 _state_dict(shut, "shut_down", A),
             ],
-            "gasket_creep_mm": (
-                (ring.creep if ring.creep is not None else np.zeros(n)) * 1e3
-            ).tolist(),
+            "gasket_creep_mm": (creep_lost(ring) * 1e3).tolist(),
             "gasket_after_cycle_min_N": float(cooled_lo),
             "check": "gasket_heat_cycle",
             "ok": bool(cooled_lo >= Hp_n and relaxed_lo >= Hp_n),
