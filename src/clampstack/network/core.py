@@ -38,6 +38,7 @@ other with SuperLU.
 from __future__ import annotations
 
 import math
+import os
 from collections.abc import Sequence
 from dataclasses import dataclass, field
 
@@ -49,7 +50,14 @@ LINEAR, COMPRESSION, TENSION, CURVE = 0, 1, 2, 3
 BEHAVIOURS = {"linear": LINEAR, "compression": COMPRESSION, "tension": TENSION, "curve": CURVE}
 
 _EPS_SLOPE = 1e-10  # relative stiffness given to a slack part in the Newton matrix only
-_BAND_BUDGET = 6e7  # use the banded Cholesky when n * (band + 1)**2 stays below this
+_DENSE_MAX = 96  # free nodes up to which the matrix is factorised dense (numpy only)
+_BAND_FLOPS = 5e9  # banded Cholesky while n * (band + 1)**2 (its work) stays below this
+_SPARSE_ALWAYS = 20_000  # below this many free nodes a sparse direct solve is always cheap
+_LOCAL_BAND = 8.0  # band (after RCM) below this times sqrt(n): a local, mesh-like network
+_CG_RTOL = 1e-13  # relative residual (2-norm) at which the conjugate gradients stop
+_CG_MAXITER = 5000
+_EXTENDED_FROM = 2000  # free nodes from which a linear solve is refined in extended precision
+_EXTENDED = np.finfo(np.longdouble).eps < np.finfo(float).eps  # long double is wider here
 _MAX_ITER = 500
 _KINK = 1e-11  # relative residual accepted when a part sits on the kink of its law
 _POLISH = 1e-9  # one step of iterative refinement when the residual is above this (relative)
@@ -382,6 +390,23 @@ class Network:
                     float(np.max(np.abs(force), initial=0.0)),
                     1e-300,
                 )
+                if not nonlinear and nf >= _EXTENDED_FROM and _EXTENDED:
+                    # a long, weakly held network: residuals in double precision lose
+                    # digits to the large displacements; refine against residuals in
+                    # extended precision instead (mixed-precision iterative refinement,
+                    # Wilkinson 1963; Higham, Accuracy and Stability of Numerical
+                    # Algorithms, 2nd ed., ch. 12)
+                    for _ in range(4):
+                        r_ext = self._residual_extended(u, d0, f_ext)[free]
+                        if np.max(np.abs(r_ext), initial=0.0) <= 1e-15 * scale:
+                            break
+                        du[free] = solver.solve(s_mat, r_ext)
+                        u = u + du
+                        # stop once a correction only moves round-off
+                        if np.max(np.abs(du)) <= 1e-14 * np.max(np.abs(u)):
+                            break
+                    e, force, slope, resid, pot = state(u)
+                    break
                 # slack parts stiffened by _EPS_SLOPE bias the step slightly: polish harder
                 polish = _POLISH if not nonlinear else 1e-13
                 for _ in range(10 if nonlinear else 1):  # iterative refinement
@@ -430,6 +455,32 @@ class Network:
             residual=float(np.max(np.abs(resid), initial=0.0)),
             iterations=iterations,
         )
+
+    def _residual_extended(self, u: np.ndarray, d0: np.ndarray, f_ext: np.ndarray) -> np.ndarray:
+        """Out-of-balance force per node, ``F - B^T k (B u - d0)``, summed in extended
+        precision (numpy's long double) and rounded to double at the end."""
+        ld = np.longdouble
+        order = getattr(self, "_order_cache", None)
+        if order is None or order[0] is not self.i:
+            nodes = np.concatenate((self.j, self.i))
+            perm = np.argsort(nodes, kind="stable")
+            sorted_nodes = nodes[perm]
+            starts = np.flatnonzero(np.r_[True, sorted_nodes[1:] != sorted_nodes[:-1]])
+            order = (self.i, perm, starts, sorted_nodes[starts], self.k.astype(ld))
+            object.__setattr__(self, "_order_cache", order)
+        _, perm, starts, at, k_ld = order
+        # the difference of two neighbouring doubles is exact (Sterbenz), so only the
+        # products and sums need the wider type
+        e = (u[self.j] - u[self.i]).astype(ld)
+        if np.any(d0):
+            e -= d0.astype(ld)
+        force = k_ld * e
+        signed = np.concatenate((force, -force))[perm]
+        internal = np.zeros(self.n_nodes, dtype=ld)
+        internal[at] = np.add.reduceat(signed, starts)
+        resid = f_ext.astype(ld) - internal
+        resid[self.fixed] = 0
+        return resid.astype(float)
 
     def _explain_singular(self) -> None:
         """Called when a factorisation fails or looks singular: name a floating group."""
@@ -558,8 +609,27 @@ class Solution:
     iterations: int
 
 
+def _memory_budget() -> float:
+    """Bytes a banded factor may take: a quarter of the machine's memory, at most 4 GiB."""
+    try:
+        total = os.sysconf("SC_PHYS_PAGES") * os.sysconf("SC_PAGE_SIZE")
+    except (AttributeError, ValueError, OSError):  # pragma: no cover - not POSIX
+        total = 8 * 2**30
+    return min(total / 4, 4 * 2**30)
+
+
+def _banded_fits(nf: int, band: int) -> bool:
+    """Whether a banded Cholesky of ``nf`` unknowns and half band ``band`` is the right
+    solver: its work ``nf (band + 1)^2`` and its storage (factor plus a copy) fit."""
+    return nf * (band + 1) ** 2 <= _BAND_FLOPS and 16.0 * nf * (band + 1) <= _memory_budget()
+
+
 class _LinearSolver:
-    """Factorises ``B^T diag(s) B`` on the free nodes: banded Cholesky or SuperLU."""
+    """Solves ``B^T diag(s) B x = r`` on the free nodes by the method the size, band and
+    memory call for: dense Cholesky (a few nodes, numpy only), banded Cholesky (after
+    reverse Cuthill-McKee ordering when that narrows the band; hub nodes eliminated
+    by their Schur complement), sparse direct (SuperLU) for wide but local patterns, or
+    preconditioned conjugate gradients for non-local ones."""
 
     def __init__(self, nf: int, fi: np.ndarray, fj: np.ndarray, explain):
         self.nf = nf
@@ -570,26 +640,35 @@ class _LinearSolver:
         self.both = both
         self.perm: np.ndarray | None = None
         self.hubs: tuple[np.ndarray, ...] | None = None
+        self.method = "dense"
         band = int(np.max(np.abs(self.bi - self.bj), initial=0))
+        self.band = band
+        if nf <= _DENSE_MAX:
+            return  # numpy alone: no import of scipy's linear algebra for a small network
+        self.method = "banded"
         if band > 8 and nf > 16:
             self._find_hubs(nf, band)
             if self.hubs is not None:
-                self.band = band
+                self.method = "hubs"
                 return
-        if nf * (band + 1) ** 2 > _BAND_BUDGET and nf > 0:
-            from scipy.sparse import coo_array
-            from scipy.sparse.csgraph import reverse_cuthill_mckee
+        if _banded_fits(nf, band):
+            return
+        from scipy.sparse import coo_array
+        from scipy.sparse.csgraph import reverse_cuthill_mckee
 
-            g = coo_array((np.ones(self.bi.size), (self.bi, self.bj)), shape=(nf, nf)).tocsr()
-            perm = reverse_cuthill_mckee(g, symmetric_mode=False)
-            inv = np.empty(nf, dtype=np.int64)
-            inv[perm] = np.arange(nf)
-            band_rcm = int(np.max(np.abs(inv[self.bi] - inv[self.bj]), initial=0))
-            if nf * (band_rcm + 1) ** 2 <= _BAND_BUDGET:
-                self.perm, self.inv, band = perm, inv, band_rcm
-            else:
-                band = -1  # general sparse
-        self.band = band
+        g = coo_array((np.ones(self.bi.size), (self.bi, self.bj)), shape=(nf, nf)).tocsr()
+        perm = reverse_cuthill_mckee(g, symmetric_mode=False)
+        inv = np.empty(nf, dtype=np.int64)
+        inv[perm] = np.arange(nf)
+        band_rcm = int(np.max(np.abs(inv[self.bi] - inv[self.bj]), initial=0))
+        if _banded_fits(nf, band_rcm):
+            self.perm, self.inv, self.band = perm, inv, band_rcm
+        elif nf <= _SPARSE_ALWAYS or band_rcm <= _LOCAL_BAND * math.sqrt(nf):
+            # a wide but local structure (a plate-like mesh): sparse direct keeps its fill low
+            self.method, self.band = "sparse", -1
+        else:
+            # non-local couplings: any direct factor fills in; conjugate gradients instead
+            self.method, self.band = "iterative", -1
 
     def _find_hubs(self, nf: int, band: int) -> None:
         """Nodes coupled to very many others (a common node of many parts, such as one
@@ -664,6 +743,10 @@ class _LinearSolver:
         diag = np.bincount(fi[fi >= 0], s[fi >= 0], nf) + np.bincount(fj[fj >= 0], s[fj >= 0], nf)
         sb = s[self.both]
         bi, bj = self.bi, self.bj
+        if self.method == "dense":
+            return self._dense(diag, bi, bj, sb, rhs)
+        if self.method == "iterative":
+            return self._iterative(diag, bi, bj, sb, rhs)
         if self.hubs is not None:
             try:
                 x = self._with_hubs(diag, sb, rhs)
@@ -673,6 +756,9 @@ class _LinearSolver:
                 pass
             self.explain()
             return self._sparse(diag, bi, bj, sb, rhs)
+        # the same matrix again (iterative refinement): reuse the banded factor
+        self._reuse = s is getattr(self, "_last_s", None)
+        self._last_s = s
         if self.band >= 0:
             if self.perm is not None:
                 diag, bi, bj, rhs = diag[self.perm], self.inv[bi], self.inv[bj], rhs[self.perm]
@@ -684,10 +770,107 @@ class _LinearSolver:
             return x
         return self._sparse(diag, bi, bj, sb, rhs)
 
+    def _dense(self, diag, bi, bj, sb, rhs) -> np.ndarray:
+        """A few free nodes: dense Cholesky test and solve with numpy alone."""
+        nf = self.nf
+        flat = np.concatenate((bi * nf + bj, bj * nf + bi))
+        mat = np.diag(np.asarray(diag, dtype=float))
+        if flat.size:
+            mat += np.bincount(flat, np.concatenate((-sb, -sb)), nf * nf).reshape(nf, nf)
+        try:
+            low = np.linalg.cholesky(mat)
+            if np.min(np.diag(low)) ** 2 <= 1e-14 * max(float(diag.max()), 1e-300):
+                self.explain()  # a tiny pivot: a floating group or merely ill-conditioned
+        except np.linalg.LinAlgError:
+            # not positive definite to round-off (parts of very different stiffness):
+            # unless a group floats, an LU solve with pivoting still answers
+            self.explain()
+        try:
+            x = np.linalg.solve(mat, rhs)
+        except np.linalg.LinAlgError:
+            x = np.full(nf, np.nan)
+        if not np.all(np.isfinite(x)):
+            self.explain()
+            raise SolveError("the stiffness matrix is singular (a mechanism)")
+        return x
+
+    def _iterative(self, diag, bi, bj, sb, rhs) -> np.ndarray:
+        """Conjugate gradients (Hestenes & Stiefel, 1952) with a two-level additive
+        preconditioner: Jacobi on every node plus an exact correction of each connected
+        group's rigid translation (the mode a network held at few supports is soft in;
+        the coarse space of two-level Schwarz / aggregation methods, e.g. Saad,
+        *Iterative Methods for Sparse Linear Systems*, 2nd ed., ch. 13-14).  For a
+        network whose parts join distant nodes the remaining spectrum is narrow, so
+        the iteration count hardly grows with size."""
+        from scipy.sparse import csr_array
+
+        nf = self.nf
+        rows = np.concatenate((bi, bj))
+        cols = np.concatenate((bj, bi))
+        mat = csr_array((np.concatenate((-sb, -sb)), (rows, cols)), shape=(nf, nf))
+        mat.sum_duplicates()
+        label, count = self._groups()
+        # stiffness of each group to the supports: z^T K z for the group's indicator z
+        ground = diag - np.bincount(bi, sb, nf) - np.bincount(bj, sb, nf)
+        coarse = np.bincount(label, ground, count)
+        if np.any(coarse <= 1e-12 * np.bincount(label, diag, count)):
+            self.explain()
+        inv_d = 1.0 / diag
+
+        def precondition(r: np.ndarray) -> np.ndarray:
+            return inv_d * r + (np.bincount(label, r, count) / coarse)[label]
+
+        def apply(x: np.ndarray) -> np.ndarray:
+            return diag * x + mat @ x
+
+        x = np.zeros(nf)
+        r = np.array(rhs, dtype=float)
+        target = _CG_RTOL * float(np.linalg.norm(r))
+        z = precondition(r)
+        p = z.copy()
+        rz = float(r @ z)
+        for it in range(_CG_MAXITER):
+            if float(np.linalg.norm(r)) <= target:
+                break
+            q = apply(p)
+            pq = float(p @ q)
+            if not pq > 0:
+                self.explain()
+                raise SolveError("the stiffness matrix is singular (a mechanism)")
+            alpha = rz / pq
+            x += alpha * p
+            r -= alpha * q
+            if it % 50 == 49:
+                r = rhs - apply(x)  # replace the recurrence's residual by the true one
+            z = precondition(r)
+            rz_new = float(r @ z)
+            p *= rz_new / rz
+            p += z
+            rz = rz_new
+        else:
+            return self._sparse(diag, bi, bj, sb, rhs)  # did not converge: direct after all
+        self.iterations = it
+        return x
+
+    def _groups(self) -> tuple[np.ndarray, int]:
+        """Connected groups of the free nodes (cached: the pattern never changes)."""
+        cached = getattr(self, "_group_cache", None)
+        if cached is None:
+            from scipy.sparse import coo_array
+            from scipy.sparse.csgraph import connected_components
+
+            g = coo_array((np.ones(self.bi.size), (self.bi, self.bj)), shape=(self.nf, self.nf))
+            count, label = connected_components(g, directed=False)
+            cached = self._group_cache = (label, int(count))
+        return cached
+
     def _banded(self, diag, bi, bj, sb, rhs) -> np.ndarray:
         from scipy.linalg.lapack import dpbtrf, dpbtrs
 
         b, nf = self.band, self.nf
+        if getattr(self, "_reuse", False) and getattr(self, "_factor", None) is not None:
+            self._reuse = False
+            return dpbtrs(self._factor, rhs, lower=0)[0]
         ab = np.zeros((b + 1, nf))
         ab[b] = diag
         if b > 0 and bi.size:
@@ -704,6 +887,8 @@ class _LinearSolver:
         if pivots.min() <= 1e-14 * max(float(diag.max()), 1e-300):
             self.explain()  # a tiny pivot: either a floating group or merely ill-conditioned
         x, info = dpbtrs(c, rhs, lower=0)
+        if self.hubs is None:
+            self._factor = c
         return x
 
     def _sparse(self, diag, bi, bj, sb, rhs) -> np.ndarray:

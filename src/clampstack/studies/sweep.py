@@ -423,8 +423,6 @@ def _check_range(prep: Prepared, T: np.ndarray) -> None:
 
 def _limits(prep: Prepared, T: np.ndarray, m: dict[str, np.ndarray], active: list[str]) -> tuple:
     """Pass/fail boundaries of every check, refined by Brent's method on the margin."""
-    from scipy.optimize import brentq
-
     out = []
     for name in active:
         mm = m[name]
@@ -435,6 +433,8 @@ def _limits(prep: Prepared, T: np.ndarray, m: dict[str, np.ndarray], active: lis
             out.append(Limit(name, float(T[0]), "whole range"))
             continue
         idx = np.flatnonzero(fail[1:] != fail[:-1])
+        if idx.size:
+            from scipy.optimize import brentq  # only when a margin changes sign
         for i in idx:
 
             def f(t: float, name: str = name) -> float:
