@@ -157,3 +157,31 @@ def test_no_silently_dropped_text(text, kind, words):
 )
 def test_ordinary_units_still_read(text, kind, si):
     assert parse_quantity(text, kind) == pytest.approx(si)
+
+
+def test_a_damaged_unit_cache_is_rebuilt_not_bypassed(tmp_path, capsys):
+    # common practice, no source: a cache that fails to load is deleted and written again
+    from clampstack.units import build_registry
+
+    folder = tmp_path / "pint-cache"
+    build_registry(folder)
+    files = sorted(folder.iterdir())
+    assert files
+    for f in files:
+        f.write_text("garbage")
+    ureg = build_registry(folder)
+    assert ureg.Quantity(1, "inch").to("mm").magnitude == pytest.approx(25.4)
+    assert all(f.read_bytes() != b"garbage" for f in sorted(folder.iterdir()))
+    assert capsys.readouterr().err == ""
+    build_registry(folder)  # and it now loads from the rebuilt cache
+    assert capsys.readouterr().err == ""
+
+
+def test_an_unwritable_unit_cache_is_reported(tmp_path, capsys):
+    from clampstack.units import build_registry
+
+    blocker = tmp_path / "file"
+    blocker.write_text("not a folder")
+    ureg = build_registry(blocker / "pint-cache")
+    assert ureg.Quantity(1, "inch").to("mm").magnitude == pytest.approx(25.4)
+    assert "unit cache" in capsys.readouterr().err

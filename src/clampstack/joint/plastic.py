@@ -94,6 +94,7 @@ def permanent_loss_cycle(
         fz = prep.embedding_amount if embed else 0.0
         plastic = {"bolt": 0.0, "head": 0.0, "nut": 0.0}
         trace = []
+        u_prev = None  # each step starts from the previous state (fewer Newton steps)
         for T, F in zip(path_T, path_F, strict=True):
             dS, dP = (float(x) for x in model.resiliences(T))
             thb, thc = (float(x) for x in model.thermal(T))
@@ -123,7 +124,9 @@ def permanent_loss_cycle(
             net.curves = curves
             loads = np.zeros(net.n_nodes)
             loads[jn.load_node] = F
-            sol = net.solve(loads)
+            start = u_prev if u_prev is not None and u_prev.size == net.n_nodes else None
+            sol = net.solve(loads, start=start)
+            u_prev = sol.displacement
             e = sol.elongation - net.free_elongation
             for p, (name, yt, yc, _, _) in laws.items():
                 new = update_plastic(
