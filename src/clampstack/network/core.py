@@ -30,9 +30,11 @@ piecewise linear; they are solved by a semi-smooth Newton (active-set)
 iteration with a backtracking line search on the total potential energy, which
 is convex because every part's force rises with its elongation.  The
 iteration stops with :class:`SolveError` if a state repeats or the iteration
-limit is reached.  A stiffness matrix with a small band (a chain, a bolt beside
-a clamped stack) is factorised as a banded Cholesky (LAPACK ``pbsv``), any
-other with SuperLU.
+limit is reached.  The linear solver is chosen by size, band and memory
+(:class:`_LinearSolver`): dense for a few nodes, banded Cholesky (LAPACK
+``pbtrf``) while it fits, SuperLU for wide local patterns, preconditioned
+conjugate gradients for non-local ones; long linear networks are refined
+against residuals in extended precision.
 """
 
 from __future__ import annotations
