@@ -382,7 +382,14 @@ class Ring:
             # a bolt being tightened carries exactly its target: a constant-force law
             beh[b] = CURVE
         net.behaviour = beh
-        net.curve_table = self.gasket_table(gparts, held)
+        # the table changes only with the unloading history and the held bolts: reuse it
+        key = (self.c_max.tobytes(), tuple(held))
+        cached = getattr(self, "_table_cache", None)
+        if cached is None or cached[0] != key:
+            cached = self._table_cache = (key, self.gasket_table(gparts, held))
+        else:
+            self.table_reuses = getattr(self, "table_reuses", 0) + 1
+        net.curve_table = cached[1]
         loads = np.zeros(self.n_nodes)
         loads[self.node_F] += loads_F
         if rot:
