@@ -2,7 +2,12 @@
 
 from __future__ import annotations
 
-import time
+import sys
+from pathlib import Path
+
+sys.path.insert(0, str(Path(__file__).resolve().parent))
+
+import _timing as T  # noqa: E402
 
 
 def spec96():
@@ -47,11 +52,12 @@ def main() -> None:
         ring = build_ring(spec)
         simulate_passes(ring, np.full(96, 200e3), spec.passes, orders)
 
-    best = min(_time(passes) for _ in range(3))
-    full = min(_time(lambda: analyse_flange(spec)) for _ in range(2))
-    print("\nflange")
-    print(f"  96 bolts, 4 passes (384 tightening steps)   {best * 1e3:8.1f} ms (target <= 200 ms)")
-    print(f"  whole flange analysis of the same flange     {full * 1e3:8.1f} ms")
+    sec = "flange"
+    print(f"\n{sec}")
+    T.report(sec, "96 bolts, 4 passes (384 tightening steps)", T.measure(passes), 0.2)
+    T.report(
+        sec, "whole flange analysis of the same flange", T.measure(lambda: analyse_flange(spec))
+    )
     studies()
 
 
@@ -78,22 +84,12 @@ def studies(runs: int = 5) -> None:
         ),
         ("scatter, hot-oil flange, 10 000 samples", lambda: flange_scatter(hot, 10_000), None),
     ]
-    print(f"  flange studies, median (min .. max) of {runs} runs, interleaved:")
     times: dict[str, list[float]] = {name: [] for name, _, _ in jobs}
     for _ in range(runs):
         for name, fn, _ in jobs:
-            times[name].append(_time(fn))
+            times[name].append(T.timed(fn))
     for name, _, target in jobs:
-        t = sorted(times[name])
-        med = t[len(t) // 2]
-        goal = f" (target < {target:g} s)" if target else ""
-        print(f"    {name:50s} {med:7.3f} s ({t[0]:.3f} .. {t[-1]:.3f}){goal}")
-
-
-def _time(fn) -> float:
-    t = time.perf_counter()
-    fn()
-    return time.perf_counter() - t
+        T.report("flange", f"study: {name}", T.stat(times[name]), target)
 
 
 if __name__ == "__main__":

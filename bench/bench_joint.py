@@ -2,19 +2,13 @@
 
 from __future__ import annotations
 
-import time
+import sys
 from pathlib import Path
 
 ROOT = Path(__file__).resolve().parents[1]
+sys.path.insert(0, str(ROOT / "bench"))
 
-
-def best_of(fn, repeat: int = 7) -> float:
-    times = []
-    for _ in range(repeat):
-        t = time.perf_counter()
-        fn()
-        times.append(time.perf_counter() - t)
-    return min(times)
+import _timing as T  # noqa: E402
 
 
 def main() -> None:
@@ -26,29 +20,29 @@ def main() -> None:
     from clampstack.studies.sweep import _evaluate, sweep
 
     _, spec = read_joint_file(str(ROOT / "examples" / "gearbox-cover-cold-to-hot.toml"))
-    t_check = best_of(lambda: analyse(spec))
+    t_check = T.measure(lambda: analyse(spec))
     lo, hi = 273.15 - 40, 273.15 + 150
     step = (hi - lo) / 999
-    t_sweep = best_of(lambda: sweep(spec, lo, hi, step))
+    t_sweep = T.measure(lambda: sweep(spec, lo, hi, step))
     prep = prepare(spec)
-    T = np.linspace(lo, hi, 1000)
-    t_chain = best_of(lambda: _evaluate(prep, T))
+    Tk = np.linspace(lo, hi, 1000)
+    t_chain = T.measure(lambda: _evaluate(prep, Tk))
     from clampstack.inputs.joint import read_joint_file
     from clampstack.studies.size import size
 
     _, base = read_joint_file(str(ROOT / "examples" / "m16-through-bolt-alternating.toml"))
-    t_size = best_of(lambda: size(base), 3)
+    t_size = T.measure(lambda: size(base))
     res = size(base)
-    print("\njoint")
-    print(f"  check of one joint (network states, checks, heat cycle)  {t_check * 1e3:8.2f} ms")
-    print(
-        f"  sweep, 1,000 temperature points, full check chain      {t_sweep * 1e3:8.2f} ms "
-        "(target <= 50 ms)"
-    )
-    print(f"    of which the vectorised states and margins           {t_chain * 1e3:8.2f} ms")
-    print(
-        f"  sizing over the catalog ({res.candidates} candidates, {res.evaluated} checked)"
-        f"  {t_size * 1e3:8.1f} ms (target <= 200 ms)"
+    sec = "joint"
+    print(f"\n{sec}")
+    T.report(sec, "check of one joint (states, checks, heat cycle)", t_check)
+    T.report(sec, "sweep, 1,000 temperature points, full check chain", t_sweep, 0.05)
+    T.report(sec, "of which the vectorised states and margins", t_chain)
+    T.report(
+        sec,
+        f"sizing over the catalog ({res.candidates} candidates, {res.evaluated} checked)",
+        t_size,
+        0.2,
     )
 
 

@@ -4,7 +4,6 @@ numpy floor, >= 20x faster per sample than a plain Python loop; 1e8 samples <= 5
 from __future__ import annotations
 
 import math
-import resource
 import subprocess
 import sys
 import time
@@ -13,30 +12,23 @@ from pathlib import Path
 import numpy as np
 
 ROOT = Path(__file__).resolve().parents[1]
+sys.path.insert(0, str(ROOT / "bench"))
 EXAMPLE = str(ROOT / "examples" / "m16-through-bolt-alternating.toml")
 
-
-def best(fn, repeat=5):
-    out = []
-    for _ in range(repeat):
-        t = time.perf_counter()
-        fn()
-        out.append(time.perf_counter() - t)
-    return min(out)
+import _timing as T  # noqa: E402
 
 
 def main() -> None:
     from clampstack.inputs.joint import read_joint_file
     from clampstack.joint.prepare import service_closed_form
-    from clampstack.studies.scatter import _draw, evaluate, make_chain
+    from clampstack.studies.scatter import _draw, evaluate, make_chain, scatter
 
     _, spec = read_joint_file(EXAMPLE)
     chain = make_chain(spec, spec.distributions or {})
     n = 10**6
     rng = np.random.default_rng(1)
     x = _draw(chain, rng, n)
-    t_chain = best(lambda: evaluate(chain, x, n))
-    t_draw = best(lambda: _draw(chain, np.random.default_rng(1), n))
+    t_draw = T.measure(lambda: _draw(chain, np.random.default_rng(1), n))
 
     # the floor: the same formulas written out bare, with the same inputs
     p = chain.prep
@@ -50,7 +42,7 @@ def main() -> None:
     FA_hi, FA_lo = spec.service.axial_load[1], spec.service.axial_load[0]
     Wp = math.pi * p.d0**3 / 16
 
-    def floor():
+    def floor(x=x):
         FM = T0 * x.get("torque_factor", 1.0) / DKm_k(x["thread_friction"], x["head_friction"])
         FV = (FM * (dSa + dPa) - p.embedding_amount - (thb - thc)) / (dS + dP)
         FS, FK = service_closed_form(FV, phi, FA_hi)
@@ -59,8 +51,6 @@ def main() -> None:
         s1 = np.sqrt((FM / p.A0) ** 2 + 3 * tau**2)
         s2 = np.sqrt((np.maximum(FS, FS2) / p.A0) ** 2 + 0.75 * tau**2)
         return (s1 > 6.4e8) | (s2 > 6.4e8), np.minimum(FK, FK2) * 0.2 < 2500
-
-    t_floor = best(floor)
 
     def python_loop(m=20000):
         out = 0
@@ -77,18 +67,37 @@ def main() -> None:
             out += (s1 > 6.4e8) or (s2 > 6.4e8) or (max(FK, 0) * 0.2 < 2500)
         return out
 
-    t_loop = best(python_loop, 2) / 20000 * n
-    print("\nscatter (1e6 samples, one core)")
-    print(f"  full chain, vectorised            {t_chain * 1e3:8.1f} ms (target <= 100 ms)")
-    print(f"  random draws for the chain        {t_draw * 1e3:8.1f} ms")
-    print(
-        f"  bare numpy floor, same formulas   {t_floor * 1e3:8.1f} ms  "
-        f"(chain / floor = {t_chain / t_floor:.2f}, target <= 3)"
+    sec = "scatter"
+    print(f"\n{sec} (one core)")
+    m = 20000
+
+    def chain_m():
+        xm = {key: v[:m] for key, v in x.items()}
+        return evaluate(chain, xm, m)
+
+    t_c, t_f, r_floor = T.interleaved(lambda: evaluate(chain, x, n), floor)
+    T.report(sec, "full chain, vectorised, 1e6 samples", t_c, 0.1)
+    T.report(sec, "random draws for the chain, 1e6 samples", t_draw)
+    T.report(sec, "bare numpy floor, same formulas, 1e6 samples", t_f)
+    T.report_ratio(
+        "ratios",
+        "bare numpy floor / chain, 1e6 samples (chain within 3x: >= 0.333)",
+        r_floor,
+        1 / 3,
+        le=False,
     )
-    print(
-        f"  plain Python loop (extrapolated)  {t_loop * 1e3:8.0f} ms  "
-        f"(loop / chain = {t_loop / t_chain:.0f}x, target >= 20x)"
-    )
+    t_c2, t_l, r_loop = T.interleaved(chain_m, python_loop)
+    T.report(sec, f"plain Python loop, {m:,d} samples", t_l)
+    T.report_ratio("ratios", f"Python loop / chain, {m:,d} samples", r_loop, 20, le=False)
+
+    # the whole scatter study at 1e4 samples vs the bare numpy chain at 1e4 samples
+    n4 = 10**4
+    x4 = {key: v[:n4] for key, v in x.items()}
+    dists = spec.distributions or {}
+    t_f4, t_s4, r_s = T.interleaved(lambda: floor(x4), lambda: scatter(spec, dists, n4, seed=1))
+    T.report(sec, "scatter study, 1e4 samples", t_s4)
+    T.report(sec, "bare numpy chain, 1e4 samples", t_f4)
+    T.report_ratio("ratios", "scatter study / bare numpy, 1e4 samples", r_s, 3.0)
     t = time.perf_counter()
     code = (
         "import resource;from clampstack.inputs.joint import read_joint_file;"
@@ -99,11 +108,12 @@ def main() -> None:
     )
     rss = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, check=True)
     el = time.perf_counter() - t
-    print(
-        f"  1e8 samples, whole study           {el:8.1f} s, peak memory "
-        f"{int(rss.stdout.strip()) / 1024:.0f} MB (target <= 500 MB)"
+    mb = int(rss.stdout.strip()) / 1024
+    T.note(
+        sec,
+        "1e8 samples, whole study (one run)",
+        f"{el:.1f} s, peak memory {mb:.0f} MB (target <= 500 MB) {T.status(mb, 500)}",
     )
-    _ = resource
 
 
 if __name__ == "__main__":
