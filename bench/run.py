@@ -303,14 +303,14 @@ def main() -> None:
     ):
         path = f"examples/{ex}"
         ta, tb, r = T.interleaved(
-            lambda: T.process(py), lambda p=path: T.process(T.cli("check", p))
+            lambda: T.process(py), lambda p=path, c=cmd: T.process(T.cli(c, p))
         )
         T.report(sec, "python -c 'import numpy, pint'", ta)
         T.report(sec, f"clampstack {cmd} {ex}", tb)
         T.report_ratio("ratios", f"{cmd} {ex} / import numpy, pint (process)", r, 1.3)
         with tempfile.TemporaryDirectory() as tmp:
             ta, tb, r = T.interleaved(
-                lambda p=path: T.process(T.cli("check", p)),
+                lambda p=path, c=cmd: T.process(T.cli(c, p)),
                 lambda p=path, d=tmp: T.process(T.cli("report", p, "-o", d)),
             )
         T.report(sec, f"clampstack report {ex} -o <tmp>", tb)
