@@ -57,10 +57,13 @@ PROCESS_ENV = {k: v for k, v in os.environ.items() if k != "PYTHONDONTWRITEBYTEC
 def process(args: list[str], timeout: float | None = None) -> float:
     """Whole-process wall time [s] (imports included, bytecode cache in use)."""
     t = time.perf_counter()
-    subprocess.run(
+    out = subprocess.run(
         args, capture_output=True, cwd=ROOT, check=False, timeout=timeout, env=PROCESS_ENV
     )
-    return time.perf_counter() - t
+    el = time.perf_counter() - t
+    if out.returncode >= 2:  # 1 is a failed check, a result; 2 and up time an error
+        raise RuntimeError(f"{' '.join(args)} exited {out.returncode}: {out.stderr[-300:]!r}")
+    return el
 
 
 def cli(*args: str) -> list[str]:
