@@ -263,3 +263,27 @@ def test_help_does_not_import_matplotlib():
     )
     out = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, check=True)
     assert "MPL False" in out.stdout
+
+
+def test_report_figures_keep_their_text_as_text(tmp_path):
+    """The report's inline SVG figures carry labels as <text>, not glyph outlines."""
+    import re
+
+    from click.testing import CliRunner
+
+    from clampstack.cli import main
+    from conftest import EXAMPLES
+
+    res = CliRunner().invoke(
+        main, ["report", str(EXAMPLES / "m16-through-bolt-alternating.toml"), "-o", str(tmp_path)]
+    )
+    assert res.exit_code == 0, res.output
+    html = (tmp_path / "m16-through-bolt-alternating.html").read_text(encoding="utf-8")
+    svgs = re.findall(r"<svg\b.*?</svg>", html, flags=re.S)
+    assert len(svgs) >= 3
+    for svg in svgs:
+        assert "<text" in svg
+        assert 'id="DejaVuSans' not in svg and "DejaVuSans-" not in svg  # no glyph defs
+    texts = " ".join(re.findall(r"<text\b[^>]*>(.*?)</text>", html, flags=re.S))
+    assert "working load F_A" in texts
+    assert "F_M,min" in texts

@@ -158,8 +158,8 @@ def joint_diagram(result: JointResult, units: str = "si") -> Figure:
         def clamped(F: float, gid: str, **kw: Any):
             return _line(ax, [X(F * dS), X(F * (dS + dP))], [Y(F), 0.0], gid, **kw)
 
-        clamped(FMmax, "clamped-max", color=CLAMP, lw=2.0, label="clamped parts at $F_{M,max}$")
-        clamped(FMmin, "clamped-min", color=CLAMP, lw=2.0, ls=(0, (5, 2)), label="at $F_{M,min}$")
+        clamped(FMmax, "clamped-max", color=CLAMP, lw=2.0, label="clamped parts at F_M,max")
+        clamped(FMmin, "clamped-min", color=CLAMP, lw=2.0, ls=(0, (5, 2)), label="at F_M,min")
         clamped(FV, "clamped-embedded", color=EMBED, lw=1.3, label="after embedding")
         if thermal:
             clamped(
@@ -179,13 +179,13 @@ def joint_diagram(result: JointResult, units: str = "si") -> Figure:
 
         # preload levels: dotted from the force axis to their point on the bolt line
         levels = [
-            ("FMzul", "$F_{M,zul}$", result.permissible_preload, LIMIT),
-            ("FMmax", "$F_{M,max}$", FMmax, CLAMP),
-            ("FMmin", "$F_{M,min}$", FMmin, CLAMP),
-            ("FV", "$F_V$", FV, EMBED),
+            ("FMzul", "F_M,zul", result.permissible_preload, LIMIT),
+            ("FMmax", "F_M,max", FMmax, CLAMP),
+            ("FMmin", "F_M,min", FMmin, CLAMP),
+            ("FV", "F_V", FV, EMBED),
         ]
         if thermal:
-            levels.append(("FVT", "$F_{V,T}$", FVT, THERMAL))
+            levels.append(("FVT", "F_V,T", FVT, THERMAL))
         for key, _, F, c in levels[1:]:
             _line(ax, [0, X(F * dS)], [Y(F)] * 2, f"level-{key}", color=c, lw=0.7, ls=":")
         ylim = ax.get_ylim()[1]
@@ -210,14 +210,14 @@ def joint_diagram(result: JointResult, units: str = "si") -> Figure:
                 color=color,
             )
 
-        change(FMmin, FV, EMBED, "arrow-FZ", "$F_Z$")
+        change(FMmin, FV, EMBED, "arrow-FZ", "F_Z")
         if FV > 0:
             y0 = 0.035 * Y(F_top)
             xa, xb = X(FV * (dS + dP)), X(FMmin * (dS + dP))
             _arrow(ax, (xa - y0 * X(dP) / Y(1.0), y0), (xb - y0 * X(dP) / Y(1.0), y0), EMBED, "f_Z")
-            ax.text(0.5 * (xa + xb), 2.2 * y0, "$f_Z$", color=EMBED, ha="center", va="bottom")
+            ax.text(0.5 * (xa + xb), 2.2 * y0, "f_Z", color=EMBED, ha="center", va="bottom")
         if thermal:
-            change(FV, FVT, THERMAL, "arrow-dFth", r"$\Delta F_{V,th}$")
+            change(FV, FVT, THERMAL, "arrow-dFth", "ΔF_V,th")
 
         # working load: the detail panel, and its outline on the main panel
         a_side = dSs + (1.0 - n) * dPs  # springs the bolt-side share of F_A acts on
@@ -272,29 +272,29 @@ def joint_diagram(result: JointResult, units: str = "si") -> Figure:
         closed = FA <= Fsep  # the interface still carries at the maximum working load
         av.set_axis_off()
         rows = [
-            ("FMmax", "$F_{M,max}$", FMmax),
-            ("FMmin", "$F_{M,min}$", FMmin),
-            ("FZ", "$F_Z$", result.embedding_loss),
-            ("dFth", r"$\Delta F_{V,th}$", result.thermal_change),
-            ("FVT", "$F_{V,T}$" if thermal else "$F_V$", FVT),
-            ("FA", "$F_{A,max}$", FA),
+            ("FMmax", "F_M,max", FMmax),
+            ("FMmin", "F_M,min", FMmin),
+            ("FZ", "F_Z", result.embedding_loss),
+            ("dFth", "ΔF_V,th", result.thermal_change),
+            ("FVT", "F_V,T" if thermal else "F_V", FVT),
+            ("FA", "F_A,max", FA),
             # the bolt load increase and clamp load decrease under F_A (VDI 2230-1 F_SA, F_PA):
             # Phi_n F_A and (1 - Phi_n) F_A while the joint stays closed
-            ("FSA", r"$F_{SA} = \Phi_n F_A$" if closed else "$F_{SA}$ (open)", svc.bolt_min - FVT),
+            ("FSA", "F_SA = Φ_n·F_A" if closed else "F_SA (open)", svc.bolt_min - FVT),
             (
                 "FPA",
-                r"$F_{PA} = (1-\Phi_n) F_A$" if closed else "$F_{PA}$ (open)",
+                "F_PA = (1 − Φ_n)·F_A" if closed else "F_PA (open)",
                 FVT - svc.clamp_min,
             ),
-            ("FKR", "$F_{KR,min}$", svc.clamp_min),
-            ("FA,sep", "$F_{A,sep}$", Fsep),
+            ("FKR", "F_KR,min", svc.clamp_min),
+            ("FA,sep", "F_A,sep", Fsep),
         ]
         if result.eccentric is not None:
             e = result.eccentric
-            rows[-1] = ("FKab", "$F_{Kab}$", e["opening_clamp_load_N"] or 0.0)
+            rows[-1] = ("FKab", "F_Kab", e["opening_clamp_load_N"] or 0.0)
             closed = not e["opened"]
-            rows[6] = ("FSA", "$F_{SA}$" + ("" if closed else " (open)"), svc.bolt_min - FVT)
-            rows[7] = ("FPA", "$F_{PA}$" + ("" if closed else " (open)"), FVT - svc.clamp_min)
+            rows[6] = ("FSA", "F_SA" + ("" if closed else " (open)"), svc.bolt_min - FVT)
+            rows[7] = ("FPA", "F_PA" + ("" if closed else " (open)"), FVT - svc.clamp_min)
         tiny = 1e-9 * FMmax  # round-off of differences of states: show as zero
         rows = [(k, sym, 0.0 if abs(v) < tiny else v) for k, sym, v in rows]
         step = 1.0 / (len(rows) + 1.5)
@@ -312,8 +312,8 @@ def joint_diagram(result: JointResult, units: str = "si") -> Figure:
                 ha="right",
                 color=INK,
             ).set_gid(f"value-{key}")
-        sym = r"$\Phi_{en}^*$" if result.eccentric is not None else r"$\Phi_n$"
-        note = rf"{sym} = {phi:.4g} (n = {n:.3g}); {T0:.4g} → {T1:.4g} {TS}"
+        sym = "Φ*_en" if result.eccentric is not None else "Φ_n"
+        note = f"{sym} = {phi:.4g} (n = {n:.3g}); {T0:.4g} → {T1:.4g} {TS}"
         av.text(
             0.02,
             1.0 - (len(rows) + 0.6) * step,
@@ -355,7 +355,7 @@ def _service_panel(
     svc = _state(result, "service_max")
     FVT = _state(result, "temperature").bolt_min
     FA = svc.axial_load
-    az.set_title("Working load, $F_{M,min}$ branch", fontsize=8.5)
+    az.set_title("Working load, F_M,min branch", fontsize=8.5)
     az.set_xlabel(f"elongation [{xl}]", fontsize=7.5)
     x0, x1, _, ytop = box
     # the bolt line and the current clamped-parts line through the preload point
@@ -414,7 +414,7 @@ def _service_panel(
         az.text(
             xA + 0.02 * w,
             Y(0.5 * (svc.clamp_min + svc.bolt_min)),
-            " $F_A$",
+            " F_A",
             color=LOAD,
             va="center",
             fontsize=8.5,
@@ -424,7 +424,7 @@ def _service_panel(
     if e is None:
         az.plot([x_sep], [Y(Fsep)], "o", ms=5, mfc="white", mec=LIMIT, mew=1.4, gid="separation")
         az.annotate(
-            "$F_{A,sep}$",
+            "F_A,sep",
             (x_sep, Y(Fsep)),
             xytext=(6, 2),
             textcoords="offset points",
@@ -440,7 +440,7 @@ def _service_panel(
         az.plot([xo, xo], [yb, yk], "o", ms=5, mfc="white", mec=LIMIT, mew=1.4, gid="opening")
         az.plot([xo, xo], [yb, yk], color=LIMIT, lw=0.8, ls=":")
         az.annotate(
-            "$F_{A,ab}$",
+            "F_A,ab",
             (xo, yb),
             xytext=(6, 2),
             textcoords="offset points",
@@ -449,7 +449,7 @@ def _service_panel(
             va="bottom",
         )
         az.annotate(
-            "$F_{Kab}$",
+            "F_Kab",
             (xo, yk),
             xytext=(6, -2),
             textcoords="offset points",
@@ -459,7 +459,7 @@ def _service_panel(
         )
     az.plot([xP], [Y(FVT)], "o", ms=3.5, color=INK, gid="preload-point")
     az.annotate(
-        "$F_{V,T}$" if thermal else "$F_V$",
+        "F_V,T" if thermal else "F_V",
         (xP, Y(FVT)),
         xytext=(-10, 0),
         textcoords="offset points",
@@ -473,7 +473,7 @@ def _service_panel(
     if rq > 0 and Y(rq) < ytop:
         az.axhline(Y(rq), color=GOOD, lw=0.8, ls=(0, (4, 2)))
         az.get_lines()[-1].set_gid("required-clamp-load")
-        az.text(x0 + 0.02 * (x1 - x0), Y(rq), "$F_{K,erf}$", color=GOOD, va="bottom", fontsize=7.5)
+        az.text(x0 + 0.02 * (x1 - x0), Y(rq), "F_K,erf", color=GOOD, va="bottom", fontsize=7.5)
 
 
 # --------------------------------------------------------------------------- load curves
@@ -504,14 +504,14 @@ def bolt_load_plot(result: JointResult, units: str = "si", n_points: int = 61) -
             "Bolt load and clamp load against the working load "
             f"({UNIT_SYSTEMS[units].temp(s.service.temperature):.4g} {UNIT_SYSTEMS[units].temp_symbol})"
         )
-        ax.set_xlabel(f"working load $F_A$ [{fl}]")
+        ax.set_xlabel(f"working load F_A [{fl}]")
         ax.set_ylabel(f"force [{fl}]")
         if FA_hi != FA_lo:
             ax.axvspan(FA_lo / ff, FA_hi / ff, color=LOAD, alpha=0.08, lw=0)
         ax.axvline(FA_hi / ff, color=LOAD, lw=0.9, ls=(0, (4, 2)))
         ax.get_lines()[-1].set_gid("FA-max")
         x = lo.axial_load / ff
-        ax.plot(x, x, color=MUTED, lw=0.7, ls=":", gid="FS=FA", label="$F_S = F_A$")
+        ax.plot(x, x, color=MUTED, lw=0.7, ls=":", gid="FS=FA", label="F_S = F_A")
         _line(
             ax,
             hi.axial_load / ff,
@@ -520,7 +520,7 @@ def bolt_load_plot(result: JointResult, units: str = "si", n_points: int = 61) -
             color=BOLT,
             lw=1.2,
             ls=(0, (5, 2)),
-            label="bolt, $F_{M,max}$",
+            label="bolt, F_M,max",
         )
         _line(
             ax,
@@ -530,12 +530,10 @@ def bolt_load_plot(result: JointResult, units: str = "si", n_points: int = 61) -
             color=CLAMP,
             lw=1.2,
             ls=(0, (5, 2)),
-            label="clamp, $F_{M,max}$",
+            label="clamp, F_M,max",
         )
-        _line(ax, x, lo.bolt_load / ff, "bolt-min", color=BOLT, lw=2.0, label="bolt, $F_{M,min}$")
-        _line(
-            ax, x, lo.clamp_load / ff, "clamp-min", color=CLAMP, lw=2.0, label="clamp, $F_{M,min}$"
-        )
+        _line(ax, x, lo.bolt_load / ff, "bolt-min", color=BOLT, lw=2.0, label="bolt, F_M,min")
+        _line(ax, x, lo.clamp_load / ff, "clamp-min", color=CLAMP, lw=2.0, label="clamp, F_M,min")
         rq = s.requirements.residual_clamp_load
         if rq > 0:
             ax.axhline(rq / ff, color=GOOD, lw=0.9, ls=(0, (4, 2)))
@@ -555,7 +553,7 @@ def bolt_load_plot(result: JointResult, units: str = "si", n_points: int = 61) -
             sx = lo.separation_load / ff
             ax.plot([sx], [sx], "o", ms=5, mfc="white", mec=LIMIT, mew=1.4, gid="separation-min")
             ax.annotate(
-                "$F_{A,sep}$",
+                "F_A,sep",
                 (sx, sx),
                 xytext=(-6, 6),
                 textcoords="offset points",
@@ -577,10 +575,10 @@ def bolt_load_plot(result: JointResult, units: str = "si", n_points: int = 61) -
             gid="service-points",
         )
         info = (
-            f"at $F_{{A,max}}$ = {fmt_number(FA_hi / ff)} {fl}, minimum preload: "
+            f"at F_A,max = {fmt_number(FA_hi / ff)} {fl}, minimum preload: "
             f"bolt load {fmt_number(svc.bolt_min / ff)} {fl}, "
             f"residual clamp load {fmt_number(svc.clamp_min / ff)} {fl}\n"
-            f"separation at $F_{{A,sep}}$ = {fmt_number(result.separation_load / ff)} {fl}"
+            f"separation at F_A,sep = {fmt_number(result.separation_load / ff)} {fl}"
             f" ({fmt_number(hi.separation_load / ff)} {fl} at maximum preload)"
         )
         ax.text(
@@ -628,9 +626,7 @@ def eccentric_load_plot(result: JointResult, units: str = "si", n_points: int = 
     (ml, mf), (ll, lf) = uu.torque, uu.length
     x = lam * (FA / ff if by_force else MB / mf)
     xlabel = (
-        f"working load $F_A$ [{fl}]"
-        if by_force
-        else f"bending moment $M_B$ [{ml.replace('*', '·')}]"
+        f"working load F_A [{fl}]" if by_force else f"bending moment M_B [{ml.replace('*', '·')}]"
     )
     lin = FV_lo + lam * (ej.phi_en * FA + ej.phi_m * MB)
     with style():
@@ -666,10 +662,10 @@ def eccentric_load_plot(result: JointResult, units: str = "si", n_points: int = 
             color=BOLT,
             lw=1.2,
             ls=(0, (5, 2)),
-            label="bolt, $F_{M,max}$",
+            label="bolt, F_M,max",
         )
-        _line(ax, x, bolt_lo / ff, "bolt-min", color=BOLT, lw=2.0, label="bolt, $F_{M,min}$")
-        _line(ax, x, clamp_lo / ff, "clamp-min", color=CLAMP, lw=2.0, label="clamp, $F_{M,min}$")
+        _line(ax, x, bolt_lo / ff, "bolt-min", color=BOLT, lw=2.0, label="bolt, F_M,min")
+        _line(ax, x, clamp_lo / ff, "clamp-min", color=CLAMP, lw=2.0, label="clamp, F_M,min")
         past = lam >= (lam_ab if lam_ab is not None else np.inf)
         if past.any():
             _line(
@@ -680,7 +676,7 @@ def eccentric_load_plot(result: JointResult, units: str = "si", n_points: int = 
                 color=MUTED,
                 lw=1.0,
                 ls=":",
-                label=r"VDI linear $F_V + \Phi_{en}^* F_A$",
+                label="VDI linear F_V + Φ*_en·F_A",
             )
         if e["opening_clamp_load_N"] is not None and e["opening_clamp_load_N"] > 0:
             _line(
@@ -691,7 +687,7 @@ def eccentric_load_plot(result: JointResult, units: str = "si", n_points: int = 
                 color=LIMIT,
                 lw=0.9,
                 ls=(0, (4, 2)),
-                label="$F_{Kab}$ (clamp load against opening)",
+                label="F_Kab (clamp load against opening)",
             )
         if lam_ab is not None and lam_ab <= top:
             i = int(np.argmin(np.abs(lam - lam_ab)))
@@ -796,7 +792,7 @@ def spring_schematic(result: JointResult) -> Figure:
         ax.text(
             xb,
             yH + 0.55,
-            rf"bolt $\delta_S$ = {res(dS)}",
+            f"bolt δ_S = {res(dS)}",
             ha="center",
             fontsize=8,
             color=BOLT,
@@ -814,7 +810,7 @@ def spring_schematic(result: JointResult) -> Figure:
         ax.text(
             xc,
             yH + 0.55,
-            rf"clamped parts $\delta_P$ = {res(dP)}",
+            f"clamped parts δ_P = {res(dP)}",
             ha="center",
             fontsize=8,
             color=CLAMP,
@@ -833,7 +829,7 @@ def spring_schematic(result: JointResult) -> Figure:
             ax.text(
                 xc + 1.05,
                 0.5 * (yA + yH),
-                rf"$(1-n)/2\ \delta_P$ = {res(0.5 * (1 - n) * dP)}",
+                f"(1 − n)/2·δ_P = {res(0.5 * (1 - n) * dP)}",
                 va="center",
                 fontsize=7,
                 color=CLAMP,
@@ -841,7 +837,7 @@ def spring_schematic(result: JointResult) -> Figure:
             ax.text(
                 xc + 1.05,
                 0.5 * (yN + yB),
-                rf"$(1-n)/2\ \delta_P$ = {res(0.5 * (1 - n) * dP)}",
+                f"(1 − n)/2·δ_P = {res(0.5 * (1 - n) * dP)}",
                 va="center",
                 fontsize=7,
                 color=CLAMP,
@@ -854,7 +850,7 @@ def spring_schematic(result: JointResult) -> Figure:
         ax.text(
             xc + 1.05,
             mid + 0.35,
-            rf"$n\ \delta_P$ = {res(n * dP)}",
+            f"n·δ_P = {res(n * dP)}",
             va="center",
             fontsize=7,
             color=CLAMP,
@@ -886,7 +882,7 @@ def spring_schematic(result: JointResult) -> Figure:
             ax.text(
                 xc - 0.95,
                 y + sgn * 0.45,
-                "$F_A$",
+                "F_A",
                 ha="right",
                 va="center",
                 color=LOAD,
@@ -895,8 +891,8 @@ def spring_schematic(result: JointResult) -> Figure:
         ax.text(
             10.0,
             -0.5,
-            rf"n = {n:g};  $\Phi_K$ = {result.springs.load_factor_K:.4g},  "
-            rf"$\Phi_n = n\,\Phi_K$ = {result.load_factor:.4g};  clamp length "
+            f"n = {n:g};  Φ_K = {result.springs.load_factor_K:.4g},  "
+            f"Φ_n = n·Φ_K = {result.load_factor:.4g};  clamp length "
             f"{s.clamp_length * 1e3:.4g} mm",
             fontsize=7.5,
             color=INK,

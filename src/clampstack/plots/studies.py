@@ -58,7 +58,7 @@ def sweep_plot(result: SweepResult, units: str = "si") -> Figure:
             result.preload_max / ff,
             color=BOLT_LIGHT,
             lw=0,
-            label="preload, assembly scatter $F_{M,min}$ .. $F_{M,max}$",
+            label="preload, assembly scatter F_M,min .. F_M,max",
         )
         band.set_gid("preload-band")
         ax.plot(T, result.preload_max / ff, color=BOLT, lw=1.0, gid="preload-max")
@@ -69,7 +69,7 @@ def sweep_plot(result: SweepResult, units: str = "si") -> Figure:
             color=CLAMP,
             lw=1.8,
             gid="residual-min",
-            label="residual clamp load $F_{KR,min}$",
+            label="residual clamp load F_KR,min",
         )
         rq = s.requirements.residual_clamp_load
         if rq > 0:
