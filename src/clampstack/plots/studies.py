@@ -125,7 +125,7 @@ def sweep_plot(result: SweepResult, units: str = "si") -> Figure:
         top = float(np.max(result.preload_max)) / ff
         ax.set_ylim(min(0.0, float(np.min(result.residual_min)) / ff * 1.05), top * 1.1)
         ax.set_xlim(T[0], T[-1])
-        fig.legend(loc="outside lower center", ncols=4, fontsize=7, handlelength=2.6)
+        fig.legend(loc="outside lower center", ncols=2, fontsize=7, handlelength=2.6)
     return fig
 
 
